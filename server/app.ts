@@ -1,0 +1,115 @@
+import path from 'node:path';
+import fs from 'node:fs';
+import express, { type Express } from 'express';
+import session from 'express-session';
+import cookieParser from 'cookie-parser';
+import helmet from 'helmet';
+import { Passport } from 'passport';
+import { Strategy as LocalStrategy } from 'passport-local';
+import { ConnectSessionKnexStore } from 'connect-session-knex';
+import type { Knex } from 'knex';
+import { pinoHttp } from 'pino-http';
+import type { Clock } from './clock';
+import { systemClock } from './clock';
+import { NotFoundError } from './errors';
+import { errorHandler } from './middleware/error-handler';
+import { xsrf } from './middleware/xsrf';
+import { authenticate, findActiveUser } from './services/users';
+import { authRoutes } from './routes/auth';
+import { roomRoutes } from './routes/rooms';
+import { settingsRoutes } from './routes/settings';
+import { apiRoutes } from './routes/api';
+
+export interface AppDeps {
+  db: Knex;
+  sessionSecret: string;
+  clock?: Clock;
+  /** Demo mode lists the demo accounts on the sign-in page. */
+  demo?: boolean;
+  /** Production: Secure cookies behind a TLS-terminating proxy. */
+  production?: boolean;
+  /** Failed sign-ins allowed per address per 15 minutes. */
+  loginAttempts?: number;
+  /** Folder of the built client; omitted in API-only tests. */
+  clientDir?: string;
+  /** Request logging; off in tests. */
+  logRequests?: boolean;
+  logError?: (err: unknown) => void;
+}
+
+/** Builds the Express app without listening, so tests drive it with supertest. */
+export function createApp(deps: AppDeps): Express {
+  const clock = deps.clock ?? systemClock;
+  const production = deps.production ?? false;
+  const logError = deps.logError ?? ((err: unknown) => console.error(err));
+  const app = express();
+  app.disable('x-powered-by');
+  if (production) app.set('trust proxy', 1);
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          // Angular Material sets inline styles; nothing else inline is allowed.
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:'],
+          'font-src': ["'self'"],
+          'connect-src': ["'self'"],
+          'upgrade-insecure-requests': production ? [] : null,
+        },
+      },
+      hsts: production,
+    }),
+  );
+  if (deps.logRequests) app.use(pinoHttp({ autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
+
+  const passport = new Passport();
+  passport.use(
+    new LocalStrategy((username, password, done) => {
+      authenticate(deps.db, username, password).then((user) => done(null, user ?? false), done);
+    }),
+  );
+  passport.serializeUser<number>((user, done) => done(null, user.id));
+  passport.deserializeUser<number>((id, done) => {
+    findActiveUser(deps.db, id).then((user) => done(null, user ?? false), done);
+  });
+
+  const api = express.Router();
+  api.use(express.json({ limit: '100kb' }));
+  api.use(cookieParser());
+  api.use(
+    session({
+      name: 'turnwise.sid',
+      secret: deps.sessionSecret,
+      store: new ConnectSessionKnexStore({ knex: deps.db, createTable: false, cleanupInterval: production ? 60_000 : 0 }),
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: production, maxAge: 12 * 60 * 60 * 1000 },
+    }),
+  );
+  api.use(passport.initialize());
+  api.use(passport.session());
+  api.use(xsrf({ secure: production }));
+
+  api.get('/health', (_req, res) => {
+    res.json({ status: 'ok', demo: Boolean(deps.demo), time: clock.now().toISOString() });
+  });
+  api.use('/auth', authRoutes({ db: deps.db, passport, demo: Boolean(deps.demo), loginAttempts: deps.loginAttempts ?? 10 }));
+  api.use('/rooms', roomRoutes({ db: deps.db, clock }));
+  api.use('/settings', settingsRoutes({ db: deps.db }));
+  api.use(apiRoutes({ db: deps.db, clock }));
+  api.use(() => {
+    throw new NotFoundError('No such API route.');
+  });
+  app.use('/api', api);
+
+  if (deps.clientDir && fs.existsSync(path.join(deps.clientDir, 'index.html'))) {
+    const clientDir = deps.clientDir;
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    app.get('/{*splat}', (_req, res) => res.sendFile(path.join(clientDir, 'index.html')));
+  }
+
+  app.use(errorHandler(logError));
+  return app;
+}

@@ -1,0 +1,44 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import { randomBytes } from 'node:crypto';
+
+export interface ServerConfig {
+  port: number;
+  databaseFile: string;
+  sessionSecret: string;
+  production: boolean;
+  demo: boolean;
+  clientDir: string;
+}
+
+/**
+ * Reads configuration from the environment. Demo mode (the default outside production) keeps a
+ * generated session secret next to the database so sessions survive restarts; production must
+ * set SESSION_SECRET.
+ */
+export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
+  const production = env['NODE_ENV'] === 'production';
+  const demo = env['TURNWISE_DEMO'] ? env['TURNWISE_DEMO'] === 'true' : !production;
+  const databaseFile = env['DATABASE_FILE'] ?? 'data/turnwise.sqlite';
+  let sessionSecret = env['SESSION_SECRET'];
+  if (!sessionSecret) {
+    if (production) throw new Error('SESSION_SECRET must be set when NODE_ENV=production.');
+    sessionSecret = storedDemoSecret(path.join(path.dirname(path.resolve(databaseFile)), 'session-secret'));
+  }
+  return {
+    port: Number(env['PORT'] ?? 3000),
+    databaseFile,
+    sessionSecret,
+    production,
+    demo,
+    clientDir: env['CLIENT_DIR'] ?? path.resolve(__dirname, '..', 'dist', 'turnwise', 'browser'),
+  };
+}
+
+function storedDemoSecret(file: string): string {
+  if (fs.existsSync(file)) return fs.readFileSync(file, 'utf8').trim();
+  fs.mkdirSync(path.dirname(file), { recursive: true });
+  const secret = randomBytes(32).toString('hex');
+  fs.writeFileSync(file, secret, { mode: 0o600 });
+  return secret;
+}

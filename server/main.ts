@@ -1,0 +1,33 @@
+import { createApp } from './app';
+import { readConfig } from './config';
+import { createDb, migrateToLatest } from './db';
+import { seedDemo, seedReferenceData } from './seeding';
+import { systemClock } from './clock';
+
+async function main(): Promise<void> {
+  const config = readConfig();
+  const db = createDb(config.databaseFile);
+  await migrateToLatest(db);
+  await seedReferenceData(db);
+  if (config.demo) await seedDemo(db, systemClock.now());
+
+  const app = createApp({
+    db,
+    sessionSecret: config.sessionSecret,
+    demo: config.demo,
+    production: config.production,
+    clientDir: config.clientDir,
+    logRequests: true,
+  });
+  const server = app.listen(config.port, () => {
+    console.log(`Turnwise listening on http://localhost:${config.port} (${config.demo ? 'demo mode' : 'production'}; database ${config.databaseFile})`);
+  });
+  const stop = () => server.close(() => db.destroy().then(() => process.exit(0)));
+  process.on('SIGINT', stop);
+  process.on('SIGTERM', stop);
+}
+
+main().catch((err) => {
+  console.error(err instanceof Error ? err.message : err);
+  process.exit(1);
+});

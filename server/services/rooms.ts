@@ -1,0 +1,47 @@
+import type { Knex } from 'knex';
+import type { Room, RoomFields } from '../../shared/api/rooms';
+import { ValidationError } from '../errors';
+
+interface RoomRow {
+  id: number;
+  name: string;
+  modality: string;
+  air_changes_per_hour: number;
+  staff: number;
+  opens_at: string;
+  closes_at: string;
+}
+
+export function toRoom(row: RoomRow): Room {
+  return {
+    id: row.id,
+    name: row.name,
+    modality: row.modality as Room['modality'],
+    airChangesPerHour: row.air_changes_per_hour,
+    staff: row.staff,
+    opensAt: row.opens_at,
+    closesAt: row.closes_at,
+  };
+}
+
+export async function listRooms(db: Knex): Promise<Room[]> {
+  const rows: RoomRow[] = await db('rooms').where({ active: true }).orderBy([{ column: 'sort_order' }, { column: 'name' }]);
+  return rows.map(toRoom);
+}
+
+export async function createRoom(db: Knex, room: RoomFields, now: Date): Promise<Room> {
+  const clash = await db('rooms').whereRaw('lower(name) = lower(?)', [room.name]).first();
+  if (clash) throw new ValidationError(`A room named "${room.name}" already exists.`, { problems: [{ field: 'name', message: 'already exists' }] });
+  const [{ max }] = await db('rooms').max({ max: 'sort_order' });
+  const [id] = await db('rooms').insert({
+    name: room.name,
+    modality: room.modality,
+    air_changes_per_hour: room.airChangesPerHour,
+    staff: room.staff,
+    opens_at: room.opensAt,
+    closes_at: room.closesAt,
+    sort_order: (Number(max) || 0) + 1,
+    created_at: now.toISOString(),
+  });
+  return toRoom((await db<RoomRow>('rooms').where({ id }).first())!);
+}

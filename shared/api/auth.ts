@@ -1,0 +1,18 @@
+/** The five roles; what each may do is enforced on the server for every route. */
+export const ROLES = ['admin', 'scheduler', 'charge', 'tech', 'frontdesk'] as const;
+export type Role = (typeof ROLES)[number];
+
+export interface SessionUser {
+  username: string;
+  role: Role;
+  displayName?: string;
+}
+
+export interface LoginResponse {
+  user: SessionUser;
+}
+
+export interface DemoAccounts {
+  password: string;
+  accounts: { username: string; role: Role }[];
+}

@@ -1,0 +1,31 @@
+import { z } from 'zod';
+
+/**
+ * DICOM modality codes, attribute (0008,0060), PS3.3 C.7.3.1.1.1 — the subset an imaging
+ * department books scan rooms for.
+ */
+export const MODALITIES = ['MR', 'CT', 'US', 'CR', 'DX', 'NM', 'PT', 'MG', 'XA', 'RF', 'OT'] as const;
+export type Modality = (typeof MODALITIES)[number];
+
+const hhmm = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'use HH:MM (24-hour)');
+
+export const roomInputSchema = z.object({
+  name: z.string().trim().min(1, 'a room needs a name').max(40),
+  modality: z.enum(MODALITIES, { message: `use a DICOM modality code (${MODALITIES.join(', ')})` }),
+  airChangesPerHour: z.number().min(1, 'at least 1 air change per hour').max(60, 'at most 60 air changes per hour'),
+  staff: z.number().int().min(1).max(4).default(1),
+  opensAt: hhmm.default('07:00'),
+  closesAt: hhmm.default('19:00'),
+});
+export type RoomInput = z.input<typeof roomInputSchema>;
+export type RoomFields = z.output<typeof roomInputSchema>;
+
+export interface Room {
+  id: number;
+  name: string;
+  modality: Modality;
+  airChangesPerHour: number;
+  staff: number;
+  opensAt: string;
+  closesAt: string;
+}
