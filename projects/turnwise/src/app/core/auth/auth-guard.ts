@@ -1,0 +1,13 @@
+import { inject } from '@angular/core';
+import { CanActivateFn, Router } from '@angular/router';
+
+import { AuthService } from './auth-service';
+
+/** Lets signed-in users through; sends everyone else to sign in, remembering where they were going. */
+export const authGuard: CanActivateFn = async (_route, state) => {
+  // inject() only works before the first await.
+  const router = inject(Router);
+  const user = await inject(AuthService).load();
+  if (user) return true;
+  return router.createUrlTree(['/sign-in'], { queryParams: { returnUrl: state.url } });
+};

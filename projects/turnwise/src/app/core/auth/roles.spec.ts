@@ -1,0 +1,38 @@
+import { ROLES, Role, homeFor, screen, screensFor } from './roles';
+
+// Expected access comes from the project brief's screen list (our product rule, not a published source).
+const EXPECTED: Record<Role, string[]> = {
+  admin: ['day', 'import', 'rooms-now', 'turnover', 'reports', 'setup'],
+  scheduler: ['day', 'import', 'rooms-now'],
+  charge: ['day', 'import', 'rooms-now', 'turnover', 'reports'],
+  tech: ['day', 'rooms-now', 'turnover'],
+  frontdesk: ['day', 'rooms-now'],
+};
+
+describe('screensFor', () => {
+  it.each(ROLES)('returns exactly the screens the %s role may use, in navigation order', (role) => {
+    expect(screensFor(role).map((s) => s.path)).toEqual(EXPECTED[role]);
+  });
+});
+
+describe('homeFor', () => {
+  it('sends each role to the screen it works on', () => {
+    expect(homeFor('frontdesk')).toBe('/rooms-now');
+    expect(homeFor('tech')).toBe('/turnover');
+    expect(homeFor('scheduler')).toBe('/day');
+    expect(homeFor('charge')).toBe('/day');
+    expect(homeFor('admin')).toBe('/day');
+  });
+
+  it('only ever names a screen the role may use', () => {
+    for (const role of ROLES) {
+      expect(screensFor(role).map((s) => '/' + s.path)).toContain(homeFor(role));
+    }
+  });
+});
+
+describe('screen', () => {
+  it('throws on an unknown path so a route cannot lose its guard', () => {
+    expect(() => screen('day-plan')).toThrow('No screen "day-plan"');
+  });
+});

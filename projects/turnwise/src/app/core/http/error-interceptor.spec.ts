@@ -1,0 +1,107 @@
+import { HttpClient, provideHttpClient, withInterceptors } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { TestBed } from '@angular/core/testing';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { Router, provideRouter } from '@angular/router';
+import { firstValueFrom } from 'rxjs';
+
+import { ApiError } from '@shared/api/errors';
+import { fakeAuth } from '../../../testing/fake-auth';
+import { errorInterceptor } from './error-interceptor';
+import { showsOwnErrors } from './shows-own-errors';
+
+function setUp() {
+  const { fake, provider } = fakeAuth({ username: 'casey', role: 'charge' });
+  const snackBar = { open: jest.fn() };
+  TestBed.configureTestingModule({
+    providers: [
+      provideRouter([]),
+      provideHttpClient(withInterceptors([errorInterceptor])),
+      provideHttpClientTesting(),
+      provider,
+      { provide: MatSnackBar, useValue: snackBar },
+    ],
+  });
+  const router = TestBed.inject(Router);
+  jest.spyOn(router, 'url', 'get').mockReturnValue('/day?date=2027-03-14');
+  const navigate = jest.spyOn(router, 'navigate').mockResolvedValue(true);
+  return {
+    auth: fake,
+    snackBar,
+    navigate,
+    http: TestBed.inject(HttpClient),
+    backend: TestBed.inject(HttpTestingController),
+  };
+}
+
+/** Sends a request, answers it with the given failure and returns what the caller receives. */
+async function fail(
+  setup: ReturnType<typeof setUp>,
+  url: string,
+  body: string | object | null,
+  status: number,
+  options: { ownErrors?: boolean } = {},
+): Promise<ApiError> {
+  const result = firstValueFrom(
+    setup.http.get(url, options.ownErrors ? { context: showsOwnErrors() } : {}),
+  ).then(
+    () => {
+      throw new Error('expected the request to fail');
+    },
+    (error: ApiError) => error,
+  );
+  setup.backend.expectOne(url).flush(body, { status, statusText: 'x' });
+  return result;
+}
+
+describe('errorInterceptor', () => {
+  afterEach(() => TestBed.inject(HttpTestingController).verify());
+
+  it('turns a 500 into an ApiError and shows the server message in a snack bar', async () => {
+    const setup = setUp();
+    const error = await fail(setup, '/api/rooms', { error: { code: 'internal', message: 'The database is busy.' } }, 500);
+    expect(error).toEqual({ status: 500, code: 'internal', message: 'The database is busy.' });
+    expect(setup.snackBar.open).toHaveBeenCalledWith('The database is busy.', 'Dismiss', expect.any(Object));
+    expect(setup.navigate).not.toHaveBeenCalled();
+  });
+
+  it('on a 401 forgets the user and sends them to sign in, coming back to where they were', async () => {
+    const setup = setUp();
+    const error = await fail(setup, '/api/days/2027-03-14/plan', { error: { code: 'unauthenticated', message: 'Sign in first.' } }, 401);
+    expect(error.status).toBe(401);
+    expect(setup.auth.clear).toHaveBeenCalled();
+    expect(setup.navigate).toHaveBeenCalledWith(['/sign-in'], { queryParams: { returnUrl: '/day?date=2027-03-14' } });
+    expect(setup.snackBar.open).not.toHaveBeenCalled();
+  });
+
+  it('leaves a 401 from the "who am I" call alone: that is how signed-out is learned', async () => {
+    const setup = setUp();
+    await fail(setup, '/api/auth/me', { error: { code: 'unauthenticated', message: 'Sign in first.' } }, 401, { ownErrors: true });
+    expect(setup.auth.clear).not.toHaveBeenCalled();
+    expect(setup.navigate).not.toHaveBeenCalled();
+    expect(setup.snackBar.open).not.toHaveBeenCalled();
+  });
+
+  it('skips the snack bar when the caller shows the error itself, still handing over an ApiError', async () => {
+    const setup = setUp();
+    const error = await fail(setup, '/api/exams/7', { error: { code: 'stale_version', message: 'Someone moved this slot first.' } }, 409, { ownErrors: true });
+    expect(error).toEqual({ status: 409, code: 'stale_version', message: 'Someone moved this slot first.' });
+    expect(setup.snackBar.open).not.toHaveBeenCalled();
+  });
+
+  it('keeps a short plain-text body, as a rate limiter might send', async () => {
+    const setup = setUp();
+    const error = await fail(setup, '/api/rooms', 'Too many attempts, wait a minute.', 429);
+    expect(error).toEqual({ status: 429, code: 'http_429', message: 'Too many attempts, wait a minute.' });
+  });
+
+  it('explains an unreachable server instead of showing "HTTP 0"', async () => {
+    const setup = setUp();
+    const result = firstValueFrom(setup.http.get('/api/rooms')).catch((error: ApiError) => error);
+    setup.backend.expectOne('/api/rooms').error(new ProgressEvent('error'));
+    const error = (await result) as ApiError;
+    expect(error.status).toBe(0);
+    expect(error.code).toBe('unreachable');
+    expect(setup.snackBar.open).toHaveBeenCalledWith(expect.stringContaining('cannot reach'), 'Dismiss', expect.any(Object));
+  });
+});

@@ -1,0 +1,65 @@
+import { HttpErrorResponse, HttpInterceptorFn } from '@angular/common/http';
+import { inject } from '@angular/core';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { Router } from '@angular/router';
+import { catchError, throwError } from 'rxjs';
+
+import { ApiError } from '@shared/api/errors';
+import { AuthService } from '../auth/auth-service';
+import { SHOWS_OWN_ERRORS } from './shows-own-errors';
+
+/** Calls that answer 401 as part of normal sign-in, never as "your session ended". */
+const AUTH_CALLS = ['/api/auth/me', '/api/auth/login'];
+
+/**
+ * Turns every failed request into an {@link ApiError}. A 401 elsewhere means the session
+ * expired, so the user is sent to sign in and brought back afterwards; other errors are shown
+ * in a snack bar unless the caller opted out with SHOWS_OWN_ERRORS.
+ */
+export const errorInterceptor: HttpInterceptorFn = (request, next) => {
+  const auth = inject(AuthService);
+  const router = inject(Router);
+  const snackBar = inject(MatSnackBar);
+  const showsOwnErrors = request.context.get(SHOWS_OWN_ERRORS);
+
+  return next(request).pipe(
+    catchError((failure: unknown) => {
+      if (!(failure instanceof HttpErrorResponse)) return throwError(() => failure);
+      const apiError = toApiError(failure);
+      if (apiError.status === 401 && !AUTH_CALLS.some((path) => request.url.startsWith(path))) {
+        auth.clear();
+        if (!router.url.startsWith('/sign-in')) {
+          void router.navigate(['/sign-in'], { queryParams: { returnUrl: router.url } });
+        }
+      } else if (!showsOwnErrors) {
+        snackBar.open(apiError.message, 'Dismiss', { duration: 8000 });
+      }
+      return throwError(() => apiError);
+    }),
+  );
+};
+
+/** Reads the server's `{error: {code, message}}`, falling back to something a person can act on. */
+export function toApiError(response: HttpErrorResponse): ApiError {
+  const body: unknown = response.error;
+  const serverError = typeof body === 'object' && body !== null ? (body as { error?: unknown }).error : undefined;
+  if (isCodeAndMessage(serverError)) {
+    return { status: response.status, code: serverError.code, message: serverError.message };
+  }
+  if (response.status === 0) {
+    return { status: 0, code: 'unreachable', message: 'Turnwise cannot reach its server. Check the connection and try again.' };
+  }
+  // Some layers (a proxy, a rate limiter) answer with plain text; show it when it is short enough to read.
+  const text = typeof body === 'string' && body.trim().length > 0 && body.length <= 300 ? body.trim() : null;
+  return {
+    status: response.status,
+    code: `http_${response.status}`,
+    message: text ?? `The server could not complete this (HTTP ${response.status}). Try again in a moment.`,
+  };
+}
+
+function isCodeAndMessage(value: unknown): value is { code: string; message: string } {
+  if (typeof value !== 'object' || value === null) return false;
+  const candidate = value as { code?: unknown; message?: unknown };
+  return typeof candidate.code === 'string' && typeof candidate.message === 'string';
+}

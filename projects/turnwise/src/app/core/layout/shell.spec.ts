@@ -1,0 +1,45 @@
+import { provideHttpClient } from '@angular/common/http';
+import { provideHttpClientTesting } from '@angular/common/http/testing';
+import { TestBed } from '@angular/core/testing';
+import { Router, provideRouter } from '@angular/router';
+
+import { fakeAuth } from '../../../testing/fake-auth';
+import { provideIcons } from './icons';
+import { Shell } from './shell';
+
+async function render() {
+  const { fake, provider } = fakeAuth({ username: 'casey', role: 'charge' });
+  TestBed.configureTestingModule({
+    imports: [Shell],
+    providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting(), provideIcons(), provider],
+  });
+  const navigate = jest.spyOn(TestBed.inject(Router), 'navigateByUrl').mockResolvedValue(true);
+  const fixture = TestBed.createComponent(Shell);
+  await fixture.whenStable();
+  return { fixture, fake, navigate, page: fixture.nativeElement as HTMLElement };
+}
+
+describe('Shell', () => {
+  it('has header, navigation and main landmarks', async () => {
+    const { page } = await render();
+    expect(page.querySelector('header')).not.toBeNull();
+    expect(page.querySelector('nav[aria-label="Screens"]')).not.toBeNull();
+    expect(page.querySelector('main#main')).not.toBeNull();
+  });
+
+  it('shows the product name and who is signed in, with their role', async () => {
+    const { page } = await render();
+    const toolbar = page.querySelector('mat-toolbar')!.textContent!;
+    expect(toolbar).toContain('Turnwise');
+    expect(toolbar).toContain('casey');
+    expect(toolbar).toContain('Charge technologist');
+  });
+
+  it('signs out and goes to the sign-in page', async () => {
+    const { page, fake, navigate, fixture } = await render();
+    page.querySelector<HTMLButtonElement>('button.sign-out')!.click();
+    await fixture.whenStable();
+    expect(fake.logout).toHaveBeenCalled();
+    expect(navigate).toHaveBeenCalledWith('/sign-in');
+  });
+});

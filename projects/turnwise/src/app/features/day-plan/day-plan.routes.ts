@@ -1,0 +1,5 @@
+import { Routes } from '@angular/router';
+
+import { DayPlan } from './day-plan';
+
+export default [{ path: '', component: DayPlan }] satisfies Routes;

@@ -1,0 +1,5 @@
+import { Routes } from '@angular/router';
+
+import { Import } from './import';
+
+export default [{ path: '', component: Import }] satisfies Routes;

@@ -1,0 +1,160 @@
+import { parse as parseCsv } from 'csv-parse/sync';
+import { Workbook, ValueType, type Cell } from 'exceljs';
+import { UnsupportedMediaTypeError, ValidationError } from '../errors';
+
+/** An uploaded file as multer hands it over. */
+export interface UploadedExamFile {
+  buffer: Buffer;
+  originalname: string;
+  mimetype: string;
+}
+
+const ACCEPTED = 'Upload the day list as a CSV (UTF-8) or an Excel .xlsx file.';
+const TEXT_EXTENSIONS = ['csv', 'txt'];
+const XLSX_MIMETYPE = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
+const ZIP_MAGIC = Buffer.from('PK\x03\x04', 'latin1');
+// Old binary Excel (.xls) and other OLE2 compound files.
+const OLE2_MAGIC = Buffer.from([0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1]);
+// Excel stores times as fractions of a day counted from 1899-12-30 (or 1904-01-01 in the Mac
+// date system); exceljs turns them into Dates as if that day were UTC.
+const EXCEL_EPOCH_DAYS = [Date.UTC(1899, 11, 30), Date.UTC(1904, 0, 1)];
+const MINUTE = 60_000;
+
+/**
+ * Reads an uploaded exam list into a table of text cells (`table[0]` is the header) for
+ * `parseExamTable`. The kind is decided by content first (an .xlsx is a zip), then by name.
+ * Trailing empty cells are dropped from every row and blank rows are kept as `[]`, so row
+ * numbers match the spreadsheet and a CSV and an .xlsx of the same list give the same table.
+ *
+ * @throws UnsupportedMediaTypeError (415) for anything but CSV text or .xlsx: binary content,
+ *   old .xls, other extensions.
+ * @throws ValidationError (422) for an empty or header-only file, text that is not UTF-8, a
+ *   malformed CSV (unclosed quote) or a damaged workbook.
+ */
+export async function readExamFile(file: UploadedExamFile): Promise<string[][]> {
+  const { buffer } = file;
+  const extension = /\.([^./\\]+)$/.exec(file.originalname)?.[1]?.toLowerCase() ?? '';
+  if (extension !== '' && extension !== 'xlsx' && !TEXT_EXTENSIONS.includes(extension)) {
+    throw new UnsupportedMediaTypeError(`".${extension}" files are not accepted. ${ACCEPTED}`);
+  }
+  if (buffer.length === 0) throw new ValidationError('The file is empty.');
+  if (startsWith(buffer, OLE2_MAGIC)) {
+    throw new UnsupportedMediaTypeError('This is an old-style Excel (.xls) file. Save it as .xlsx or CSV UTF-8 and upload again.');
+  }
+
+  let table: string[][];
+  if (startsWith(buffer, ZIP_MAGIC)) table = await readXlsx(buffer);
+  else if (extension === 'xlsx' || file.mimetype === XLSX_MIMETYPE) throw damagedWorkbook();
+  else table = readCsv(buffer);
+
+  const withData = table.filter((cells) => cells.length > 0);
+  if (withData.length === 0) throw new ValidationError('The file is empty.');
+  if (withData.length === 1) throw new ValidationError('The file has a header row but no exams.');
+  return table;
+}
+
+function readCsv(buffer: Buffer): string[][] {
+  if (looksBinary(buffer)) throw new UnsupportedMediaTypeError(`The file is neither text nor an .xlsx workbook. ${ACCEPTED}`);
+  let text: string;
+  try {
+    text = new TextDecoder('utf-8', { fatal: true }).decode(buffer);
+  } catch {
+    throw new ValidationError('The file is not UTF-8 text. In Excel choose "CSV UTF-8" when saving, or upload the .xlsx.');
+  }
+  try {
+    const records: string[][] = parseCsv(text, {
+      bom: true,
+      // A ragged row must reach parseExamTable as a row error, not end the whole read.
+      relax_column_count: true,
+      relax_quotes: true,
+      // Files edited on several systems mix line endings; each one ends a record.
+      record_delimiter: ['\r\n', '\n', '\r'],
+    });
+    return records.map(dropTrailingEmpty);
+  } catch (error) {
+    const line = (error as { lines?: number }).lines;
+    const where = line ? ` near line ${line}` : '';
+    throw new ValidationError(`The CSV could not be read${where}: check for a quote that is opened but never closed.`, [
+      { row: line ?? 1, column: '', message: 'Unreadable CSV: unbalanced quotes.' },
+    ]);
+  }
+}
+
+async function readXlsx(buffer: Buffer): Promise<string[][]> {
+  const workbook = new Workbook();
+  try {
+    await workbook.xlsx.load(buffer as unknown as Parameters<typeof workbook.xlsx.load>[0]);
+  } catch {
+    throw damagedWorkbook();
+  }
+  const sheet = workbook.worksheets[0];
+  if (!sheet) throw new ValidationError('The workbook has no worksheet.');
+  const table: string[][] = [];
+  for (let rowNumber = 1; rowNumber <= sheet.rowCount; rowNumber++) {
+    const row = sheet.getRow(rowNumber);
+    const cells: string[] = [];
+    for (let column = 1; column <= row.cellCount; column++) cells.push(cellText(row.getCell(column)));
+    table.push(dropTrailingEmpty(cells));
+  }
+  return table;
+}
+
+/** Text of a cell as the user typed it: formulas as their text, never their result. */
+function cellText(cell: Cell): string {
+  switch (cell.type) {
+    case ValueType.Formula:
+      return `=${cell.formula}`;
+    case ValueType.Date:
+      return dateText(cell.value as Date);
+    case ValueType.Boolean:
+      return cell.value ? 'yes' : 'no';
+    case ValueType.Number:
+      return String(cell.value);
+    case ValueType.RichText:
+      return (cell.value as { richText: { text: string }[] }).richText.map((run) => run.text).join('');
+    case ValueType.Hyperlink:
+      return String((cell.value as { text?: unknown }).text ?? '');
+    case ValueType.Error:
+      return String((cell.value as { error?: unknown }).error ?? '');
+    case ValueType.Null:
+    case ValueType.Merge: // Excel itself shows and exports a merged area's value once, in its first cell.
+      return '';
+    default:
+      return cell.value == null ? '' : String(cell.value);
+  }
+}
+
+// A time-only cell becomes HH:MM; one with a date keeps it (as YYYY-MM-DDTHH:MM) so that a
+// start on another day is caught rather than silently moved onto the day being imported.
+function dateText(value: Date): string {
+  // Day fractions are stored in binary floating point: 08:30 can come back as 08:29:59.999.
+  const rounded = new Date(Math.round(value.getTime() / MINUTE) * MINUTE);
+  const [day, time] = [rounded.toISOString().slice(0, 10), rounded.toISOString().slice(11, 16)];
+  const dayStart = Date.UTC(rounded.getUTCFullYear(), rounded.getUTCMonth(), rounded.getUTCDate());
+  if (EXCEL_EPOCH_DAYS.includes(dayStart)) return time;
+  return time === '00:00' ? day : `${day}T${time}`;
+}
+
+function dropTrailingEmpty(cells: string[]): string[] {
+  let end = cells.length;
+  while (end > 0 && cells[end - 1].trim() === '') end--;
+  return cells.slice(0, end);
+}
+
+function startsWith(buffer: Buffer, magic: Buffer): boolean {
+  return buffer.length >= magic.length && buffer.subarray(0, magic.length).equals(magic);
+}
+
+// Text never holds NUL; a few stray control characters may come from a spreadsheet export.
+function looksBinary(buffer: Buffer): boolean {
+  let control = 0;
+  for (const byte of buffer) {
+    if (byte === 0) return true;
+    if (byte < 0x20 && byte !== 0x09 && byte !== 0x0a && byte !== 0x0d && byte !== 0x0c) control++;
+  }
+  return control > buffer.length / 100;
+}
+
+function damagedWorkbook(): ValidationError {
+  return new ValidationError('The .xlsx file could not be opened: it may be damaged or not really an Excel workbook. Save it again from Excel and retry.');
+}
