@@ -3,7 +3,7 @@ module.exports = {
   displayName: 'server',
   testEnvironment: 'node',
   rootDir: __dirname,
-  roots: ['<rootDir>/server', '<rootDir>/shared', '<rootDir>/migrations', '<rootDir>/seeds', '<rootDir>/tests/api'],
+  roots: ['<rootDir>/server', '<rootDir>/shared', '<rootDir>/seeds', '<rootDir>/tests/api'],
   testMatch: ['**/*.spec.ts', '**/*.test.ts'],
   transform: {
     '^.+\\.ts$': ['ts-jest', { tsconfig: '<rootDir>/tsconfig.server.json', diagnostics: false }],
