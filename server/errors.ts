@@ -8,6 +8,8 @@ export class HttpError extends Error {
     readonly code: string,
     message: string,
     readonly details?: unknown,
+    /** Extra top-level fields of the error body (e.g. the import refusal's `table`). */
+    readonly extra?: Record<string, unknown>,
   ) {
     super(message);
     this.name = new.target.name;
@@ -58,7 +60,7 @@ export class UnsupportedMediaTypeError extends HttpError {
 
 /** 422: the request was understood but its content is invalid; `details` lists the problems. */
 export class ValidationError extends HttpError {
-  constructor(message: string, details?: unknown) {
-    super(422, 'validation_failed', message, details);
+  constructor(message: string, details?: unknown, extra?: Record<string, unknown>) {
+    super(422, 'validation_failed', message, details, extra);
   }
 }

@@ -33,6 +33,6 @@ export function errorHandler(log: (err: unknown) => void): ErrorRequestHandler {
     const body: Record<string, unknown> = { error: { code: known.code, message: known.message } };
     if (Array.isArray(known.details)) body['errors'] = known.details;
     else if (known.details !== undefined) (body['error'] as Record<string, unknown>)['details'] = known.details;
-    res.status(known.status).json(body);
+    res.status(known.status).json({ ...body, ...known.extra });
   };
 }

@@ -1,6 +1,7 @@
 import type { Response } from 'supertest';
 import type { Role } from '../../shared/api/auth';
 import type { Client, Harness } from './harness';
+import { exampleCsv } from '../fixtures/exam-lists';
 
 export interface RouteCase {
   method: 'get' | 'post' | 'put' | 'patch' | 'delete';
@@ -31,5 +32,19 @@ export const ROUTE_TABLE: RouteCase[] = [
     path: '/api/settings',
     allowed: ['admin'],
     send: (c) => c.put('/api/settings', { timezone: 'America/Chicago', snugMarginMinutes: 3 }),
+  },
+
+  { method: 'get', path: '/api/days/:date/plan', allowed: 'signed-in', send: (c) => c.get('/api/days/2027-03-10/plan') },
+  {
+    method: 'post',
+    path: '/api/days/:date/exams/import?dryRun=true',
+    allowed: ['scheduler', 'charge', 'admin'],
+    send: (c) => c.upload('/api/days/2027-03-10/exams/import?dryRun=true', exampleCsv('2027-03-10'), 'day.csv'),
+  },
+  {
+    method: 'post',
+    path: '/api/days/:date/exams/import',
+    allowed: ['scheduler', 'charge', 'admin'],
+    send: (c) => c.upload('/api/days/2027-03-11/exams/import', exampleCsv('2027-03-11'), 'day.csv'),
   },
 ];

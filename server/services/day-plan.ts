@@ -1,0 +1,31 @@
+import type { Knex } from 'knex';
+import { computeDayPlan, type DayPlanExam } from '../../shared/turnover';
+import type { DayPlan } from '../../shared/api/plan';
+import type { Room } from '../../shared/api/rooms';
+import { examsOfDay, toPlanExam } from './exams';
+import { listRooms } from './rooms';
+import { readSettings } from './settings';
+
+/** The day's plan from what is stored: rooms, settings and the day list. */
+export async function loadDayPlan(db: Knex, day: string): Promise<DayPlan> {
+  const [settings, rooms, exams] = await Promise.all([readSettings(db), listRooms(db), examsOfDay(db, day)]);
+  return planFor(day, settings, rooms, exams.map(toPlanExam));
+}
+
+/** Computes a plan for given exams (stored or would-be), with the site's settings. */
+export function planFor(
+  day: string,
+  settings: { timezone: string; snugMarginMinutes: number },
+  rooms: Room[],
+  exams: DayPlanExam[],
+): DayPlan {
+  const roomIds = new Set(rooms.map((r) => r.id));
+  return computeDayPlan({
+    date: day,
+    timezone: settings.timezone,
+    snugMarginMinutes: settings.snugMarginMinutes,
+    rooms,
+    // an exam in a room that was since retired stays stored but leaves the plan
+    exams: exams.filter((e) => roomIds.has(e.roomId)),
+  });
+}

@@ -1,0 +1,95 @@
+import type { Knex } from 'knex';
+import { diffExamLists, parseExamTable, type ExamListRow } from '../../shared/exam-list';
+import type { ImportResult } from '../../shared/api/import';
+import { ValidationError } from '../errors';
+import { examColumns, examsOfDay, toListed } from './exams';
+import { readExamFile, type UploadedExamFile } from './exam-file';
+import { planFor } from './day-plan';
+import { listRooms } from './rooms';
+import { readSettings } from './settings';
+
+const PREVIEW_TABLE_ROWS = 1000;
+
+export interface ImportRequest {
+  day: string;
+  file: UploadedExamFile;
+  userId: number;
+  dryRun: boolean;
+  now: Date;
+}
+
+/**
+ * Reads, validates and (unless a dry run) stores a day list. Any bad row refuses the whole file
+ * with every error; a good file replaces the day's list in one transaction, keeping the id and
+ * version of exams whose accession stays so open screens and later moves still match.
+ */
+export async function importExamList(db: Knex, req: ImportRequest): Promise<ImportResult> {
+  const [settings, rooms] = await Promise.all([readSettings(db), listRooms(db)]);
+  const table = await readExamFile(req.file);
+  const parsed = parseExamTable(table, { date: req.day, timezone: settings.timezone, roomNames: rooms.map((r) => r.name) });
+  if (parsed.errors.length > 0) {
+    const n = parsed.errors.length;
+    throw new ValidationError(
+      `The file was not imported: ${n} problem${n === 1 ? '' : 's'} to fix. Nothing on ${req.day} was changed.`,
+      parsed.errors,
+      { warnings: parsed.warnings, table: table.slice(0, PREVIEW_TABLE_ROWS) },
+    );
+  }
+
+  const roomIdByName = new Map(rooms.map((r) => [r.name, r.id]));
+  const roomNameById = new Map(rooms.map((r) => [r.id, r.name]));
+  const current = await examsOfDay(db, req.day);
+  const diff = diffExamLists(
+    current.map((row) => toListed(row, roomNameById)),
+    parsed.rows,
+  );
+  const wouldBe = parsed.rows.map((row, i) => ({
+    ...row,
+    id: -(i + 1),
+    roomId: roomIdByName.get(row.room)!,
+    version: 0,
+  }));
+  const summary = planFor(req.day, settings, rooms, wouldBe).summary;
+  const result: ImportResult = {
+    dryRun: req.dryRun,
+    date: req.day,
+    fileName: req.file.originalname,
+    imported: parsed.rows.length,
+    added: diff.added,
+    changed: diff.changed,
+    removed: diff.removed,
+    unchanged: diff.unchanged,
+    warnings: parsed.warnings,
+    rows: parsed.rows,
+    summary,
+  };
+  if (req.dryRun) return result;
+
+  await db.transaction(async (trx) => {
+    const existing = new Map(current.map((row) => [row.accession, row]));
+    const changed = new Set(diff.changed.map((c) => c.accession));
+    const stamp = req.now.toISOString();
+    if (diff.removed.length > 0) await trx('exams').where({ day: req.day }).whereIn('accession', diff.removed).delete();
+    for (const row of parsed.rows) {
+      const columns = examColumns(row, roomIdByName.get(row.room)!);
+      const old = existing.get(row.accession);
+      if (!old) await trx('exams').insert({ ...columns, day: req.day, version: 1, updated_at: stamp });
+      else if (changed.has(row.accession)) {
+        await trx('exams').where({ id: old.id }).update({ ...columns, version: old.version + 1, updated_at: stamp });
+      }
+    }
+    await trx('imports').insert({
+      day: req.day,
+      user_id: req.userId,
+      file_name: req.file.originalname.slice(0, 255),
+      rows: parsed.rows.length,
+      added: diff.added.length,
+      changed: diff.changed.length,
+      removed: diff.removed.length,
+      created_at: stamp,
+    });
+  });
+  return result;
+}
+
+export type { ExamListRow };

@@ -1,0 +1,74 @@
+import type { Knex } from 'knex';
+import type { DayPlanExam } from '../../shared/turnover';
+import type { ExamListKeyed, ExamListRow } from '../../shared/exam-list';
+
+export interface ExamRow {
+  id: number;
+  day: string;
+  accession: string;
+  room_id: number;
+  start_at: string;
+  start_ms: number;
+  duration_minutes: number;
+  procedure: string;
+  coil: string | null;
+  precaution: string;
+  mobility: string;
+  contrast: number | boolean;
+  notes: string | null;
+  version: number;
+}
+
+export function toPlanExam(row: ExamRow): DayPlanExam {
+  return {
+    id: row.id,
+    accession: row.accession,
+    roomId: row.room_id,
+    start: row.start_at,
+    durationMinutes: row.duration_minutes,
+    procedure: row.procedure,
+    coil: row.coil,
+    precaution: row.precaution as DayPlanExam['precaution'],
+    mobility: row.mobility as DayPlanExam['mobility'],
+    contrast: Boolean(row.contrast),
+    notes: row.notes,
+    version: row.version,
+  };
+}
+
+export async function examsOfDay(db: Knex, day: string): Promise<ExamRow[]> {
+  return db<ExamRow>('exams').where({ day }).orderBy([{ column: 'room_id' }, { column: 'start_ms' }, { column: 'id' }]);
+}
+
+/** The stored list in the file's terms, for comparing with an incoming file. */
+export function toListed(row: ExamRow, roomNames: Map<number, string>): ExamListKeyed {
+  return {
+    accession: row.accession,
+    room: roomNames.get(row.room_id) ?? `#${row.room_id}`,
+    start: row.start_at,
+    durationMinutes: row.duration_minutes,
+    procedure: row.procedure,
+    coil: row.coil,
+    precaution: row.precaution as ExamListKeyed['precaution'],
+    mobility: row.mobility as ExamListKeyed['mobility'],
+    contrast: Boolean(row.contrast),
+    notes: row.notes,
+  };
+}
+
+/** Column values of an imported row (the day and version are set by the caller). */
+export function examColumns(row: ExamListRow | ExamListKeyed, roomId: number) {
+  return {
+    accession: row.accession,
+    room_id: roomId,
+    start_at: row.start,
+    start_ms: Date.parse(row.start),
+    duration_minutes: row.durationMinutes,
+    procedure: row.procedure,
+    coil: row.coil,
+    precaution: row.precaution,
+    mobility: row.mobility,
+    contrast: row.contrast,
+    notes: row.notes,
+  };
+}

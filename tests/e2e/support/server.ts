@@ -1,0 +1,70 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import type { AddressInfo } from 'node:net';
+import type { Knex } from 'knex';
+import { createApp } from '../../../server/app';
+import { fixedClock, systemClock } from '../../../server/clock';
+import { createDb, migrateToLatest } from '../../../server/db';
+import { seedDemo, seedReferenceData } from '../../../server/seeding';
+
+/** The production build `npm run build` writes; the browser tests drive exactly what ships. */
+export const CLIENT_DIR = path.resolve(__dirname, '..', '..', '..', 'dist', 'turnwise', 'browser');
+
+export interface TestServer {
+  /** e.g. `http://127.0.0.1:41234`, no trailing slash. */
+  baseUrl: string;
+  db: Knex;
+  close(): Promise<void>;
+}
+
+export interface TestServerOptions {
+  /** Freezes the server's clock; without it the server runs on real time. */
+  now?: Date;
+  /** Seed today's demo day list as well as the demo centre (default true). */
+  seedDay?: boolean;
+}
+
+/**
+ * The real server on a random local port: a temp SQLite file, migrated, seeded with the
+ * reference data and the invented demo centre, serving the built client in demo mode.
+ */
+export async function startTestServer(options: TestServerOptions = {}): Promise<TestServer> {
+  if (!fs.existsSync(path.join(CLIENT_DIR, 'index.html'))) {
+    // Without the build the SPA fallback is never mounted and every page would 404 confusingly.
+    throw new Error(`No client build in ${CLIENT_DIR}; run \`npm run build\` first.`);
+  }
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'turnwise-e2e-'));
+  const db = createDb(path.join(dir, 'e2e.sqlite'));
+  const clock = options.now ? fixedClock(options.now) : systemClock;
+  await migrateToLatest(db);
+  await seedReferenceData(db);
+  await seedDemo(db, clock.now(), { day: options.seedDay ?? true });
+
+  const app = createApp({
+    db,
+    clock,
+    clientDir: CLIENT_DIR,
+    demo: true,
+    sessionSecret: 'e2e',
+    logError: console.error,
+  });
+  const server = app.listen(0, '127.0.0.1');
+  await new Promise<void>((resolve, reject) => {
+    server.once('listening', resolve);
+    server.once('error', reject);
+  });
+  const { port } = server.address() as AddressInfo;
+
+  return {
+    baseUrl: `http://127.0.0.1:${port}`,
+    db,
+    async close() {
+      // Chromium keeps idle keep-alive sockets open, which would hold server.close() forever.
+      server.closeAllConnections();
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await db.destroy();
+      fs.rmSync(dir, { recursive: true, force: true });
+    },
+  };
+}
