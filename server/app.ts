@@ -3,6 +3,7 @@ import fs from 'node:fs';
 import express, { type Express } from 'express';
 import session from 'express-session';
 import cookieParser from 'cookie-parser';
+import compression from 'compression';
 import helmet from 'helmet';
 import { Passport } from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
@@ -61,6 +62,8 @@ export function createApp(deps: AppDeps): Express {
       hsts: production,
     }),
   );
+  // Event streams must reach the browser at once, so they are never buffered by gzip.
+  app.use(compression({ filter: (req, res) => !String(res.getHeader('Content-Type') ?? '').startsWith('text/event-stream') && compression.filter(req, res) }));
   if (deps.logRequests) app.use(pinoHttp({ autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
 
   const passport = new Passport();

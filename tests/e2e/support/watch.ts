@@ -42,14 +42,20 @@ export interface ConsoleLog {
   readonly errors: string[];
 }
 
+/** A console error the caller expects, e.g. Chromium logging a 401 the app asked for on purpose. */
+export type ExpectedConsoleError = (error: { text: string; sourceUrl: string }) => boolean;
+
 /**
  * Collects console errors and uncaught exceptions of `page`, to assert on at the end of a test.
- * @example const console = recordConsoleErrors(page); …; assert.deepEqual(console.errors, []);
+ * Only errors matched by `expected` are left out; keep those matchers narrow.
+ * @example const log = recordConsoleErrors(page); …; assert.deepEqual(log.errors, []);
  */
-export function recordConsoleErrors(page: Page): ConsoleLog {
+export function recordConsoleErrors(page: Page, expected: ExpectedConsoleError = () => false): ConsoleLog {
   const errors: string[] = [];
   page.on('console', (message) => {
-    if (message.type() === 'error') errors.push(`${page.url()}: console.error: ${message.text()}`);
+    if (message.type() !== 'error') return;
+    if (expected({ text: message.text(), sourceUrl: message.location().url })) return;
+    errors.push(`${page.url()}: console.error: ${message.text()}`);
   });
   page.on('pageerror', (error) => errors.push(`${page.url()}: uncaught: ${error.message}`));
   return { errors };
