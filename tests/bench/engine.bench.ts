@@ -3,6 +3,7 @@ import { computeDayPlan, MOBILITIES, PRECAUTIONS } from '../../shared/turnover';
 
 const ROOMS = 100;
 const EXAMS = 10_000;
+const WARM_UP_RUNS = 2;
 const WARM_RUNS = 5;
 const TARGET_MS = 50;
 
@@ -64,7 +65,8 @@ export function syntheticDay(): { rooms: DayPlanRoom[]; exams: DayPlanExam[] } {
 }
 
 /**
- * Times computeDayPlan on a synthetic 10,000-exam / 100-room day: once cold, then warm.
+ * Times computeDayPlan on a synthetic 10,000-exam / 100-room day: once cold (every kind of gap
+ * solved for the first time in this process), then warm (after two untimed warm-up runs).
  *
  * @example
  * for (const line of await benchEngine()) console.log(line);
@@ -78,12 +80,14 @@ export async function benchEngine(): Promise<string[]> {
     return { ms: performance.now() - t0, plan };
   };
   const cold = time();
+  // A server plans the same kinds of gaps all day: "warm" is after caches and the JIT have settled.
+  for (let k = 0; k < WARM_UP_RUNS; k++) time();
   const warm = Array.from({ length: WARM_RUNS }, () => time().ms).sort((a, b) => a - b);
   const median = warm[Math.floor(warm.length / 2)];
   const { summary } = cold.plan;
   return [
     `engine: ${exams.length} exams / ${rooms.length} rooms — cold ${cold.ms.toFixed(1)} ms, ` +
-      `warm median ${median.toFixed(1)} ms (target < ${TARGET_MS} ms)${median < TARGET_MS ? '' : ' — OVER TARGET'}`,
+      `warm median ${median.toFixed(1)} ms, best ${warm[0].toFixed(1)} ms (target < ${TARGET_MS} ms)${median < TARGET_MS ? '' : ' — OVER TARGET'}`,
     `engine: gaps fits ${summary.fits}, snug ${summary.snug}, short ${summary.short}, overlap ${summary.overlap}, ` +
       `${summary.minutesShort} minutes short`,
   ];

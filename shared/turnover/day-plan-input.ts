@@ -1,0 +1,52 @@
+import type { Mobility, Precaution, Product, Protocol, TurnoverRules } from './model';
+
+/** A room as the day plan needs it. */
+export interface DayPlanRoom {
+  id: number;
+  name: string;
+  modality: string;
+  staff: number;
+  airChangesPerHour: number;
+  /** Local `HH:MM`; default `07:00`. */
+  opensAt?: string;
+  /** Local `HH:MM`; default `19:00`. A closing at or before the opening is on the next day. */
+  closesAt?: string;
+}
+
+/** An exam slot as stored. */
+export interface DayPlanExam {
+  id: number;
+  accession: string;
+  roomId: number;
+  /** ISO 8601; with offset (as stored), or local to the site when it has none. */
+  start: string;
+  durationMinutes: number;
+  procedure: string;
+  coil?: string | null;
+  precaution: Precaution;
+  mobility: Mobility;
+  contrast: boolean;
+  notes?: string | null;
+  version: number;
+}
+
+export interface DayPlanInput {
+  /** `YYYY-MM-DD`, local to the site. */
+  date: string;
+  /** IANA zone of the site. */
+  timezone: string;
+  /** Default 3. */
+  snugMarginMinutes?: number;
+  /** Default the demo products. */
+  products?: readonly Product[];
+  /** By DICOM modality code, `*` as fallback; default the demo protocols. */
+  protocols?: Readonly<Record<string, Protocol>>;
+  rules?: TurnoverRules;
+  rooms: readonly DayPlanRoom[];
+  exams: readonly DayPlanExam[];
+  /** People on the turnover before the exam with this id (a helper added), instead of the room's staff. */
+  staffOverrides?: Readonly<Record<number, number>>;
+}
+
+export const DEFAULT_OPENS_AT = '07:00';
+export const DEFAULT_CLOSES_AT = '19:00';

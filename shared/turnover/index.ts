@@ -1,0 +1,13 @@
+/** The turnover engine: shared by the server (day plans) and the client (live previews). */
+export * from './model';
+export * from './protocols';
+export * from './rules';
+export * from './step-set';
+export * from './solver';
+export * from './air-hold';
+export * from './verdict';
+export * from './plan-turnover';
+export * from './day-plan-input';
+export * from './day-plan';
+export * from './zoned-time';
+export type { DayPlan, PlanExam, PlanGap, PlanRoom, PlanStep, PlanSummary } from '../api/plan';
