@@ -8,8 +8,19 @@ import { readSettings } from './settings';
 
 /** The day's plan from what is stored: rooms, settings and the day list. */
 export async function loadDayPlan(db: Knex, day: string): Promise<DayPlan> {
-  const [settings, rooms, exams] = await Promise.all([readSettings(db), listRooms(db), examsOfDay(db, day)]);
-  return planFor(day, settings, rooms, exams.map(toPlanExam));
+  return planFor(...(await loadDayInput(db, day)));
+}
+
+/** What a day's plan is computed from, as stored. */
+export async function loadDayInput(db: Knex, day: string): Promise<Parameters<typeof planFor>> {
+  const [settings, rooms, exams, staffing] = await Promise.all([
+    readSettings(db),
+    listRooms(db),
+    examsOfDay(db, day),
+    db('gap_staffing').join('exams', 'exams.id', 'gap_staffing.to_exam_id').where('exams.day', day).select('to_exam_id', 'staff'),
+  ]);
+  const staffOverrides = Object.fromEntries(staffing.map((s: { to_exam_id: number; staff: number }) => [s.to_exam_id, s.staff]));
+  return [day, settings, rooms, exams.map(toPlanExam), staffOverrides];
 }
 
 /** Computes a plan for given exams (stored or would-be), with the site's settings. */
@@ -18,6 +29,7 @@ export function planFor(
   settings: { timezone: string; snugMarginMinutes: number },
   rooms: Room[],
   exams: DayPlanExam[],
+  staffOverrides: Record<number, number> = {},
 ): DayPlan {
   const roomIds = new Set(rooms.map((r) => r.id));
   return computeDayPlan({
@@ -27,5 +39,6 @@ export function planFor(
     rooms,
     // an exam in a room that was since retired stays stored but leaves the plan
     exams: exams.filter((e) => roomIds.has(e.roomId)),
+    staffOverrides,
   });
 }

@@ -76,9 +76,12 @@ function room(roomNames: string[]) {
 }
 
 function start(options: ExamListOptions) {
+  // A day list repeats the same few hundred start times; resolving each once keeps big files fast.
+  const resolvedByValue = new Map<string, ReturnType<typeof resolveStart>>();
   return z.string().transform((value, ctx) => {
     if (value === '') return fail(ctx, 'start is required.');
-    const resolved = resolveStart(value, options);
+    let resolved = resolvedByValue.get(value);
+    if (!resolved) resolvedByValue.set(value, (resolved = resolveStart(value, options)));
     return resolved.ok ? { start: resolved.start, warning: resolved.warning } : fail(ctx, resolved.message);
   });
 }

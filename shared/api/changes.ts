@@ -1,0 +1,65 @@
+import { z } from 'zod';
+
+/** Why a plan changed; the history panel shows it. */
+export const CHANGE_REASONS = ['drag', 'keyboard', 'api', 'suggestion', 'undo', 'redo', 'staffing'] as const;
+export type ChangeReason = (typeof CHANGE_REASONS)[number];
+
+export interface ExamMove {
+  type: 'move';
+  examId: number;
+  accession: string;
+  from: { roomId: number; start: string };
+  to: { roomId: number; start: string };
+}
+
+export interface StaffingChange {
+  type: 'staffing';
+  /** The gap before this exam. */
+  toExamId: number;
+  accession: string;
+  /** null: the room's staff. */
+  from: number | null;
+  to: number | null;
+}
+
+export type PlanChange = ExamMove | StaffingChange;
+
+/** One row of the day's history. */
+export interface PlanChangeRecord {
+  id: number;
+  day: string;
+  username: string;
+  displayName: string;
+  reason: ChangeReason;
+  summary: string;
+  changes: PlanChange[];
+  revertsId: number | null;
+  undone: boolean;
+  at: string;
+}
+
+/** `PATCH /api/exams/:id` body. */
+export const examMoveSchema = z
+  .object({
+    start: z.string().datetime({ offset: true, message: 'start must be ISO 8601 with an offset' }).optional(),
+    roomId: z.number().int().positive().optional(),
+    version: z.number().int().min(0),
+    reason: z.enum(['drag', 'keyboard', 'api']).default('api'),
+  })
+  .refine((b) => b.start !== undefined || b.roomId !== undefined, 'give start, roomId or both');
+export type ExamMoveInput = z.input<typeof examMoveSchema>;
+
+/** `PUT /api/exams/:id/staffing` body: people on the turnover before this exam, null for the room's. */
+export const gapStaffingSchema = z.object({ staff: z.number().int().min(1).max(3).nullable() });
+
+/** `PATCH /api/rooms/:id/staffing` body. */
+export const roomStaffingSchema = z.object({ staff: z.number().int().min(1).max(3) });
+
+/** Server-sent event on `GET /api/days/:date/events`. */
+export interface DayEvent {
+  date: string;
+  kind: 'plan' | 'board' | 'log';
+  reason: string;
+  by: string | null;
+  at: string;
+}

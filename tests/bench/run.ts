@@ -1,0 +1,15 @@
+import { benchEngine } from './engine.bench';
+import { benchImport } from './import.bench';
+
+/** `npm run bench`: prints the figures; nothing here is asserted. */
+async function main(): Promise<void> {
+  console.log(`Turnwise benchmarks — Node ${process.version}, ${new Date().toISOString()}`);
+  for (const bench of [benchEngine, benchImport]) {
+    for (const line of await bench()) console.log(line);
+  }
+}
+
+main().catch((err) => {
+  console.error(err);
+  process.exit(1);
+});
