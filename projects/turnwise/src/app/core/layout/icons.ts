@@ -19,6 +19,30 @@ import uploadFile from '@material-design-icons/svg/outlined/upload_file.svg';
 import viewTimeline from '@material-design-icons/svg/outlined/view_timeline.svg';
 import warning from '@material-design-icons/svg/outlined/warning.svg';
 import lock from '@material-design-icons/svg/outlined/lock.svg';
+// Import and Day plan: verdicts, exam tags, day navigation, the drop zone.
+import accessible from '@material-design-icons/svg/outlined/accessible.svg';
+import air from '@material-design-icons/svg/outlined/air.svg';
+import airlineSeatFlat from '@material-design-icons/svg/outlined/airline_seat_flat.svg';
+import backHand from '@material-design-icons/svg/outlined/back_hand.svg';
+import checkCircle from '@material-design-icons/svg/outlined/check_circle.svg';
+import chevronLeft from '@material-design-icons/svg/outlined/chevron_left.svg';
+import chevronRight from '@material-design-icons/svg/outlined/chevron_right.svg';
+import cloudUpload from '@material-design-icons/svg/outlined/cloud_upload.svg';
+import directionsWalk from '@material-design-icons/svg/outlined/directions_walk.svg';
+import eventBusy from '@material-design-icons/svg/outlined/event_busy.svg';
+import expandLess from '@material-design-icons/svg/outlined/expand_less.svg';
+import expandMore from '@material-design-icons/svg/outlined/expand_more.svg';
+import group from '@material-design-icons/svg/outlined/group.svg';
+import masks from '@material-design-icons/svg/outlined/masks.svg';
+import sanitizer from '@material-design-icons/svg/outlined/sanitizer.svg';
+import schedule from '@material-design-icons/svg/outlined/schedule.svg';
+import sensors from '@material-design-icons/svg/outlined/sensors.svg';
+import timelapse from '@material-design-icons/svg/outlined/timelapse.svg';
+import today from '@material-design-icons/svg/outlined/today.svg';
+import vaccines from '@material-design-icons/svg/outlined/vaccines.svg';
+import edit from '@material-design-icons/svg/outlined/edit.svg';
+import addCircle from '@material-design-icons/svg/outlined/add_circle.svg';
+import removeCircle from '@material-design-icons/svg/outlined/remove_circle.svg';
 
 /** Icon name (as used in `<mat-icon svgIcon="…">`) → SVG markup. */
 export const ICONS: Readonly<Record<string, string>> = {
@@ -37,6 +61,29 @@ export const ICONS: Readonly<Record<string, string>> = {
   upload_file: uploadFile,
   view_timeline: viewTimeline,
   warning,
+  accessible,
+  air,
+  airline_seat_flat: airlineSeatFlat,
+  back_hand: backHand,
+  check_circle: checkCircle,
+  chevron_left: chevronLeft,
+  chevron_right: chevronRight,
+  cloud_upload: cloudUpload,
+  directions_walk: directionsWalk,
+  event_busy: eventBusy,
+  expand_less: expandLess,
+  expand_more: expandMore,
+  group,
+  masks,
+  sanitizer,
+  schedule,
+  sensors,
+  timelapse,
+  today,
+  vaccines,
+  edit,
+  add_circle: addCircle,
+  remove_circle: removeCircle,
 };
 
 /** Registers every icon in ICONS with Material's icon registry when the app starts. */

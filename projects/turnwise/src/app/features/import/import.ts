@@ -1,12 +1,104 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, linkedSignal, signal } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { RouterLink } from '@angular/router';
+import { Subscription } from 'rxjs';
 
-/** Placeholder until the Import screen is built. */
+import { isApiError } from '@shared/api/errors';
+import type { ImportResult } from '@shared/api/import';
+import { DayPicker } from '../../shared/ui/day-picker';
+import { SiteSettingsService } from '../../shared/ui/site-settings-service';
+import { longDay } from '../../shared/ui/site-time';
+import { DropZone } from './drop-zone';
+import { ExamListHelp } from './exam-list-help';
+import { ImportPreview } from './import-preview';
+import { ImportRefused } from './import-refused';
+import { ImportService } from './import-service';
+import { ImportState } from './import-state';
+import { RefusalReport } from './refusal-report';
+
+/** Import a day list: choose the day and a file, check the preview, then replace the day's list. */
 @Component({
   selector: 'tw-import',
+  imports: [
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+    RouterLink,
+    DayPicker,
+    DropZone,
+    ExamListHelp,
+    ImportPreview,
+    RefusalReport,
+  ],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    <h1>Import</h1>
-    <p>Upload the day list as CSV or Excel, check every row in a preview, then commit it whole.</p>
-  `,
+  templateUrl: './import.html',
+  styleUrl: './import.scss',
 })
-export class Import {}
+export class Import {
+  private readonly imports = inject(ImportService);
+  private upload: Subscription | null = null;
+  protected readonly today = inject(SiteSettingsService).today;
+
+  /** `YYYY-MM-DD` from `/import?date=…` (the Day plan links here); else today at the site. */
+  readonly date = input<string>();
+
+  protected readonly day = linkedSignal(() => this.date() || this.today());
+  protected readonly file = signal<File | null>(null);
+  protected readonly state = signal<ImportState>({ step: 'choose' });
+  protected readonly busy = computed(() => this.state().step === 'uploading');
+  protected readonly longDay = longDay;
+
+  constructor() {
+    inject(DestroyRef).onDestroy(() => this.upload?.unsubscribe());
+  }
+
+  protected choose(file: File): void {
+    this.file.set(file);
+    this.send(true);
+  }
+
+  protected pickDay(day: string): void {
+    this.day.set(day);
+    // A preview answers for one day; on another day the same file may add, change or remove others.
+    if (this.file() && this.state().step !== 'imported') this.send(true);
+  }
+
+  /** True when the day already has exams, which the import will replace rather than add to. */
+  protected replaces(result: ImportResult): boolean {
+    return result.unchanged + result.changed.length + result.removed.length > 0;
+  }
+
+  protected commit(): void {
+    this.send(false);
+  }
+
+  protected startOver(): void {
+    this.upload?.unsubscribe();
+    this.file.set(null);
+    this.state.set({ step: 'choose' });
+  }
+
+  private send(dryRun: boolean): void {
+    const day = this.day();
+    const file = this.file();
+    if (!day || !file) return;
+    const purpose = dryRun ? 'preview' : 'import';
+    this.upload?.unsubscribe();
+    this.state.set({ step: 'uploading', purpose, percent: 0 });
+    this.upload = this.imports.send(day, file, { dryRun }).subscribe({
+      next: (progress) =>
+        this.state.set(
+          progress.kind === 'uploading'
+            ? { step: 'uploading', purpose, percent: progress.percent }
+            : { step: dryRun ? 'preview' : 'imported', result: progress.result },
+        ),
+      error: (error: unknown) => {
+        if (error instanceof ImportRefused) this.state.set({ step: 'refused', refusal: error.refusal });
+        else if (isApiError(error)) this.state.set({ step: 'failed', purpose, message: error.message });
+        else this.state.set({ step: 'failed', purpose, message: 'The file could not be sent. Try again.' });
+      },
+    });
+  }
+}

@@ -3,7 +3,7 @@ import { TestBed } from '@angular/core/testing';
 import { provideIcons } from '../../core/layout/icons';
 import { CautionKind, CautionNote } from './caution-note';
 
-async function textOf(kind?: CautionKind) {
+async function textOf(kind?: CautionKind | CautionKind[]) {
   TestBed.configureTestingModule({ imports: [CautionNote], providers: [provideIcons()] });
   const fixture = TestBed.createComponent(CautionNote);
   if (kind) fixture.componentRef.setInput('kind', kind);
@@ -36,5 +36,12 @@ describe('CautionNote', () => {
     const { text } = await textOf('airborne');
     expect(text).toContain('well-mixed air');
     expect(text).not.toContain('Zone IV');
+  });
+
+  it('shows every kind asked for, with the general caution once', async () => {
+    const { text } = await textOf(['mr', 'airborne']);
+    expect(text.split('Turnover times are planning aids.')).toHaveLength(2);
+    expect(text).toContain('Zone IV');
+    expect(text).toContain('well-mixed air');
   });
 });

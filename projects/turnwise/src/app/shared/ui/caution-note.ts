@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 
 /**
@@ -20,13 +20,13 @@ export type CautionKind = 'general' | 'mr' | 'airborne';
         Turnover times are planning aids. The disinfectant's label contact time, your facility's
         infection-prevention policy and local codes always rule.
       </p>
-      @if (kind() === 'mr') {
+      @if (has('mr')) {
         <p>
           Only MR Safe or suitably MR Conditional cleaning equipment (ASTM F2503 marking) enters the
           magnet room, Zone IV of the ACR MR safety zones. Keep MR Unsafe carts, buckets and mops out.
         </p>
       }
-      @if (kind() === 'airborne') {
+      @if (has('airborne')) {
         <p>
           Air-hold times assume well-mixed air at the room's measured air changes per hour, with the
           patient gone. Poorly mixed air takes longer; follow your infection-prevention team.
@@ -52,5 +52,15 @@ export type CautionKind = 'general' | 'mr' | 'airborne';
   `,
 })
 export class CautionNote {
-  readonly kind = input<CautionKind>('general');
+  /** One kind, or several when a screen covers MR rooms and airborne holds at once. */
+  readonly kind = input<CautionKind | readonly CautionKind[]>('general');
+
+  private readonly kinds = computed(() => {
+    const kind = this.kind();
+    return typeof kind === 'string' ? [kind] : kind;
+  });
+
+  protected has(kind: CautionKind): boolean {
+    return this.kinds().includes(kind);
+  }
 }

@@ -1,0 +1,64 @@
+import {
+  HttpClient,
+  HttpEventType,
+  provideHttpClient,
+  withInterceptors,
+  withXsrfConfiguration,
+} from '@angular/common/http';
+import { EnvironmentProviders, Injectable, Provider, inject } from '@angular/core';
+import { Observable, filter, map } from 'rxjs';
+
+import type { ImportResult } from '@shared/api/import';
+import { errorInterceptor } from '../../core/http/error-interceptor';
+import { showsOwnErrors } from '../../core/http/shows-own-errors';
+import { keepImportRefusal } from './import-refused';
+
+/** Where an upload is: still sending (percent when the browser knows it), or answered. */
+export type ImportProgress =
+  | { kind: 'uploading'; percent: number | null }
+  | { kind: 'done'; result: ImportResult };
+
+/**
+ * Sends an exam-list file to `POST /api/days/:date/exams/import`, as a preview (`dryRun`) or
+ * for real. Fails with an {@link ImportRefused} (422: every row error and the file's cells) or
+ * an ApiError (415 not CSV/XLSX, 413 too large, …); the screen shows both itself.
+ */
+@Injectable()
+export class ImportService {
+  private readonly http = inject(HttpClient);
+
+  send(date: string, file: File, options: { dryRun: boolean }): Observable<ImportProgress> {
+    const body = new FormData();
+    body.append('file', file, file.name);
+    return this.http
+      .post<ImportResult>(`/api/days/${encodeURIComponent(date)}/exams/import`, body, {
+        params: options.dryRun ? { dryRun: 'true' } : {},
+        reportProgress: true,
+        observe: 'events',
+        context: showsOwnErrors(),
+      })
+      .pipe(
+        map((event): ImportProgress | null => {
+          if (event.type === HttpEventType.UploadProgress) {
+            return { kind: 'uploading', percent: event.total ? Math.round((100 * event.loaded) / event.total) : null };
+          }
+          return event.type === HttpEventType.Response && event.body ? { kind: 'done', result: event.body } : null;
+        }),
+        filter((progress): progress is ImportProgress => progress !== null),
+      );
+  }
+}
+
+/**
+ * The Import screen's own HttpClient: the app's interceptors plus {@link keepImportRefusal}
+ * inside them. The XSRF pair repeats app.config's (they are also Angular's defaults).
+ */
+export function provideImportHttp(): (Provider | EnvironmentProviders)[] {
+  return [
+    provideHttpClient(
+      withInterceptors([errorInterceptor, keepImportRefusal]),
+      withXsrfConfiguration({ cookieName: 'XSRF-TOKEN', headerName: 'X-XSRF-TOKEN' }),
+    ),
+    ImportService,
+  ];
+}
