@@ -20,11 +20,14 @@ import { authRoutes } from './routes/auth';
 import { roomRoutes } from './routes/rooms';
 import { settingsRoutes } from './routes/settings';
 import { apiRoutes } from './routes/api';
+import { DayEvents } from './services/day-events';
 
 export interface AppDeps {
   db: Knex;
   sessionSecret: string;
   clock?: Clock;
+  /** Live-update fan-out; one per app unless a test shares one. */
+  events?: DayEvents;
   /** Demo mode lists the demo accounts on the sign-in page. */
   demo?: boolean;
   /** Production: Secure cookies behind a TLS-terminating proxy. */
@@ -41,6 +44,7 @@ export interface AppDeps {
 /** Builds the Express app without listening, so tests drive it with supertest. */
 export function createApp(deps: AppDeps): Express {
   const clock = deps.clock ?? systemClock;
+  const events = deps.events ?? new DayEvents();
   const production = deps.production ?? false;
   const logError = deps.logError ?? ((err: unknown) => console.error(err));
   const app = express();
@@ -99,9 +103,9 @@ export function createApp(deps: AppDeps): Express {
     res.json({ status: 'ok', demo: Boolean(deps.demo), time: clock.now().toISOString() });
   });
   api.use('/auth', authRoutes({ db: deps.db, passport, demo: Boolean(deps.demo), loginAttempts: deps.loginAttempts ?? 10 }));
-  api.use('/rooms', roomRoutes({ db: deps.db, clock }));
+  api.use('/rooms', roomRoutes({ db: deps.db, clock, events }));
   api.use('/settings', settingsRoutes({ db: deps.db }));
-  api.use(apiRoutes({ db: deps.db, clock }));
+  api.use(apiRoutes({ db: deps.db, clock, events }));
   api.use(() => {
     throw new NotFoundError('No such API route.');
   });

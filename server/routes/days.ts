@@ -3,6 +3,7 @@ import type { Knex } from 'knex';
 import multer from 'multer';
 import { DateTime } from 'luxon';
 import type { Clock } from '../clock';
+import type { DayEvents } from '../services/day-events';
 import { ValidationError } from '../errors';
 import { currentUser, requireRole, requireUser } from '../middleware/roles';
 import { loadDayPlan } from '../services/day-plan';
@@ -18,7 +19,7 @@ export function parseDay(value: unknown): string {
   return value;
 }
 
-export function dayRoutes(deps: { db: Knex; clock: Clock }): Router {
+export function dayRoutes(deps: { db: Knex; clock: Clock; events: DayEvents }): Router {
   const router = Router();
   const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 5 } });
 
@@ -29,13 +30,15 @@ export function dayRoutes(deps: { db: Knex; clock: Clock }): Router {
   router.post('/:date/exams/import', requireRole('scheduler', 'charge'), upload.single('file'), async (req, res) => {
     const day = parseDay(req.params['date']);
     if (!req.file) throw new ValidationError('Choose a file to import (multipart field "file").');
+    const user = currentUser(req);
     const result = await importExamList(deps.db, {
       day,
       file: req.file,
-      userId: currentUser(req).id,
+      userId: user.id,
       dryRun: req.query['dryRun'] === 'true',
       now: deps.clock.now(),
     });
+    if (!result.dryRun) deps.events.publish({ date: day, kind: 'plan', reason: 'import', by: user.displayName || user.username, at: deps.clock.now().toISOString() });
     res.json(result);
   });
 

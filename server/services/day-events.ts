@@ -12,12 +12,17 @@ export class DayEvents {
     this.emitter.setMaxListeners(0);
   }
 
+  /** `date: '*'` reaches every day's streams (e.g. a room's staffing changed). */
   publish(event: DayEvent): void {
     this.emitter.emit(`day:${event.date}`, event);
   }
 
   subscribe(date: string, listener: (event: DayEvent) => void): () => void {
     this.emitter.on(`day:${date}`, listener);
-    return () => this.emitter.off(`day:${date}`, listener);
+    this.emitter.on('day:*', listener);
+    return () => {
+      this.emitter.off(`day:${date}`, listener);
+      this.emitter.off('day:*', listener);
+    };
   }
 }

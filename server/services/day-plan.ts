@@ -1,18 +1,18 @@
 import type { Knex } from 'knex';
-import { computeDayPlan, type DayPlanExam } from '../../shared/turnover';
+import { computeDayPlan, type DayPlanExam, type DayPlanInput } from '../../shared/turnover';
 import type { DayPlan } from '../../shared/api/plan';
 import type { Room } from '../../shared/api/rooms';
 import { examsOfDay, toPlanExam } from './exams';
 import { listRooms } from './rooms';
 import { readSettings } from './settings';
 
-/** The day's plan from what is stored: rooms, settings and the day list. */
+/** The day's plan from what is stored: rooms, settings, the day list and staffing. */
 export async function loadDayPlan(db: Knex, day: string): Promise<DayPlan> {
-  return planFor(...(await loadDayInput(db, day)));
+  return computeDayPlan(await loadDayPlanInput(db, day));
 }
 
 /** What a day's plan is computed from, as stored. */
-export async function loadDayInput(db: Knex, day: string): Promise<Parameters<typeof planFor>> {
+export async function loadDayPlanInput(db: Knex, day: string): Promise<DayPlanInput> {
   const [settings, rooms, exams, staffing] = await Promise.all([
     readSettings(db),
     listRooms(db),
@@ -20,7 +20,7 @@ export async function loadDayInput(db: Knex, day: string): Promise<Parameters<ty
     db('gap_staffing').join('exams', 'exams.id', 'gap_staffing.to_exam_id').where('exams.day', day).select('to_exam_id', 'staff'),
   ]);
   const staffOverrides = Object.fromEntries(staffing.map((s: { to_exam_id: number; staff: number }) => [s.to_exam_id, s.staff]));
-  return [day, settings, rooms, exams.map(toPlanExam), staffOverrides];
+  return dayPlanInput(day, settings, rooms, exams.map(toPlanExam), staffOverrides);
 }
 
 /** Computes a plan for given exams (stored or would-be), with the site's settings. */
@@ -29,10 +29,19 @@ export function planFor(
   settings: { timezone: string; snugMarginMinutes: number },
   rooms: Room[],
   exams: DayPlanExam[],
-  staffOverrides: Record<number, number> = {},
 ): DayPlan {
+  return computeDayPlan(dayPlanInput(day, settings, rooms, exams, {}));
+}
+
+function dayPlanInput(
+  day: string,
+  settings: { timezone: string; snugMarginMinutes: number },
+  rooms: Room[],
+  exams: DayPlanExam[],
+  staffOverrides: Record<number, number>,
+): DayPlanInput {
   const roomIds = new Set(rooms.map((r) => r.id));
-  return computeDayPlan({
+  return {
     date: day,
     timezone: settings.timezone,
     snugMarginMinutes: settings.snugMarginMinutes,
@@ -40,5 +49,5 @@ export function planFor(
     // an exam in a room that was since retired stays stored but leaves the plan
     exams: exams.filter((e) => roomIds.has(e.roomId)),
     staffOverrides,
-  });
+  };
 }

@@ -72,3 +72,8 @@ export function examColumns(row: ExamListRow | ExamListKeyed, roomId: number) {
     notes: row.notes,
   };
 }
+
+/** Columns of an exam placed in a room at a start (ISO with the site offset). */
+export function examColumnsForMove(roomId: number, start: string) {
+  return { room_id: roomId, start_at: start, start_ms: Date.parse(start) };
+}

@@ -8,6 +8,8 @@ export interface RouteCase {
   path: string;
   /** Roles the product's role table allows ('signed-in' = every role). admin is always listed. */
   allowed: 'public' | 'signed-in' | Role[];
+  /** Statuses that count as "allowed" besides 2xx (e.g. 409 when there is nothing to undo). */
+  alsoOk?: number[];
   prepare?: (h: Harness) => Promise<unknown>;
   send: (c: Client, prepared: unknown) => Promise<Response>;
 }
@@ -47,4 +49,57 @@ export const ROUTE_TABLE: RouteCase[] = [
     allowed: ['scheduler', 'charge', 'admin'],
     send: (c) => c.upload('/api/days/2027-03-11/exams/import', exampleCsv('2027-03-11'), 'day.csv'),
   },
+
+  {
+    method: 'patch',
+    path: '/api/exams/:id',
+    allowed: ['scheduler', 'charge', 'admin'],
+    prepare: firstExam,
+    send: (c, e) => c.patch(`/api/exams/${(e as Exam).id}`, { start: (e as Exam).start, version: (e as Exam).version }),
+  },
+  {
+    method: 'put',
+    path: '/api/exams/:id/staffing',
+    allowed: ['charge', 'admin'],
+    prepare: firstExam,
+    send: (c, e) => c.put(`/api/exams/${(e as Exam).id}/staffing`, { staff: 2 }),
+  },
+  { method: 'patch', path: '/api/rooms/:id/staffing', allowed: ['charge', 'admin'], send: (c) => c.patch('/api/rooms/1/staffing', { staff: 1 }) },
+  { method: 'get', path: '/api/days/:date/history', allowed: 'signed-in', send: (c) => c.get('/api/days/2027-03-10/history') },
+  { method: 'post', path: '/api/days/:date/undo', allowed: ['scheduler', 'charge', 'admin'], alsoOk: [409], send: (c) => c.post('/api/days/2027-03-10/undo') },
+  { method: 'post', path: '/api/days/:date/redo', allowed: ['scheduler', 'charge', 'admin'], alsoOk: [409], send: (c) => c.post('/api/days/2027-03-10/redo') },
+  { method: 'get', path: '/api/days/:date/fixes', allowed: 'signed-in', send: (c) => c.get('/api/days/2027-03-10/fixes') },
+  {
+    method: 'post',
+    path: '/api/days/:date/fixes/apply',
+    allowed: ['charge', 'admin'],
+    alsoOk: [409, 422],
+    send: (c) => c.post('/api/days/2027-03-10/fixes/apply', { fixId: 'add-helper:0' }),
+  },
+  {
+    method: 'get',
+    path: '/api/days/:date/events',
+    allowed: 'signed-in',
+    // the stream never ends: read its first bytes, then hang up
+    send: (c) =>
+      c.get('/api/days/2027-03-10/events').buffer(true).parse((res, done) => {
+        res.once('data', () => {
+          done(null, null);
+          (res as unknown as { destroy(): void }).destroy();
+        });
+        res.once('end', () => done(null, null));
+      }),
+  },
 ];
+
+interface Exam {
+  id: number;
+  start: string;
+  version: number;
+}
+
+/** The seeded day's first exam as it is now (its version changes with every move). */
+async function firstExam(h: Harness): Promise<Exam> {
+  const exam = await h.db('exams').where({ day: '2027-03-10' }).orderBy('id').first();
+  return { id: exam.id, start: exam.start_at, version: exam.version };
+}

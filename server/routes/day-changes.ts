@@ -1,0 +1,64 @@
+import { Router } from 'express';
+import type { Knex } from 'knex';
+import { z } from 'zod';
+import type { Clock } from '../clock';
+import { ConflictError } from '../errors';
+import { currentUser, requireRole, requireUser } from '../middleware/roles';
+import type { DayEvents } from '../services/day-events';
+import { loadDayPlan } from '../services/day-plan';
+import { applyFix, dayFixes } from '../services/fixes';
+import { dayHistory, undoOrRedo } from '../services/plan-changes';
+import { parseInput } from '../validate';
+import { parseDay } from './days';
+
+const applySchema = z.object({ fixId: z.string().min(1).max(80), acceptNewProblems: z.boolean().default(false) });
+
+/** History, undo/redo, suggested fixes and the live event stream of a day. */
+export function dayChangeRoutes(deps: { db: Knex; clock: Clock; events: DayEvents }): Router {
+  const router = Router();
+  const publish = (date: string, reason: string, by: string) => deps.events.publish({ date, kind: 'plan', reason, by, at: deps.clock.now().toISOString() });
+
+  router.get('/:date/history', requireUser, async (req, res) => {
+    res.json({ changes: await dayHistory(deps.db, parseDay(req.params['date'])) });
+  });
+
+  for (const mode of ['undo', 'redo'] as const) {
+    router.post(`/:date/${mode}`, requireRole('scheduler', 'charge'), async (req, res) => {
+      const day = parseDay(req.params['date']);
+      const user = currentUser(req);
+      const done = await undoOrRedo(deps.db, day, user.id, mode, deps.clock.now());
+      if (!done) throw new ConflictError(mode === 'undo' ? 'You have nothing to undo on this day.' : 'You have nothing to redo on this day.');
+      publish(day, mode, user.displayName || user.username);
+      res.json(await loadDayPlan(deps.db, day));
+    });
+  }
+
+  router.get('/:date/fixes', requireUser, async (req, res) => {
+    res.json({ fixes: await dayFixes(deps.db, parseDay(req.params['date'])) });
+  });
+
+  router.post('/:date/fixes/apply', requireRole('charge'), async (req, res) => {
+    const day = parseDay(req.params['date']);
+    const { fixId, acceptNewProblems } = parseInput(applySchema, req.body, 'fix');
+    const user = currentUser(req);
+    const fix = await applyFix(deps.db, day, fixId, acceptNewProblems, user.id, deps.clock.now());
+    publish(day, 'suggestion', user.displayName || user.username);
+    res.json({ applied: fix, plan: await loadDayPlan(deps.db, day) });
+  });
+
+  /** Server-sent events: one `change` event per import, move or staffing change of the day. */
+  router.get('/:date/events', requireUser, (req, res) => {
+    const day = parseDay(req.params['date']);
+    res.writeHead(200, { 'Content-Type': 'text/event-stream', 'Cache-Control': 'no-cache, no-transform', Connection: 'keep-alive' });
+    res.write('retry: 2000\n\n');
+    const unsubscribe = deps.events.subscribe(day, (event) => res.write(`event: change\ndata: ${JSON.stringify(event)}\n\n`));
+    const heartbeat = setInterval(() => res.write(': keep-alive\n\n'), 25_000);
+    heartbeat.unref();
+    req.on('close', () => {
+      clearInterval(heartbeat);
+      unsubscribe();
+    });
+  });
+
+  return router;
+}

@@ -1,0 +1,63 @@
+import type { Knex } from 'knex';
+import { DateTime } from 'luxon';
+import type { ExamMove, ExamMoveInput } from '../../shared/api/changes';
+import { ConflictError, NotFoundError, ValidationError } from '../errors';
+import { examColumnsForMove } from './exams';
+import { recordChange } from './plan-changes';
+import { readSettings } from './settings';
+
+function hhmm(iso: string, zone: string): string {
+  return DateTime.fromISO(iso, { zone }).toFormat('HH:mm');
+}
+
+/**
+ * Moves an exam along its lane or to another room of the same modality on the same day.
+ * Optimistic locking: a stale `version` is a 409 that names who moved the exam last.
+ * Returns the exam's day.
+ */
+export async function moveExam(
+  db: Knex,
+  examId: number,
+  input: Required<Pick<ExamMoveInput, 'version'>> & Omit<ExamMoveInput, 'version'>,
+  userId: number,
+  now: Date,
+): Promise<string> {
+  const { timezone } = await readSettings(db);
+  return db.transaction(async (trx) => {
+    const exam = await trx('exams').where({ id: examId }).first();
+    if (!exam) throw new NotFoundError(`No exam ${examId}.`);
+    if (exam.version !== input.version) {
+      const last = await trx('plan_changes')
+        .join('users', 'users.id', 'plan_changes.user_id')
+        .where('plan_changes.day', exam.day)
+        .andWhereRaw("plan_changes.changes like ?", [`%"examId":${examId},%`])
+        .orderBy('plan_changes.id', 'desc')
+        .first('users.display_name', 'users.username', 'plan_changes.created_at', 'plan_changes.summary');
+      const who = last ? `${last.display_name || last.username} changed it at ${hhmm(last.created_at, timezone)} (${last.summary})` : 'it was changed by an import';
+      throw new ConflictError(`Exam ${exam.accession} was changed meanwhile: ${who}. The day has been reloaded.`, { currentVersion: exam.version });
+    }
+    const fromRoom = await trx('rooms').where({ id: exam.room_id }).first();
+    const toRoomId = input.roomId ?? exam.room_id;
+    const toRoom = toRoomId === exam.room_id ? fromRoom : await trx('rooms').where({ id: toRoomId, active: true }).first();
+    if (!toRoom) throw new ValidationError(`Room ${toRoomId} does not exist.`);
+    if (toRoom.modality !== fromRoom.modality) {
+      throw new ValidationError(`${exam.accession} is a ${fromRoom.modality} exam; ${toRoom.name} is a ${toRoom.modality} room.`);
+    }
+    const start = input.start ? DateTime.fromISO(input.start, { setZone: true }).setZone(timezone) : DateTime.fromISO(exam.start_at, { zone: timezone });
+    if (!start.isValid) throw new ValidationError('start must be ISO 8601 with an offset.');
+    const end = start.plus({ minutes: exam.duration_minutes });
+    if (start.toISODate() !== exam.day || end.minus({ minutes: 1 }).toISODate() !== exam.day) {
+      throw new ValidationError(`A move must keep ${exam.accession} within ${exam.day} (site time, ${timezone}).`);
+    }
+    const to = { roomId: toRoomId, start: start.toISO({ suppressMilliseconds: true })! };
+    const move: ExamMove = { type: 'move', examId, accession: exam.accession, from: { roomId: exam.room_id, start: exam.start_at }, to };
+    await trx('exams').where({ id: examId }).update({ ...examColumnsForMove(to.roomId, to.start), version: exam.version + 1, updated_at: now.toISOString() });
+    const where = toRoomId === exam.room_id ? '' : ` to ${toRoom.name}`;
+    await recordChange(
+      trx,
+      { day: exam.day, userId, reason: input.reason ?? 'api', summary: `Moved ${exam.accession} from ${fromRoom.name} ${hhmm(exam.start_at, timezone)}${where} ${hhmm(to.start, timezone)}`, changes: [move] },
+      now,
+    );
+    return exam.day as string;
+  });
+}
