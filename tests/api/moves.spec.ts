@@ -54,7 +54,7 @@ describe('moving slots, staffing, fixes, undo and the live stream', () => {
     await scheduler.patch(`/api/exams/${m2.id}`, { start: t('08:50'), version: m2.version, reason: 'drag' });
     const res = await charge.patch(`/api/exams/${m2.id}`, { start: t('09:00'), version: m2.version, reason: 'drag' });
     expect(res.status).toBe(409);
-    expect(res.body.error.message).toMatch(/Demo scheduler changed it at/);
+    expect(res.body.error.message).toMatch(/Noor Haddad changed it at/);
     expect((await exam('M-2')).start).toBe(t('08:50'));
   });
 
@@ -151,7 +151,7 @@ describe('moving slots, staffing, fixes, undo and the live stream', () => {
       });
       const text = await received;
       const data = JSON.parse(/data: (.*)/.exec(text.slice(text.indexOf('event: change')))![1]!);
-      expect(data).toMatchObject({ date: DAY, kind: 'plan', reason: 'drag', by: 'Demo scheduler' });
+      expect(data).toMatchObject({ date: DAY, kind: 'plan', reason: 'drag', by: 'Noor Haddad' });
     } finally {
       server.close();
     }
