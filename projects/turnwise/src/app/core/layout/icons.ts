@@ -43,6 +43,28 @@ import vaccines from '@material-design-icons/svg/outlined/vaccines.svg';
 import edit from '@material-design-icons/svg/outlined/edit.svg';
 import addCircle from '@material-design-icons/svg/outlined/add_circle.svg';
 import removeCircle from '@material-design-icons/svg/outlined/remove_circle.svg';
+// Rooms now and Turnover: room states, arrivals, wall display, live status, checklist and log.
+import sensorOccupied from '@material-design-icons/svg/outlined/sensor_occupied.svg';
+import waterDrop from '@material-design-icons/svg/outlined/water_drop.svg';
+import noMeetingRoom from '@material-design-icons/svg/outlined/no_meeting_room.svg';
+import howToReg from '@material-design-icons/svg/outlined/how_to_reg.svg';
+import undo from '@material-design-icons/svg/outlined/undo.svg';
+import fullscreen from '@material-design-icons/svg/outlined/fullscreen.svg';
+import fullscreenExit from '@material-design-icons/svg/outlined/fullscreen_exit.svg';
+import sync from '@material-design-icons/svg/outlined/sync.svg';
+import syncProblem from '@material-design-icons/svg/outlined/sync_problem.svg';
+import taskAlt from '@material-design-icons/svg/outlined/task_alt.svg';
+import receiptLong from '@material-design-icons/svg/outlined/receipt_long.svg';
+import download from '@material-design-icons/svg/outlined/download.svg';
+import checklist from '@material-design-icons/svg/outlined/checklist.svg';
+import eventAvailable from '@material-design-icons/svg/outlined/event_available.svg';
+// Day plan timeline: redo, history, closing panels, suggested fixes, the live indicator.
+import redo from '@material-design-icons/svg/outlined/redo.svg';
+import history from '@material-design-icons/svg/outlined/history.svg';
+import close from '@material-design-icons/svg/outlined/close.svg';
+import autoFixHigh from '@material-design-icons/svg/outlined/auto_fix_high.svg';
+import fiberManualRecord from '@material-design-icons/svg/outlined/fiber_manual_record.svg';
+import cloudOff from '@material-design-icons/svg/outlined/cloud_off.svg';
 
 /** Icon name (as used in `<mat-icon svgIcon="…">`) → SVG markup. */
 export const ICONS: Readonly<Record<string, string>> = {
@@ -84,6 +106,26 @@ export const ICONS: Readonly<Record<string, string>> = {
   edit,
   add_circle: addCircle,
   remove_circle: removeCircle,
+  sensor_occupied: sensorOccupied,
+  water_drop: waterDrop,
+  no_meeting_room: noMeetingRoom,
+  how_to_reg: howToReg,
+  undo,
+  fullscreen,
+  fullscreen_exit: fullscreenExit,
+  sync,
+  sync_problem: syncProblem,
+  task_alt: taskAlt,
+  receipt_long: receiptLong,
+  download,
+  checklist,
+  event_available: eventAvailable,
+  redo,
+  history,
+  close,
+  auto_fix_high: autoFixHigh,
+  fiber_manual_record: fiberManualRecord,
+  cloud_off: cloudOff,
 };
 
 /** Registers every icon in ICONS with Material's icon registry when the app starts. */

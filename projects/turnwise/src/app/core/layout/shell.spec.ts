@@ -6,6 +6,7 @@ import { Router, provideRouter } from '@angular/router';
 import { fakeAuth } from '../../../testing/fake-auth';
 import { provideIcons } from './icons';
 import { Shell } from './shell';
+import { ShellChrome } from './shell-chrome';
 
 async function render() {
   const { fake, provider } = fakeAuth({ username: 'casey', role: 'charge' });
@@ -41,5 +42,14 @@ describe('Shell', () => {
     await fixture.whenStable();
     expect(fake.logout).toHaveBeenCalled();
     expect(navigate).toHaveBeenCalledWith('/sign-in');
+  });
+
+  it('leaves out the toolbar and navigation while a wall display hides them', async () => {
+    const { page, fixture } = await render();
+    TestBed.inject(ShellChrome).hidden.set(true);
+    await fixture.whenStable();
+    expect(page.querySelector('header')).toBeNull();
+    expect(page.querySelector('mat-sidenav')!.classList).not.toContain('mat-drawer-opened');
+    expect(page.querySelector('main#main')).not.toBeNull();
   });
 });

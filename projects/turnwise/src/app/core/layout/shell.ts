@@ -12,6 +12,7 @@ import { AuthService } from '../auth/auth-service';
 import { roleLabel } from '../auth/roles';
 import { Logo } from './logo';
 import { Nav } from './nav';
+import { ShellChrome } from './shell-chrome';
 
 /** Below this width (a tablet in portrait) the navigation becomes an overlay opened from the toolbar. */
 const NARROW = '(max-width: 999.98px)';
@@ -32,6 +33,8 @@ export class Shell {
     inject(BreakpointObserver).observe(NARROW).pipe(map((state) => state.matches)),
     { initialValue: false },
   );
+  /** A wall display hides the toolbar and navigation (see ShellChrome). */
+  protected readonly chromeHidden = inject(ShellChrome).hidden.asReadonly();
   protected readonly user = this.auth.user;
   protected readonly role = computed(() => {
     const user = this.user();

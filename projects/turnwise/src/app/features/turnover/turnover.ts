@@ -1,16 +1,176 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { Router } from '@angular/router';
+import { EMPTY, Observable, catchError, filter, switchMap, tap } from 'rxjs';
 
-import { CautionNote } from '../../shared/ui/caution-note';
+import type { BoardShiftTask, Checklist } from '@shared/api/board';
+import type { ApiError } from '@shared/api/errors';
+import type { Room } from '@shared/api/rooms';
+import { CautionKind, CautionNote } from '../../shared/ui/caution-note';
+import { Clock } from '../../shared/ui/clock';
+import { serverSkew } from '../../shared/ui/countdown';
+import { DayEvents, DayStreamStatus } from '../../shared/ui/day-events';
+import { dayRefreshes } from '../../shared/ui/day-refresh';
+import { LiveIndicator } from '../../shared/ui/live-indicator';
+import { SiteSettingsService } from '../../shared/ui/site-settings-service';
+import { ChecklistStepRow } from './checklist-step-row';
+import { readLastRoom, rememberRoom } from './last-room';
+import { ShiftTaskList } from './shift-task-list';
+import { TurnoverClose } from './turnover-close';
+import { TurnoverExams } from './turnover-exams';
+import { StepTick, TurnoverService } from './turnover-service';
+import { TurnoverTabs } from './turnover-tabs';
 
-/** Placeholder until the Turnover screen is built. */
+/** Turnover: the technologist's checklist for one room's current (or next) turnover. Tablet first. */
 @Component({
   selector: 'tw-turnover',
-  imports: [CautionNote],
+  imports: [
+    MatFormFieldModule, MatIconModule, MatInputModule,
+    CautionNote, ChecklistStepRow, LiveIndicator, ShiftTaskList, TurnoverClose, TurnoverExams, TurnoverTabs,
+  ],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    <h1>Turnover</h1>
-    <p>The checklist for the room's current turnover: steps in order, wet and dry countdowns, and who ticked off what with which product.</p>
-    <tw-caution-note kind="mr" />
-  `,
+  templateUrl: './turnover.html',
+  styleUrl: './turnover.scss',
 })
-export class Turnover {}
+export class Turnover {
+  private readonly service = inject(TurnoverService);
+  private readonly events = inject(DayEvents);
+  private readonly clock = inject(Clock);
+  private readonly router = inject(Router);
+  private readonly date = inject(SiteSettingsService).today;
+
+  /** `?room=` from a Rooms now card; otherwise the room last used on this device. */
+  readonly room = input<string | undefined>();
+
+  protected readonly rooms = signal<Room[]>([]);
+  protected readonly checklist = signal<Checklist | null>(null);
+  protected readonly error = signal<ApiError | null>(null);
+  protected readonly status = signal<DayStreamStatus>('connecting');
+  protected readonly busy = signal(false);
+  /** The step the server refused as still wet, so its row asks for a reason. */
+  protected readonly reasonFor = signal<string | null>(null);
+  private readonly skew = signal(0);
+  /** The error shown came from fetching, so the next good fetch clears it (an action's error stays). */
+  private fetchFailed = false;
+  protected readonly now = computed(() => this.clock.now() + this.skew());
+
+  protected readonly roomId = computed<number | null>(() => {
+    const rooms = this.rooms();
+    const wanted = Number(this.room() ?? readLastRoom());
+    return rooms.some((room) => room.id === wanted) ? wanted : (rooms[0]?.id ?? null);
+  });
+
+  /** Steps can be ticked once the exam has left (or at the opening) and the turnover is open. */
+  protected readonly stepsOpen = computed(() => {
+    const c = this.checklist();
+    return !!c && c.turnoverId !== null && c.completedAt === null && (!c.leaving || !!c.examEndedAt) && !this.busy();
+  });
+
+  protected readonly cautions = computed<CautionKind[]>(() => {
+    const c = this.checklist();
+    const kinds: CautionKind[] = ['general'];
+    if (c?.modality === 'MR') kinds.push('mr');
+    if (c && c.airHoldMinutes > 0) kinds.push('airborne');
+    return kinds;
+  });
+
+  constructor() {
+    this.service.rooms().pipe(takeUntilDestroyed()).subscribe({
+      next: (rooms) => this.rooms.set(rooms),
+      error: (error: ApiError) => this.error.set(error),
+    });
+    const wanted = computed(() => ({ roomId: this.roomId(), date: this.date() }));
+    toObservable(wanted)
+      .pipe(
+        filter((at): at is { roomId: number; date: string } => at.roomId !== null && at.date !== null),
+        tap(({ roomId }) => {
+          this.checklist.set(null);
+          rememberRoom(roomId);
+        }),
+        switchMap(({ roomId, date }) =>
+          dayRefreshes(this.events.stream(date), { onStatus: (status) => this.status.set(status) }).pipe(
+            switchMap(() => this.quietly(this.service.checklist(roomId, date))),
+          ),
+        ),
+        takeUntilDestroyed(),
+      )
+      .subscribe();
+  }
+
+  protected pickRoom(event: Event): void {
+    const roomId = (event.target as HTMLSelectElement).value;
+    void this.router.navigate([], { queryParams: { room: roomId }, queryParamsHandling: 'merge' });
+  }
+
+  protected examFinished(examId: number): void {
+    this.act(this.service.examFinished(examId));
+  }
+
+  protected tick(stepKey: string, tick: StepTick): void {
+    const id = this.checklist()?.turnoverId;
+    if (id == null) return;
+    this.act(this.service.stepDone(id, stepKey, tick), (error) => {
+      // A 422 without a reason is the server finding the surface still wet by its clock.
+      if (error.status === 422 && !tick.earlyReason) this.reasonFor.set(stepKey);
+    });
+  }
+
+  protected complete(overrideReason: string | undefined): void {
+    const id = this.checklist()?.turnoverId;
+    if (id != null) this.act(this.service.complete(id, overrideReason));
+  }
+
+  protected shiftTaskDone(task: BoardShiftTask): void {
+    this.busy.set(true);
+    this.service.shiftTaskDone(task).subscribe({
+      next: (updated) => {
+        this.checklist.update((c) => c && { ...c, tasks: c.tasks.map((t) => (t.taskId === updated.taskId && t.due === updated.due ? updated : t)) });
+        this.settle(null);
+      },
+      error: (error: ApiError) => this.settle(error),
+    });
+  }
+
+  private act(call: Observable<Checklist>, onError?: (error: ApiError) => void): void {
+    this.busy.set(true);
+    this.reasonFor.set(null);
+    call.subscribe({
+      next: (checklist) => {
+        this.show(checklist);
+        this.settle(null);
+      },
+      error: (error: ApiError) => {
+        this.settle(error);
+        onError?.(error);
+      },
+    });
+  }
+
+  private quietly(call: Observable<Checklist>): Observable<Checklist> {
+    return call.pipe(
+      tap((checklist) => {
+        this.show(checklist);
+        if (this.fetchFailed) this.error.set(null);
+        this.fetchFailed = false;
+      }),
+      catchError((error: ApiError) => {
+        this.error.set(error);
+        this.fetchFailed = true;
+        return EMPTY;
+      }),
+    );
+  }
+
+  private show(checklist: Checklist): void {
+    this.skew.set(serverSkew(checklist.now, this.clock.now()));
+    this.checklist.set(checklist);
+  }
+
+  private settle(error: ApiError | null): void {
+    this.busy.set(false);
+    this.error.set(error);
+  }
+}

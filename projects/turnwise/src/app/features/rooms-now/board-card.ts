@@ -1,0 +1,46 @@
+import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { RouterLink } from '@angular/router';
+
+import type { BoardRoom, RoomState } from '@shared/api/board';
+import { countdown, isAhead } from '../../shared/ui/countdown';
+import { RoomStateChip } from '../../shared/ui/room-state-chip';
+import { SiteTime } from '../../shared/ui/site-time';
+
+/** States that end by themselves at ready-at, so the card counts down to it. */
+const COUNTING_DOWN: readonly RoomState[] = ['turning over', 'drying', 'air hold'];
+
+/** One room on Rooms now: its state, when it is ready, the next patient and what is overdue. */
+@Component({
+  selector: 'tw-board-card',
+  imports: [MatButtonModule, MatIconModule, RouterLink, RoomStateChip, SiteTime],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  host: { class: 'tw-board-card', '[attr.data-state]': 'room().state', '[class.wall]': 'wall()', role: 'listitem' },
+  templateUrl: './board-card.html',
+  styleUrl: './board-card.scss',
+})
+export class BoardCard {
+  readonly room = input.required<BoardRoom>();
+  /** Now on the server's clock, in ms, ticking. */
+  readonly now = input.required<number>();
+  /** The wall display: bigger, and no controls at all. */
+  readonly wall = input(false);
+  readonly canMarkArrived = input(false);
+  readonly canWorkTurnover = input(false);
+  /** An arrival call for this room is on its way. */
+  readonly busy = input(false);
+
+  readonly arrived = output<number>();
+  readonly undoArrived = output<number>();
+
+  protected readonly countdown = computed(() => {
+    const { state, readyAt } = this.room();
+    if (!COUNTING_DOWN.includes(state) || !isAhead(readyAt, this.now())) return null;
+    return countdown(readyAt!, this.now());
+  });
+
+  protected readonly overdueTasks = computed(() => this.room().tasks.filter((task) => task.overdue));
+  protected readonly showControls = computed(() => !this.wall() && this.canMarkArrived());
+  protected readonly showLink = computed(() => !this.wall() && this.canWorkTurnover());
+}

@@ -1,0 +1,58 @@
+import { ChangeDetectionStrategy, Component, computed, input, output, signal } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+
+import type { Checklist } from '@shared/api/board';
+import { countdown, isAhead } from '../../shared/ui/countdown';
+import { RoomStateChip } from '../../shared/ui/room-state-chip';
+import { SiteTime } from '../../shared/ui/site-time';
+
+/**
+ * The end of a turnover: ready-at as recomputed from what happened, the air hold countdown, and
+ * "Turnover complete" once every step is done. Closing during an air hold needs a stated reason.
+ */
+@Component({
+  selector: 'tw-turnover-close',
+  imports: [MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, RoomStateChip, SiteTime],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  templateUrl: './turnover-close.html',
+  styleUrl: './turnover-close.scss',
+})
+export class TurnoverClose {
+  readonly checklist = input.required<Checklist>();
+  /** Now on the server's clock, in ms, ticking. */
+  readonly now = input.required<number>();
+  readonly busy = input(false);
+
+  /** The override reason when closing before the air hold ends, else undefined. */
+  readonly completed = output<string | undefined>();
+
+  protected readonly overrideOpen = signal(false);
+  protected readonly overrideReason = signal('');
+
+  protected readonly missing = computed(() => this.checklist().steps.filter((step) => !step.done).length);
+  protected readonly holdLeft = computed(() => {
+    const until = this.checklist().airHoldUntil;
+    return isAhead(until, this.now()) ? countdown(until!, this.now()) : null;
+  });
+  protected readonly canComplete = computed(() => {
+    const c = this.checklist();
+    return c.turnoverId !== null && c.completedAt === null && this.missing() === 0 && !this.busy();
+  });
+
+  protected typeReason(event: Event): void {
+    this.overrideReason.set((event.target as HTMLInputElement).value);
+  }
+
+  protected complete(): void {
+    if (this.holdLeft() === null) {
+      this.completed.emit(undefined);
+    } else if (!this.overrideOpen()) {
+      this.overrideOpen.set(true);
+    } else if (this.overrideReason().trim()) {
+      this.completed.emit(this.overrideReason().trim());
+    }
+  }
+}

@@ -1,0 +1,35 @@
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { MatIconModule } from '@angular/material/icon';
+
+// The same icons as the Day plan's exam tags, so a precaution looks alike on every screen.
+const ICONS: Readonly<Record<string, string>> = {
+  contact: 'back_hand',
+  enteric: 'sanitizer',
+  droplet: 'masks',
+  airborne: 'air',
+};
+
+/** An exam's precaution as icon plus words ("airborne precautions"); "no precautions" for none. */
+@Component({
+  selector: 'tw-precaution-label',
+  imports: [MatIconModule],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  host: { class: 'tw-precaution-label', '[class.isolation]': 'isolation()' },
+  template: `
+    @if (isolation()) {
+      <mat-icon [svgIcon]="icon()" aria-hidden="true" />{{ precaution() }} precautions
+    } @else {
+      no precautions
+    }
+  `,
+  styles: `
+    :host { display: inline-flex; align-items: center; gap: 4px; }
+    :host(.isolation) { font-weight: 600; color: var(--mat-sys-tertiary); }
+    mat-icon { width: 20px; height: 20px; }
+  `,
+})
+export class PrecautionLabel {
+  readonly precaution = input.required<string>();
+  protected readonly isolation = computed(() => this.precaution() !== 'none' && this.precaution() !== '');
+  protected readonly icon = computed(() => ICONS[this.precaution()] ?? 'warning');
+}
