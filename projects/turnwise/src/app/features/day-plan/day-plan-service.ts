@@ -1,41 +1,73 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import { Observable, catchError, map, of, startWith } from 'rxjs';
+import { Observable, map } from 'rxjs';
 
-import type { ApiError } from '@shared/api/errors';
-import { isApiError } from '@shared/api/errors';
+import type { PlanChangeRecord } from '@shared/api/changes';
 import type { DayPlan } from '@shared/api/plan';
+import type { Room } from '@shared/api/rooms';
+import type { Fix } from '@shared/fixes/model';
 import { showsOwnErrors } from '../../core/http/shows-own-errors';
 
-/** A day's plan as a screen shows it: on its way, there, or failed with a message to show. */
-export type DayPlanState =
-  | { status: 'loading'; date: string }
-  | { status: 'loaded'; date: string; plan: DayPlan }
-  | { status: 'failed'; date: string; error: ApiError };
+/** Why a slot moved, as the history panel shows it. */
+export type MoveReason = 'drag' | 'keyboard';
 
 /**
- * Fetches day plans. Kept free of presentation so the later timeline (and its live updates)
- * can reuse it; screens show the error themselves, in the page.
+ * The Day plan's calls. Every one shows its own errors (the screen puts them in a banner), and
+ * every change answers the day's new plan so the screen never shows a half-updated day.
  */
 @Injectable({ providedIn: 'root' })
 export class DayPlanService {
   private readonly http = inject(HttpClient);
+  private readonly quiet = { context: showsOwnErrors() };
 
   /** `GET /api/days/:date/plan`; fails with an ApiError. */
   plan(date: string): Observable<DayPlan> {
-    return this.http.get<DayPlan>(`/api/days/${encodeURIComponent(date)}/plan`, { context: showsOwnErrors() });
+    return this.http.get<DayPlan>(`${day(date)}/plan`, this.quiet);
   }
 
-  /** The plan of `date` as a state stream: `loading` first, then `loaded` or `failed`; never errors. */
-  state(date: string): Observable<DayPlanState> {
-    return this.plan(date).pipe(
-      map((plan): DayPlanState => ({ status: 'loaded', date, plan })),
-      catchError((error: unknown) => of<DayPlanState>({ status: 'failed', date, error: asApiError(error) })),
-      startWith<DayPlanState>({ status: 'loading', date }),
-    );
+  rooms(): Observable<Room[]> {
+    return this.http.get<{ rooms: Room[] }>('/api/rooms', this.quiet).pipe(map((body) => body.rooms));
+  }
+
+  /** Moves a slot (`start` ISO with offset); 409 when `version` is stale, 422 when the move is refused. */
+  move(examId: number, body: { start: string; roomId: number; version: number; reason: MoveReason }): Observable<DayPlan> {
+    return this.http.patch<DayPlan>(`/api/exams/${examId}`, body, this.quiet);
+  }
+
+  /** People on the turnover before `toExamId`; null goes back to the room's usual staff. */
+  gapStaffing(toExamId: number, staff: number | null): Observable<DayPlan> {
+    return this.http.put<DayPlan>(`/api/exams/${toExamId}/staffing`, { staff }, this.quiet);
+  }
+
+  roomStaffing(roomId: number, staff: number): Observable<Room[]> {
+    return this.http.patch<{ rooms: Room[] }>(`/api/rooms/${roomId}/staffing`, { staff }, this.quiet).pipe(map((body) => body.rooms));
+  }
+
+  undo(date: string): Observable<DayPlan> {
+    return this.http.post<DayPlan>(`${day(date)}/undo`, {}, this.quiet);
+  }
+
+  redo(date: string): Observable<DayPlan> {
+    return this.http.post<DayPlan>(`${day(date)}/redo`, {}, this.quiet);
+  }
+
+  /** The day's changes, newest first. */
+  history(date: string): Observable<PlanChangeRecord[]> {
+    return this.http.get<{ changes: PlanChangeRecord[] }>(`${day(date)}/history`, this.quiet).pipe(map((body) => body.changes));
+  }
+
+  fixes(date: string): Observable<Fix[]> {
+    return this.http.get<{ fixes: Fix[] }>(`${day(date)}/fixes`, this.quiet).pipe(map((body) => body.fixes));
+  }
+
+  /** 422 when the fix makes other gaps short and that was not accepted. */
+  applyFix(date: string, fixId: string, acceptNewProblems: boolean): Observable<DayPlan> {
+    return this.http
+      .post<{ applied: Fix; plan: DayPlan }>(`${day(date)}/fixes/apply`, { fixId, acceptNewProblems }, this.quiet)
+      .pipe(map((body) => body.plan));
   }
 }
 
-function asApiError(error: unknown): ApiError {
-  return isApiError(error) ? error : { status: 0, code: 'unexpected', message: 'The day plan could not be shown. Try again.' };
+function day(date: string): string {
+  return `/api/days/${encodeURIComponent(date)}`;
 }

@@ -1,188 +1,265 @@
-import { provideHttpClient, withInterceptors } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { ComponentFixture, TestBed } from '@angular/core/testing';
-import { MatSnackBar } from '@angular/material/snack-bar';
-import { provideRouter } from '@angular/router';
+import { HttpTestingController } from '@angular/common/http/testing';
+import { TestBed } from '@angular/core/testing';
 import { DateTime } from 'luxon';
 
-import type { DayPlan as Plan } from '@shared/api/plan';
-import { fakeAuth } from '../../../testing/fake-auth';
-import { SessionUser } from '../../core/auth/roles';
-import { errorInterceptor } from '../../core/http/error-interceptor';
-import { provideIcons } from '../../core/layout/icons';
-import { DayPlan } from './day-plan';
-import { exampleExam, exampleGap, examplePlan, exampleRoom, exampleStep } from './testing/example-plan';
+import type { Fix } from '@shared/fixes/model';
+import { examplePlan, exampleRoom } from './testing/example-plan';
+import { DAY_INPUT, FakeEventSource, block, dayPlan, marker, renderDay, settle, text } from './testing/day-plan-harness';
 
-const SETTINGS = { settings: { siteName: 'Example Imaging', timezone: 'America/Chicago', snugMarginMinutes: 3 } };
+const fix = (id: string, newProblems: number): Fix => ({
+  id,
+  kind: 'push-later',
+  toExamId: 2,
+  title: `Start ACC-2 10 min later (${id})`,
+  detail: 'ACC-2 and 1 later exam in MR 1 move 10 min later.',
+  changes: [],
+  effect: {
+    verdictAfter: 'fits',
+    shortByAfter: 0,
+    newProblems,
+    dayEndsBefore: '2027-03-15T10:15:00-05:00',
+    dayEndsAfter: '2027-03-15T10:25:00-05:00',
+    summaryAfter: { fits: 6, snug: 0, short: 0, overlap: 0, minutesShort: 0 },
+  },
+});
 
-// Invented day: MR 1 with opening (fits), 1→2 short by 10, 2→3 fits; the short gap has two people and steps.
-const busy = examplePlan([
-  exampleRoom(
-    [exampleExam(1, '08:00', '08:30'), exampleExam(2, '08:40', '09:10', { precaution: 'contact', contrast: true, outsideHours: true }), exampleExam(3, '09:40', '10:10')],
-    [
-      exampleGap(null, 1, 'fits'),
-      exampleGap(1, 2, 'short', {
-        availableMinutes: 10,
-        requiredMinutes: 20,
-        shortByMinutes: 10,
-        readyAt: '2027-03-15T08:50:00-05:00',
-        staff: 2,
-        steps: [
-          exampleStep('clear', 'Patient out; coil, pads and linen off', '08:30', '08:33'),
-          exampleStep('bore', 'Bore, from both ends', '08:33', '08:37', '08:43', 1),
-        ],
-      }),
-      exampleGap(2, 3, 'fits', { readyAt: '2027-03-15T09:30:00-05:00' }),
-    ],
-    { staff: 2 },
-  ),
-]);
-
-async function render(options: { date?: string; user?: SessionUser } = {}) {
-  TestBed.configureTestingModule({
-    imports: [DayPlan],
-    providers: [
-      provideRouter([]),
-      provideHttpClient(withInterceptors([errorInterceptor])),
-      provideHttpClientTesting(),
-      provideIcons(),
-      fakeAuth(options.user ?? { username: 'sam', role: 'scheduler' }).provider,
-      { provide: MatSnackBar, useValue: { open: jest.fn() } },
-    ],
-  });
-  const fixture = TestBed.createComponent(DayPlan);
-  if (options.date) fixture.componentRef.setInput('date', options.date);
-  const backend = TestBed.inject(HttpTestingController);
-  backend.expectOne('/api/settings').flush(SETTINGS);
-  await settle(fixture);
-  return { fixture, backend, page: fixture.nativeElement as HTMLElement };
-}
-
-async function settle(fixture: ComponentFixture<DayPlan>) {
-  await new Promise((resolve) => setTimeout(resolve));
-  await fixture.whenStable();
-}
-
-async function renderPlan(plan: Plan, user?: SessionUser) {
-  const setup = await render({ date: '2027-03-15', user });
-  setup.backend.expectOne('/api/days/2027-03-15/plan').flush(plan);
-  await settle(setup.fixture);
-  return setup;
-}
-
-const text = (element: Element | null) => element?.textContent?.replace(/\s+/g, ' ').trim() ?? '';
-const gapCards = (page: HTMLElement) => Array.from(page.querySelectorAll('tw-gap-card'));
-
-describe('DayPlan', () => {
+describe('DayPlan timeline', () => {
   afterEach(() => TestBed.inject(HttpTestingController).verify());
 
-  it('shows each gap verdict as a word with an icon, not by colour alone', async () => {
-    const { page } = await renderPlan(busy);
-    const chips = gapCards(page).map((card) => card.querySelector('tw-verdict-chip')!);
-    expect(chips.map((chip) => text(chip.querySelector('.word')))).toEqual(['fits', 'short', 'fits']);
-    for (const chip of chips) expect(chip.querySelector('mat-icon')).not.toBeNull();
-    expect(text(gapCards(page)[0])).toContain('Opening');
+  it('marks each gap with its verdict icon and word, and says what a short gap needs and has', async () => {
+    const { page } = await renderDay();
+    const short = marker(page, 2);
+    // One person, coil change: 22 min (product brief check value), plus 3 min injector prep for contrast.
+    expect(short.getAttribute('aria-label')).toBe('Turnover before ACC-2: short by 10 min, needs 25, has 15');
+    expect(short.querySelector('mat-icon')!.getAttribute('data-mat-icon-name')).toBe('warning');
+    expect(marker(page, 3).getAttribute('aria-label')).toBe('Turnover before ACC-3: fits, needs 25, has 30');
+    expect(marker(page, 1).getAttribute('aria-label')).toContain('Opening before ACC-1: fits');
+    expect(text(marker(page, 3))).toBe('fits');
   });
 
-  it('says how short a short gap is, and what it needs and has', async () => {
-    const { page } = await renderPlan(busy);
-    const short = text(gapCards(page)[1]);
-    expect(short).toContain('short by 10 min');
-    expect(short).toContain('needs 20 min, has 10 min');
-    expect(short).toContain('ready at 08:50');
-    expect(text(gapCards(page)[2])).not.toContain('short by');
-  });
-
-  it('shows the summary bar and exam times in site time, with flags in words', async () => {
-    const { page } = await renderPlan(busy);
-    const bar = Array.from(page.querySelectorAll('tw-verdict-summary li')).map(
-      (item) => `${text(item.querySelector('.count'))} ${text(item.querySelector('.word')) || text(item).replace(/^\d+ /, '')}`,
-    );
-    expect(bar).toEqual(['0 overlap', '1 short', '0 snug', '2 fits', '10 min short in all']);
-    const second = text(page.querySelectorAll('tw-exam-item')[1]);
-    expect(second).toContain('08:40–09:10');
-    expect(second).toContain('contact precautions');
-    expect(second).toContain('contrast');
-    expect(second).toContain('outside opening hours');
-  });
-
-  it('expands the steps with start–end, dry-at and the person doing each', async () => {
-    const { page, fixture } = await renderPlan(busy);
-    const card = gapCards(page)[1];
-    expect(card.querySelector('.steps')).toBeNull();
-    const toggle = card.querySelector<HTMLButtonElement>('button.toggle')!;
-    expect(toggle.getAttribute('aria-expanded')).toBe('false');
-    toggle.click();
+  it('shows the words "short by N min" in the marker when the gap is wide enough', async () => {
+    const { page, fixture } = await renderDay();
+    page.querySelectorAll<HTMLButtonElement>('.zoom button')[3].click(); // 1 h per screen
     await settle(fixture);
-    expect(toggle.getAttribute('aria-expanded')).toBe('true');
-    const steps = Array.from(card.querySelectorAll('.steps li')).map(text);
-    expect(steps[0]).toContain('08:30–08:33');
-    expect(steps[0]).toContain('person 1');
-    expect(steps[1]).toContain('08:33–08:37');
-    expect(steps[1]).toContain('dry at 08:43');
-    expect(steps[1]).toContain('person 2');
+    expect(text(marker(page, 2).querySelector('.word'))).toBe('short');
+    expect(text(marker(page, 2).querySelector('.short-by'))).toBe('short by 10 min');
   });
 
-  it('hides fitting gaps when only problem gaps are asked for', async () => {
-    const { page, fixture } = await renderPlan(busy);
-    expect(gapCards(page)).toHaveLength(3);
+  it('draws the turnover as hands-on, wet/dry and air-hold parts, each with its label', async () => {
+    const { page } = await renderDay();
+    const band = marker(page, 21).closest('tw-gap-marker')!.querySelector('.band')!;
+    const parts = Array.from(band.querySelectorAll('.segment')).map((s) => `${s.getAttribute('data-part')}: ${s.getAttribute('title')}`);
+    // Airborne in a 6-ACH room holds the room 70 min (product brief; CDC 2003 guideline, Appendix B, Table B.1 gives 69).
+    expect(parts[0]).toMatch(/^hands-on: hands-on \d+ min$/);
+    expect(parts[parts.length - 1]).toMatch(/^air-hold: air hold \d+ min$/);
+    expect(marker(page, 21).getAttribute('aria-label')).toContain('air hold 70 min');
+    expect(Array.from(page.querySelectorAll('tw-band-legend li')).map(text)).toEqual(['hands-on', 'wet / dry time', 'air hold']);
+  });
+
+  it('labels each exam block with room, times, accession, procedure and precaution', async () => {
+    const { page } = await renderDay();
+    expect(block(page, 2).getAttribute('aria-label')).toBe(
+      'MR 1, 08:45–09:15, ACC-2, MR brain with contrast, contact precautions, head coil, contrast',
+    );
+    expect(block(page, 2).getAttribute('tabindex')).toBe('0');
+  });
+
+  it('shows the summary and, per lane, staff and the first and last slot', async () => {
+    const { page } = await renderDay();
+    const bar = Array.from(page.querySelectorAll('tw-verdict-summary li')).map(
+      (item) => `${text(item.querySelector('.count'))} ${text(item.querySelector('.word')) || 'min short in all'}`,
+    );
+    expect(bar).toEqual(['0 overlap', '1 short', '0 snug', '5 fits', '10 min short in all']);
+    const lane = text(page.querySelector('[data-room-id="1"] .header'));
+    expect(lane).toContain('MR 1');
+    expect(lane).toContain('1 person');
+    expect(lane).toContain('08:00–10:15');
+    expect(lane).toContain('1 to check');
+  });
+
+  it('dims fitting gaps and the exams around them when only problem gaps are asked for', async () => {
+    const { page, fixture } = await renderDay();
     page.querySelector<HTMLButtonElement>('mat-slide-toggle button')!.click();
     await settle(fixture);
-    const verdicts = gapCards(page).map((card) => text(card.querySelector('tw-verdict-chip .word')));
-    expect(verdicts).toEqual(['short']);
-    expect(text(page)).toContain('1 exam with fitting gaps not shown');
+    expect(marker(page, 3).closest('tw-gap-marker')!.classList).toContain('dimmed');
+    expect(marker(page, 2).closest('tw-gap-marker')!.classList).not.toContain('dimmed');
+    expect(block(page, 21).classList).toContain('dimmed');
+    expect(block(page, 2).classList).not.toContain('dimmed');
+  });
+
+  it('opens a gap in the side panel: needs, has, ready-at, steps with times and people', async () => {
+    const { page, fixture, backend } = await renderDay();
+    marker(page, 2).click();
+    await settle(fixture);
+    backend.expectOne('/api/days/2027-03-15/fixes').flush({ fixes: [] });
+    await settle(fixture);
+    const panel = page.querySelector('tw-gap-panel')!;
+    expect(text(panel.querySelector('h2'))).toBe('Turnover before ACC-2');
+    expect(text(panel)).toContain('short by 10 min');
+    const facts = Array.from(panel.querySelectorAll('.facts dt, .facts dd')).map(text);
+    expect(facts).toEqual(['Needs', '25 min', 'Has', '15 min', 'Ready at', '08:55', 'People', '1 (room default)']);
+    const first = panel.querySelector('.steps li')!;
+    expect(text(first.querySelector('.time'))).toBe('08:30–08:33');
+    expect(text(first.querySelector('.label'))).toBe('Patient out; coil, pads and linen off');
+    expect(panel.querySelector('.steps .person')).toBeNull();
+    expect(text(panel.querySelector('tw-caution-note'))).toContain('Zone IV');
+    expect(text(panel)).toContain('No fix found for this gap');
+  });
+
+  it('lists the fixes for the gap and applies one with POST, asking first when it makes other gaps short', async () => {
+    const { page, fixture, backend } = await renderDay();
+    marker(page, 2).click();
+    await settle(fixture);
+    backend.expectOne('/api/days/2027-03-15/fixes').flush({ fixes: [fix('push-later:2', 0), { ...fix('other:9', 0), toExamId: 9 }, fix('add-helper:2', 2)] });
+    await settle(fixture);
+    const cards = Array.from(page.querySelectorAll('tw-fix-card'));
+    expect(cards).toHaveLength(2);
+    expect(text(cards[0])).toContain('Day ends 10:15 → 10:25');
+    expect(text(cards[1])).toContain('Makes 2 other gaps short');
+
+    cards[0].querySelector<HTMLButtonElement>('button.apply')!.click();
+    const first = backend.expectOne('/api/days/2027-03-15/fixes/apply');
+    expect(first.request.body).toEqual({ fixId: 'push-later:2', acceptNewProblems: false });
+    first.flush({ applied: fix('push-later:2', 0), plan: dayPlan() });
+    await settle(fixture);
+    backend.expectOne('/api/days/2027-03-15/fixes').flush({ fixes: [fix('add-helper:2', 2)] });
+    await settle(fixture);
+
+    page.querySelector<HTMLButtonElement>('tw-fix-card button.apply')!.click();
+    await settle(fixture);
+    backend.expectNone('/api/days/2027-03-15/fixes/apply');
+    expect(text(page.querySelector('tw-fix-card .confirm'))).toContain('makes 2 other gaps short');
+    page.querySelector<HTMLButtonElement>('tw-fix-card button.apply-anyway')!.click();
+    expect(backend.expectOne('/api/days/2027-03-15/fixes/apply').request.body).toEqual({ fixId: 'add-helper:2', acceptNewProblems: true });
+  });
+
+  it('sets the people on one turnover, and the room default, for a charge technologist', async () => {
+    const { page, fixture, backend } = await renderDay();
+    marker(page, 2).click();
+    await settle(fixture);
+    backend.expectOne('/api/days/2027-03-15/fixes').flush({ fixes: [] });
+    const toggles = Array.from(page.querySelectorAll<HTMLButtonElement>('tw-gap-panel mat-button-toggle button'));
+    expect(toggles.map(text)).toEqual(['Room default (1)', '1', '2', '3']);
+    toggles[2].click();
+    const put = backend.expectOne('/api/exams/2/staffing');
+    expect(put.request.method).toBe('PUT');
+    expect(put.request.body).toEqual({ staff: 2 });
+    put.flush(dayPlan({ ...DAY_INPUT, staffOverrides: { 2: 2 } }));
+    await settle(fixture);
+    backend.match('/api/days/2027-03-15/fixes');
+    await settle(fixture);
+    const panel = page.querySelector('tw-gap-panel')!;
+    expect(text(panel.querySelectorAll('.facts dd')[3])).toBe('2 (set for this gap)');
+    const people = new Set(Array.from(panel.querySelectorAll('.steps .person')).map(text));
+    expect(people).toEqual(new Set(['person 1', 'person 2']));
+
+    page.querySelector<HTMLButtonElement>('[data-room-id="2"] button.more')!.click();
+    const patch = backend.expectOne('/api/rooms/2/staffing');
+    expect(patch.request.body).toEqual({ staff: 2 });
+    patch.flush({ rooms: [] });
+    await settle(fixture);
+    backend.expectOne('/api/days/2027-03-15/plan').flush(dayPlan());
+    await settle(fixture);
+    backend.match('/api/days/2027-03-15/fixes');
+  });
+
+  for (const role of ['tech', 'frontdesk'] as const) {
+    it(`gives ${role} a read-only timeline: nothing to drag, no undo, no staffing, no Apply`, async () => {
+      const { page, fixture, backend } = await renderDay({ user: { username: role, role } });
+      expect(page.querySelectorAll('tw-exam-block.movable')).toHaveLength(0);
+      expect(block(page, 2).getAttribute('aria-describedby')).toBeNull();
+      expect(page.querySelector('button.undo')).toBeNull();
+      expect(page.querySelector('button.redo')).toBeNull();
+      expect(page.querySelector('.header button')).toBeNull();
+      block(page, 2).dispatchEvent(new KeyboardEvent('keydown', { key: 'ArrowRight', bubbles: true }));
+      block(page, 2).dispatchEvent(new KeyboardEvent('keydown', { key: 'Enter', bubbles: true }));
+      document.dispatchEvent(new KeyboardEvent('keydown', { key: 'z', ctrlKey: true, bubbles: true }));
+      marker(page, 2).click();
+      await settle(fixture);
+      backend.expectOne('/api/days/2027-03-15/fixes').flush({ fixes: [fix('push-later:2', 0)] });
+      await settle(fixture);
+      expect(text(page.querySelector('tw-fix-card'))).toContain('Start ACC-2 10 min later');
+      expect(page.querySelector('tw-fix-card button')).toBeNull();
+      expect(page.querySelector('tw-gap-panel mat-button-toggle-group')).toBeNull();
+    });
+  }
+
+  it('undoes and redoes through the server, by button and by Ctrl+Z / Ctrl+Shift+Z', async () => {
+    const { page, fixture, backend } = await renderDay();
+    page.querySelector<HTMLButtonElement>('button.undo')!.click();
+    backend.expectOne({ method: 'POST', url: '/api/days/2027-03-15/undo' }).flush(dayPlan());
+    await settle(fixture);
+    document.body.dispatchEvent(new KeyboardEvent('keydown', { key: 'Z', ctrlKey: true, shiftKey: true, bubbles: true }));
+    backend.expectOne({ method: 'POST', url: '/api/days/2027-03-15/redo' }).flush(
+      { error: { code: 'conflict', message: 'You have nothing to redo on this day.' } },
+      { status: 409, statusText: 'Conflict' },
+    );
+    await settle(fixture);
+    expect(text(page.querySelector('.notice'))).toContain('You have nothing to redo on this day.');
+    backend.expectOne('/api/days/2027-03-15/plan').flush(dayPlan());
+    document.body.dispatchEvent(new KeyboardEvent('keydown', { key: 'z', ctrlKey: true, bubbles: true }));
+    backend.expectOne({ method: 'POST', url: '/api/days/2027-03-15/undo' }).flush(dayPlan());
+    await settle(fixture);
+  });
+
+  it('shows the day\'s changes in the history panel: time, who, summary, reason', async () => {
+    const { page, fixture, backend } = await renderDay();
+    page.querySelector<HTMLButtonElement>('button.history')!.click();
+    await settle(fixture);
+    backend.expectOne('/api/days/2027-03-15/history').flush({
+      changes: [
+        { id: 4, day: '2027-03-15', username: 'sam', displayName: 'Sam Scheduler', reason: 'drag', summary: 'Moved ACC-2 from MR 1 08:45 08:55', changes: [], revertsId: null, undone: false, at: '2027-03-15T07:58:00-05:00' },
+      ],
+    });
+    await settle(fixture);
+    const row = page.querySelector('tw-history-panel li')!;
+    expect(['.when', '.who', '.what', '.how'].map((part) => text(row.querySelector(part)))).toEqual([
+      '07:58', 'Sam Scheduler', 'Moved ACC-2 from MR 1 08:45 08:55', 'dragged',
+    ]);
+  });
+
+  it('refetches the day on a change from the event stream and says who made it', async () => {
+    const { page, fixture, backend } = await renderDay();
+    const stream = FakeEventSource.last!;
+    expect(stream.url).toBe('/api/days/2027-03-15/events');
+    stream.onopen!();
+    await settle(fixture);
+    expect(text(page.querySelector('.live'))).toBe('Live');
+    stream.emit({ date: '2027-03-15', kind: 'plan', reason: 'drag', by: 'Sam Scheduler', at: '2027-03-15T08:00:00Z' });
+    await settle(fixture);
+    backend.expectOne('/api/days/2027-03-15/plan').flush(dayPlan());
+    await settle(fixture);
+    expect(text(page.querySelector('.live'))).toContain('Updated by Sam Scheduler');
+
+    stream.emit({ date: '2027-03-15', kind: 'plan', reason: 'drag', by: 'Jo Charge', at: '2027-03-15T08:01:00Z' });
+    await settle(fixture);
+    backend.expectOne('/api/days/2027-03-15/plan').flush(dayPlan());
+    fixture.destroy();
+    expect(stream.closed).toBe(true);
   });
 
   it('shows an empty day with a link to Import for a role that may import', async () => {
-    const { page } = await renderPlan(examplePlan([exampleRoom([], [])]));
+    const { page } = await renderDay({ plan: examplePlan([exampleRoom([], [])]) });
     expect(text(page)).toContain('No exams on this day yet');
-    const link = page.querySelector<HTMLAnchorElement>('a[href^="/import"]');
-    expect(link?.getAttribute('href')).toBe('/import?date=2027-03-15');
+    expect(page.querySelector('a[href^="/import"]')?.getAttribute('href')).toBe('/import?date=2027-03-15');
   });
 
-  it('offers no Import link to a role that may not import', async () => {
-    const { page } = await renderPlan(examplePlan([exampleRoom([], [])]), { username: 'pat', role: 'tech' });
-    expect(text(page)).toContain('No exams on this day yet');
-    expect(page.querySelector('a[href^="/import"]')).toBeNull();
-  });
-
-  it('shows the server message in the page when the plan cannot be loaded', async () => {
-    const { page, backend, fixture } = await render({ date: '2027-02-30' });
-    backend
-      .expectOne('/api/days/2027-02-30/plan')
-      .flush({ error: { code: 'validation_failed', message: '"2027-02-30" is not a date; use YYYY-MM-DD.' } }, { status: 400, statusText: 'Bad Request' });
-    await settle(fixture);
-    expect(text(page.querySelector('[role="alert"]'))).toContain('"2027-02-30" is not a date');
-  });
-
-  it('fetches the same day again when asked to try again after a failure', async () => {
-    const { page, backend, fixture } = await render({ date: '2027-03-15' });
+  it('shows the server message when the plan cannot be loaded, and tries again on request', async () => {
+    const { page, fixture, backend } = await renderDay({ plan: null });
     backend.expectOne('/api/days/2027-03-15/plan').error(new ProgressEvent('error'));
     await settle(fixture);
     expect(text(page.querySelector('[role="alert"]'))).toContain('cannot reach its server');
     page.querySelector<HTMLButtonElement>('button.retry')!.click();
+    backend.expectOne('/api/days/2027-03-15/plan').flush(dayPlan());
     await settle(fixture);
-    backend.expectOne('/api/days/2027-03-15/plan').flush(busy);
-    await settle(fixture);
-    expect(gapCards(page)).toHaveLength(3);
+    expect(page.querySelectorAll('tw-exam-block')).toHaveLength(6);
   });
 
   it('without a date, shows today in the site zone', async () => {
-    const { backend, page, fixture } = await render();
+    const { backend, page, fixture } = await renderDay({ date: '', plan: null });
     const today = DateTime.now().setZone('America/Chicago').toISODate();
-    backend.expectOne(`/api/days/${today}/plan`).flush(examplePlan([]));
+    backend.expectOne(`/api/days/${today}/plan`).flush({ ...examplePlan([]), date: today });
     await settle(fixture);
     expect(page.querySelector<HTMLInputElement>('input[type="date"]')!.value).toBe(today);
-  });
-
-  it('adds the MR and air-hold cautions when the day has MR rooms and an airborne hold', async () => {
-    const airborne = examplePlan([
-      exampleRoom([exampleExam(1, '08:00', '08:30'), exampleExam(2, '10:00', '10:30')], [exampleGap(1, 2, 'fits', { airHoldMinutes: 70 })]),
-    ]);
-    const { page } = await renderPlan(airborne);
-    expect(text(gapCards(page)[0])).toContain('air hold 70 min');
-    const caution = text(page.querySelector('tw-caution-note'));
-    expect(caution).toContain('Zone IV');
-    expect(caution).toContain('well-mixed air');
   });
 });

@@ -1,81 +1,121 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, afterNextRender, computed, effect, inject, input, Injector, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { Router, RouterLink } from '@angular/router';
-import { of, switchMap } from 'rxjs';
 
+import type { Fix } from '@shared/fixes/model';
 import { AuthService } from '../../core/auth/auth-service';
-import { screen } from '../../core/auth/roles';
+import { Role, screen } from '../../core/auth/roles';
 import { CautionKind, CautionNote } from '../../shared/ui/caution-note';
 import { DayPicker } from '../../shared/ui/day-picker';
 import { SiteSettingsService } from '../../shared/ui/site-settings-service';
 import { VerdictSummary } from '../../shared/ui/verdict-summary';
-import { DayPlanService, DayPlanState } from './day-plan-service';
-import { RoomCard } from './room-card';
+import { BandLegend } from './band-legend';
+import { DayPlanStore } from './day-plan-store';
+import { DayTimeline } from './day-timeline';
+import { GapPanel } from './gap-panel';
+import { HistoryPanel } from './history-panel';
+import { ZOOMS, Zoom } from './timeline-scale';
 
-/** The day plan: per room, the exams in order and the turnover each gap needs, with its verdict. */
+const MOVERS: readonly Role[] = ['scheduler', 'charge', 'admin'];
+const STAFFERS: readonly Role[] = ['charge', 'admin'];
+
+/**
+ * The Day plan: the day's timeline with its summary, filter, zoom, undo/redo, history and live
+ * updates, and beside it the details and fixes of the gap picked. Read-only for roles that may
+ * not move slots (the server refuses them anyway).
+ */
 @Component({
   selector: 'tw-day-plan',
   imports: [
-    MatButtonModule,
-    MatIconModule,
-    MatProgressBarModule,
-    MatSlideToggleModule,
-    RouterLink,
-    CautionNote,
-    DayPicker,
-    RoomCard,
-    VerdictSummary,
+    MatButtonModule, MatButtonToggleModule, MatIconModule, MatProgressBarModule, MatSlideToggleModule, RouterLink,
+    BandLegend, CautionNote, DayPicker, DayTimeline, GapPanel, HistoryPanel, VerdictSummary,
   ],
+  providers: [DayPlanStore],
   changeDetection: ChangeDetectionStrategy.OnPush,
+  host: { '(document:keydown)': 'onShortcut($event)' },
   templateUrl: './day-plan.html',
   styleUrl: './day-plan.scss',
 })
 export class DayPlan {
   private readonly router = inject(Router);
-  private readonly plans = inject(DayPlanService);
+  private readonly injector = inject(Injector);
   private readonly user = inject(AuthService).user;
+  private readonly role = computed(() => this.user()?.role ?? null);
+  protected readonly store = inject(DayPlanStore);
   protected readonly today = inject(SiteSettingsService).today;
 
-  /** `YYYY-MM-DD` from the address (`/day?date=…` or `/day/…`); absent means today at the site. */
+  /** `YYYY-MM-DD` from the address (`/day/…` or `/day?date=…`); absent means today at the site. */
   readonly date = input<string>();
 
   protected readonly day = computed(() => this.date() || this.today());
+  protected readonly zooms = ZOOMS;
+  protected readonly zoom = signal<Zoom>('4h');
   protected readonly onlyProblems = signal(false);
+  protected readonly historyOpen = signal(false);
+  /** The gap shown in the panel, by the exam it leads to. */
+  protected readonly selectedGap = signal<number | null>(null);
 
-  /** Bumped by "Try again" so the same day is fetched anew. */
-  private readonly attempt = signal(0);
-  private readonly request = computed(() => ({ day: this.day(), attempt: this.attempt() }));
-
-  protected readonly state = toSignal(
-    toObservable(this.request).pipe(switchMap(({ day }) => (day ? this.plans.state(day) : of(null)))),
-    { initialValue: null },
-  );
-  private readonly plan = computed(() => {
-    const state: DayPlanState | null = this.state();
-    return state?.status === 'loaded' ? state.plan : null;
+  protected readonly mayMove = computed(() => this.has(MOVERS));
+  protected readonly mayStaff = computed(() => this.has(STAFFERS));
+  protected readonly mayImport = computed(() => this.has(screen('import').roles));
+  protected readonly empty = computed(() => this.store.plan()?.rooms.every((room) => room.exams.length === 0) ?? false);
+  protected readonly selection = computed(() => {
+    const toExamId = this.selectedGap();
+    for (const room of this.store.plan()?.rooms ?? []) {
+      const gap = room.gaps.find((candidate) => candidate.toExamId === toExamId);
+      if (!gap) continue;
+      const exam = (id: number | null) => room.exams.find((candidate) => candidate.id === id) ?? null;
+      const to = exam(gap.toExamId);
+      if (to) return { gap, room, to, from: exam(gap.fromExamId) };
+    }
+    return null;
   });
-  protected readonly empty = computed(() => this.plan()?.rooms.every((room) => room.exams.length === 0) ?? false);
   protected readonly cautions = computed(() => {
-    const rooms = this.plan()?.rooms ?? [];
+    const rooms = this.store.plan()?.rooms ?? [];
     const kinds: CautionKind[] = ['general'];
     if (rooms.some((room) => room.modality === 'MR')) kinds.push('mr');
     if (rooms.some((room) => room.gaps.some((gap) => gap.airHoldMinutes > 0))) kinds.push('airborne');
     return kinds;
   });
-  protected readonly mayImport = computed(() => {
-    const user = this.user();
-    return !!user && screen('import').roles.includes(user.role);
-  });
 
-  protected retry(): void {
-    this.attempt.update((n) => n + 1);
+  constructor() {
+    effect(() => {
+      const day = this.day();
+      if (day) this.store.open(day);
+    });
   }
 
   protected show(date: string): void {
-    void this.router.navigate(['/day'], { queryParams: { date } });
+    this.selectedGap.set(null);
+    void this.router.navigate(['/day', date]);
+  }
+
+  protected closeGap(): void {
+    const toExamId = this.selectedGap();
+    this.selectedGap.set(null);
+    // Back to where the keyboard was: the gap's marker on the timeline.
+    afterNextRender(() => document.querySelector<HTMLElement>(`[data-gap-to="${toExamId}"]`)?.focus(), { injector: this.injector });
+  }
+
+  protected applyFix(fix: Fix, acceptNewProblems: boolean): void {
+    void this.store.applyFix(fix, acceptNewProblems);
+  }
+
+  protected onShortcut(event: KeyboardEvent): void {
+    if (!this.mayMove() || !(event.ctrlKey || event.metaKey) || event.key.toLowerCase() !== 'z') return;
+    const target = event.target as HTMLElement | null;
+    // Text fields keep their own undo.
+    if (target?.closest('input, textarea, [contenteditable="true"]')) return;
+    event.preventDefault();
+    void (event.shiftKey ? this.store.redo() : this.store.undo());
+  }
+
+  private has(roles: readonly Role[]): boolean {
+    const role = this.role();
+    return role !== null && roles.includes(role);
   }
 }

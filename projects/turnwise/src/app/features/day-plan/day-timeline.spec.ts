@@ -1,0 +1,121 @@
+import { HttpTestingController } from '@angular/common/http/testing';
+import { TestBed } from '@angular/core/testing';
+import { By } from '@angular/platform-browser';
+
+import { DayTimeline } from './day-timeline';
+import { block, dayPlan, renderDay, settle, text } from './testing/day-plan-harness';
+
+const at = (hhmm: string) => `2027-03-15T${hhmm}:00-05:00`;
+const key = (target: HTMLElement, key: string, extra: KeyboardEventInit = {}) =>
+  target.dispatchEvent(new KeyboardEvent('keydown', { key, bubbles: true, cancelable: true, ...extra }));
+/** jsdom has no PointerEvent; the timeline reads only what MouseEvent carries too. */
+const pointer = (target: EventTarget, type: string, clientX: number, clientY: number) =>
+  target.dispatchEvent(new MouseEvent(type, { bubbles: true, cancelable: true, button: 0, clientX, clientY }));
+
+describe('DayTimeline moves', () => {
+  afterEach(() => TestBed.inject(HttpTestingController).verify());
+
+  it('sends the drop of a slot as PATCH with the exam version and reason drag, and shows the answer', async () => {
+    const { fixture, backend, page } = await renderDay();
+    const timeline = fixture.debugElement.query(By.directive(DayTimeline)).componentInstance as DayTimeline;
+    void timeline.drop(2, 1, Date.parse(at('08:55')));
+    const request = backend.expectOne({ method: 'PATCH', url: '/api/exams/2' });
+    expect(request.request.body).toEqual({ start: at('08:55'), roomId: 1, version: 1, reason: 'drag' });
+    const moved = dayPlan();
+    moved.rooms[0].exams[1] = { ...moved.rooms[0].exams[1], start: at('08:55'), end: at('09:25'), version: 2 };
+    request.flush(moved);
+    await settle(fixture);
+    expect(block(page, 2).getAttribute('aria-label')).toContain('08:55–09:25');
+  });
+
+  it('drags a block with the pointer: 10 minutes right snaps to +10 min, previews the verdicts, then saves', async () => {
+    const { fixture, backend, page } = await renderDay();
+    // No layout in jsdom: the lanes start at y = 0, and 1000 px − the 172 px lane header show 4 h.
+    const pxPerMinute = (1000 - 172) / 240;
+    pointer(block(page, 2), 'pointerdown', 300, 20);
+    pointer(window, 'pointermove', 300 + 9.2 * pxPerMinute, 22);
+    pointer(window, 'pointerup', 300 + 9.2 * pxPerMinute, 22);
+    await settle(fixture);
+    // 25 min for a turnover that needs 25: under the 3-min snug margin, so snug (product brief verdict rule).
+    expect(text(page.querySelector('.move-status'))).toBe('ACC-2 to MR 1 at 08:55 — gap before: snug — gap after: short by 5 min');
+    const request = backend.expectOne({ method: 'PATCH', url: '/api/exams/2' });
+    expect(request.request.body).toEqual({ start: at('08:55'), roomId: 1, version: 1, reason: 'drag' });
+    request.flush(dayPlan());
+    await settle(fixture);
+    expect(text(page.querySelector('.move-status'))).toBe('');
+  });
+
+  it('treats a press without movement as a click, not a move', async () => {
+    const { fixture, backend, page } = await renderDay();
+    pointer(block(page, 2), 'pointerdown', 300, 20);
+    pointer(window, 'pointerup', 301, 21);
+    await settle(fixture);
+    backend.expectNone('/api/exams/2');
+  });
+
+  it('moves the focused block 5 min per arrow and saves with Enter as reason keyboard', async () => {
+    const { fixture, backend, page } = await renderDay();
+    key(block(page, 2), 'ArrowRight');
+    await settle(fixture);
+    key(block(page, 2), 'ArrowRight');
+    await settle(fixture);
+    expect(text(page.querySelector('.move-status'))).toContain('ACC-2 to MR 1 at 08:55');
+    expect(block(page, 2).classList).toContain('moving');
+    expect(document.activeElement).toBe(block(page, 2));
+    key(block(page, 2), 'Enter');
+    const request = backend.expectOne({ method: 'PATCH', url: '/api/exams/2' });
+    expect(request.request.body).toEqual({ start: at('08:55'), roomId: 1, version: 1, reason: 'keyboard' });
+    request.flush(dayPlan());
+    await settle(fixture);
+  });
+
+  it('cancels a keyboard move with Escape, without a request', async () => {
+    const { fixture, backend, page } = await renderDay();
+    key(block(page, 2), 'ArrowLeft');
+    await settle(fixture);
+    expect(block(page, 2).getAttribute('aria-label')).toContain('08:40–09:10');
+    key(block(page, 2), 'Escape');
+    await settle(fixture);
+    expect(block(page, 2).getAttribute('aria-label')).toContain('08:45–09:15');
+    key(block(page, 2), 'Enter');
+    await settle(fixture);
+    backend.expectNone('/api/exams/2');
+  });
+
+  it('moves to the next lane of the same modality with Alt+Down, skipping the CT room', async () => {
+    const { fixture, backend, page } = await renderDay();
+    key(block(page, 2), 'ArrowDown', { altKey: true });
+    await settle(fixture);
+    expect(block(page, 2).closest('[data-room-id]')!.getAttribute('data-room-id')).toBe('2');
+    expect(document.activeElement).toBe(block(page, 2));
+    key(block(page, 2), 'Enter');
+    expect(backend.expectOne('/api/exams/2').request.body).toEqual({ start: at('08:45'), roomId: 2, version: 1, reason: 'keyboard' });
+  });
+
+  it('on 409, shows the server\'s message and reloads the day', async () => {
+    const { fixture, backend, page } = await renderDay();
+    const timeline = fixture.debugElement.query(By.directive(DayTimeline)).componentInstance as DayTimeline;
+    void timeline.drop(2, 1, Date.parse(at('09:00')));
+    const message = 'Exam ACC-2 was changed meanwhile: Sam changed it at 07:50 (Moved ACC-2). The day has been reloaded.';
+    backend.expectOne('/api/exams/2').flush({ error: { code: 'conflict', message } }, { status: 409, statusText: 'Conflict' });
+    await settle(fixture);
+    backend.expectOne('/api/days/2027-03-15/plan').flush(dayPlan());
+    await settle(fixture);
+    expect(text(page.querySelector('.notice[role="alert"]'))).toContain(message);
+  });
+
+  it('on 422, shows the message and the block snaps back', async () => {
+    const { fixture, backend, page } = await renderDay();
+    const timeline = fixture.debugElement.query(By.directive(DayTimeline)).componentInstance as DayTimeline;
+    void timeline.drop(2, 1, Date.parse(at('09:00')));
+    await settle(fixture);
+    expect(block(page, 2).getAttribute('aria-label')).toContain('09:00–09:30');
+    backend
+      .expectOne('/api/exams/2')
+      .flush({ error: { code: 'validation_failed', message: 'A move must keep ACC-2 within 2027-03-15.' } }, { status: 422, statusText: 'Unprocessable' });
+    await settle(fixture);
+    expect(text(page.querySelector('.notice'))).toContain('A move must keep ACC-2 within 2027-03-15.');
+    expect(block(page, 2).getAttribute('aria-label')).toContain('08:45–09:15');
+    backend.expectNone('/api/days/2027-03-15/plan');
+  });
+});

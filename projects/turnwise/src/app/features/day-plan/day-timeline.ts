@@ -1,0 +1,205 @@
+import {
+  ChangeDetectionStrategy, Component, DestroyRef, ElementRef, Injector, afterNextRender, computed, effect, inject, input, output,
+  signal, viewChild,
+} from '@angular/core';
+
+import type { DayPlan, PlanExam, PlanRoom } from '@shared/api/plan';
+import type { MoveReason } from './day-plan-service';
+import { DayPlanStore } from './day-plan-store';
+import { LANE_HEADER_PX, LANE_HEIGHT_PX } from './lane-size';
+import { previewMove } from './plan-preview';
+import { DragPointer, PointerDrag } from './pointer-drag';
+import { markStart, measureSinceStart } from './render-marks';
+import { RoomLane } from './room-lane';
+import { PendingMove, clampStart, moveStatus, movedWithoutGaps, nextLane } from './slot-moves';
+import { SNAP_MINUTES, Zoom, axisTicks, dayRange, scaleFor, siteIso, snapToMinutes, xOf } from './timeline-scale';
+
+const MINUTE = 60_000;
+
+/**
+ * The lanes of the day on a shared time axis, with the now line. Slots move by pointer (drag
+ * along or across lanes, 5-minute steps) or by keyboard; while moving, the touched rooms are
+ * recomputed in the browser with the server's engine so the gaps show their would-be verdicts.
+ */
+@Component({
+  selector: 'tw-day-timeline',
+  imports: [RoomLane],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  templateUrl: './day-timeline.html',
+  styleUrl: './day-timeline.scss',
+})
+export class DayTimeline {
+  private readonly store = inject(DayPlanStore);
+  private readonly injector = inject(Injector);
+
+  readonly plan = input.required<DayPlan>();
+  readonly zoom = input<Zoom>('4h');
+  readonly onlyProblems = input(false);
+  readonly mayMove = input(false);
+  readonly mayStaff = input(false);
+  readonly selectedGap = input<number | null>(null);
+  /** Today at the site; the now line shows only on that day. */
+  readonly today = input<string | null>(null);
+  readonly gapOpened = output<number>();
+  readonly roomStaffChanged = output<{ roomId: number; staff: number }>();
+
+  private readonly scroller = viewChild.required<ElementRef<HTMLElement>>('scroller');
+  private readonly lanesEl = viewChild.required<ElementRef<HTMLElement>>('laneList');
+  private readonly viewportPx = signal(1000);
+  private readonly nowMs = signal(Date.now());
+
+  protected readonly headerPx = LANE_HEADER_PX;
+  protected readonly pending = signal<PendingMove | null>(null);
+  protected readonly range = computed(() => dayRange(this.plan()));
+  protected readonly scale = computed(() => scaleFor(this.range(), this.zoom(), this.viewportPx() - LANE_HEADER_PX));
+  protected readonly ticks = computed(() => axisTicks(this.scale(), this.plan().timezone));
+  protected readonly nowX = computed(() => {
+    const now = this.nowMs();
+    const { startMs, endMs } = this.scale();
+    return this.plan().date === this.today() && now >= startMs && now <= endMs ? xOf(this.scale(), now) : null;
+  });
+
+  /** Each exam with the room it is stored in, to find where a move starts from. */
+  private readonly homes = computed(() => new Map(this.plan().rooms.flatMap((room) => room.exams.map((exam) => [exam.id, { exam, room }] as const))));
+  private readonly preview = computed(() => {
+    const move = this.pending();
+    const input = this.store.previewInput();
+    if (!move) return null;
+    const start = siteIso(move.startMs, this.plan().timezone);
+    return (input && previewMove(input, { examId: move.exam.id, roomId: move.roomId, start })) ?? null;
+  });
+  protected readonly lanes = computed((): PlanRoom[] => {
+    const rooms = this.plan().rooms;
+    const move = this.pending();
+    if (!move) return rooms;
+    const preview = this.preview();
+    if (preview) return rooms.map((room) => preview.get(room.id) ?? room);
+    const tz = this.plan().timezone;
+    return movedWithoutGaps(rooms, move, siteIso(move.startMs, tz), siteIso(move.startMs + move.exam.durationMinutes * MINUTE, tz));
+  });
+  protected readonly status = computed(() => {
+    const move = this.pending();
+    if (!move) return '';
+    const words = moveStatus(move, this.lanes().find((room) => room.id === move.roomId));
+    return move.reason === 'keyboard' ? `${words}. Enter saves, Escape cancels.` : words;
+  });
+
+  private drag: PointerDrag | null = null;
+
+  constructor() {
+    const destroyRef = inject(DestroyRef);
+    const clock = setInterval(() => this.nowMs.set(Date.now()), MINUTE);
+    destroyRef.onDestroy(() => (clearInterval(clock), this.drag?.end()));
+
+    afterNextRender(() => {
+      const element = this.scroller().nativeElement;
+      // Measured now, before the first scroll to "now", so that scroll uses the real scale.
+      if (element.clientWidth > 0) this.viewportPx.set(Math.max(480, element.clientWidth));
+      if (typeof ResizeObserver === 'undefined') return;
+      const observer = new ResizeObserver(([entry]) => this.viewportPx.set(Math.max(480, entry.contentRect.width)));
+      observer.observe(element);
+      destroyRef.onDestroy(() => observer.disconnect());
+    });
+
+    // Marks for the benchmark: from a plan's arrival to its lanes on screen.
+    effect(() => {
+      this.plan();
+      markStart('tw-plan-render');
+      afterNextRender(() => measureSinceStart('tw-plan-render'), { injector: this.injector });
+    });
+
+    // On a new day, bring the working part of it into view: now on today, else the first exam.
+    let shownDate = '';
+    effect(() => {
+      const plan = this.plan();
+      if (plan.date === shownDate) return;
+      shownDate = plan.date;
+      afterNextRender(() => this.scrollToStart(), { injector: this.injector });
+    });
+  }
+
+  /** Saves a move (the drop of a drag, or Enter after keyboard moves); the lanes keep the preview until the server answers. */
+  async drop(examId: number, roomId: number, startMs: number, reason: MoveReason = 'drag'): Promise<void> {
+    const home = this.homes().get(examId);
+    if (!home) return this.pending.set(null);
+    if (roomId === home.room.id && startMs === Date.parse(home.exam.start)) return this.pending.set(null);
+    this.pending.set({ exam: home.exam, roomId, startMs, reason });
+    await this.store.move(home.exam, roomId, siteIso(startMs, this.plan().timezone), reason);
+    this.pending.set(null);
+    this.focusExam(examId);
+  }
+
+  protected onPointerDown(event: PointerEvent): void {
+    if (!this.mayMove() || event.button !== 0 || this.store.busy()) return;
+    const block = (event.target as Element).closest<HTMLElement>('[data-exam-id]');
+    const home = block && this.homes().get(Number(block.dataset['examId']));
+    if (!home) return;
+    this.drag?.end();
+    this.drag = new PointerDrag(event, {
+      frame: (at) => this.dragFrame(home.exam, home.room.id, at),
+      drop: (at) => {
+        this.dragFrame(home.exam, home.room.id, at);
+        const move = this.pending();
+        if (move) void this.drop(move.exam.id, move.roomId, move.startMs, 'drag');
+      },
+      cancel: () => this.pending.set(null),
+    });
+  }
+
+  /** The would-be room and start under the pointer: 5-minute steps, and only lanes of the exam's modality. */
+  private dragFrame(exam: PlanExam, originRoomId: number, at: DragPointer): void {
+    markStart('tw-drag-frame');
+    const base = this.plan().rooms;
+    const top = this.lanesEl().nativeElement.getBoundingClientRect().top;
+    const index = Math.min(base.length - 1, Math.max(0, Math.floor((at.y - top) / LANE_HEIGHT_PX)));
+    const modality = base.find((room) => room.id === originRoomId)!.modality;
+    // A lane of another modality cannot take the slot: it stays in the lane it was last allowed in.
+    const roomId = base[index].modality === modality ? base[index].id : (this.pending()?.roomId ?? originRoomId);
+    const moved = Date.parse(exam.start) + ((at.x - at.x0) / this.scale().pxPerMinute) * MINUTE;
+    const startMs = clampStart(snapToMinutes(moved), exam.durationMinutes, this.range());
+    this.pending.set({ exam, roomId, startMs, reason: 'drag' });
+    afterNextRender(() => measureSinceStart('tw-drag-frame'), { injector: this.injector });
+  }
+
+  protected onKeyDown(event: KeyboardEvent): void {
+    const block = (event.target as Element).closest<HTMLElement>('[data-exam-id]');
+    const home = block && this.homes().get(Number(block.dataset['examId']));
+    if (!home || !this.mayMove()) return;
+    const pending = this.pending();
+    const current: PendingMove =
+      pending?.exam.id === home.exam.id ? pending : { exam: home.exam, roomId: home.room.id, startMs: Date.parse(home.exam.start), reason: 'keyboard' };
+    let next: PendingMove | null = current;
+    if ((event.key === 'ArrowLeft' || event.key === 'ArrowRight') && !event.altKey) {
+      const step = (event.key === 'ArrowLeft' ? -SNAP_MINUTES : SNAP_MINUTES) * MINUTE;
+      next = { ...current, reason: 'keyboard', startMs: clampStart(current.startMs + step, home.exam.durationMinutes, this.range()) };
+    } else if ((event.key === 'ArrowUp' || event.key === 'ArrowDown') && event.altKey) {
+      const roomId = nextLane(this.plan().rooms, current.roomId, home.room.modality, event.key === 'ArrowUp' ? -1 : 1);
+      next = roomId === null ? current : { ...current, reason: 'keyboard', roomId };
+    } else if (event.key === 'Enter' && pending?.exam.id === home.exam.id) {
+      event.preventDefault();
+      void this.drop(home.exam.id, pending.roomId, pending.startMs, 'keyboard');
+      return;
+    } else if (event.key === 'Escape' && pending) {
+      next = null;
+    } else {
+      return;
+    }
+    event.preventDefault();
+    this.pending.set(next);
+    this.focusExam(home.exam.id);
+  }
+
+  /** A moved block is drawn anew (in another lane, or after the server's answer): keep the keyboard on it. */
+  private focusExam(examId: number): void {
+    afterNextRender(() => this.lanesEl().nativeElement.querySelector<HTMLElement>(`[data-exam-id="${examId}"]`)?.focus(), { injector: this.injector });
+  }
+
+  private scrollToStart(again = true): void {
+    const exams = this.plan().rooms.flatMap((room) => room.exams.map((exam) => Date.parse(exam.start)));
+    const target = Math.max(0, (this.nowX() ?? (exams.length ? xOf(this.scale(), Math.min(...exams)) : 0)) - 60);
+    const element = this.scroller().nativeElement;
+    element.scrollLeft = target;
+    // The lanes may not have their new width yet (first measure of the viewport): once more next frame.
+    if (again && Math.abs(element.scrollLeft - target) > 1) requestAnimationFrame(() => this.scrollToStart(false));
+  }
+}

@@ -1,0 +1,86 @@
+import { ChangeDetectionStrategy, Component, ElementRef, afterNextRender, computed, inject, input, output, viewChild } from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { catchError, map, of, startWith, switchMap } from 'rxjs';
+
+import type { PlanExam, PlanGap, PlanRoom } from '@shared/api/plan';
+import type { Fix } from '@shared/fixes/model';
+import { CautionKind, CautionNote } from '../../shared/ui/caution-note';
+import { SiteTime } from '../../shared/ui/site-time';
+import { VerdictChip } from '../../shared/ui/verdict-chip';
+import { DayPlanService } from './day-plan-service';
+import { FixCard } from './fix-card';
+import { STAFF_RANGE } from './room-lane';
+
+type FixesState = { status: 'loading' } | { status: 'loaded'; fixes: Fix[] } | { status: 'failed'; message: string };
+
+/**
+ * One gap in full, beside the timeline: verdict, what it needs and has, ready-at, the steps in
+ * order with who does each, the helpers on it, and the fixes the server suggests for it.
+ */
+@Component({
+  selector: 'tw-gap-panel',
+  imports: [MatButtonModule, MatButtonToggleModule, MatIconModule, MatProgressBarModule, CautionNote, FixCard, SiteTime, VerdictChip],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  host: { class: 'tw-gap-panel', role: 'region', '[attr.aria-label]': 'title()', '(keydown.escape)': 'closed.emit()' },
+  templateUrl: './gap-panel.html',
+  styleUrl: './gap-panel.scss',
+})
+export class GapPanel {
+  private readonly api = inject(DayPlanService);
+
+  readonly date = input.required<string>();
+  readonly gap = input.required<PlanGap>();
+  readonly room = input.required<PlanRoom>();
+  readonly from = input<PlanExam | null>(null);
+  readonly to = input.required<PlanExam>();
+  /** Bumped by the store on every new plan: the fixes are fetched again. */
+  readonly revision = input(0);
+  readonly mayStaff = input(false);
+  readonly mayApply = input(false);
+  readonly busy = input(false);
+  readonly closed = output<void>();
+  readonly staffChosen = output<number | null>();
+  readonly applied = output<{ fix: Fix; acceptNewProblems: boolean }>();
+
+  private readonly heading = viewChild.required<ElementRef<HTMLElement>>('heading');
+
+  protected readonly staffChoices = Array.from({ length: STAFF_RANGE.max }, (_, i) => i + 1);
+  protected readonly title = computed(() => `${this.gap().fromExamId === null ? 'Opening' : 'Turnover'} before ${this.to().accession}`);
+  protected readonly late = computed(() => this.gap().verdict === 'short' || this.gap().verdict === 'overlap');
+  protected readonly helperAdded = computed(() => this.gap().staff !== this.room().staff);
+  protected readonly cautions = computed(() => {
+    const kinds: CautionKind[] = ['general'];
+    if (this.room().modality === 'MR') kinds.push('mr');
+    if (this.gap().airHoldMinutes > 0) kinds.push('airborne');
+    return kinds;
+  });
+
+  private readonly fixesRequest = computed(() => ({ date: this.date(), revision: this.revision(), toExamId: this.to().id, late: this.late() }));
+  protected readonly fixes = toSignal(
+    toObservable(this.fixesRequest).pipe(
+      switchMap(({ date, toExamId, late }) =>
+        !late
+          ? of<FixesState>({ status: 'loaded', fixes: [] })
+          : this.api.fixes(date).pipe(
+              map((fixes): FixesState => ({ status: 'loaded', fixes: fixes.filter((fix) => fix.toExamId === toExamId) })),
+              catchError((error: { message?: string }) => of<FixesState>({ status: 'failed', message: error.message ?? 'Fixes could not be loaded.' })),
+              startWith<FixesState>({ status: 'loading' }),
+            ),
+      ),
+    ),
+    { initialValue: { status: 'loading' } as FixesState },
+  );
+
+  constructor() {
+    // Opening the panel takes the keyboard to it; Escape or Close brings it back to the timeline.
+    afterNextRender(() => this.heading().nativeElement.focus());
+  }
+
+  protected chooseStaff(value: string): void {
+    this.staffChosen.emit(value === 'room' ? null : Number(value));
+  }
+}

@@ -1,0 +1,71 @@
+import type { Room } from '@shared/api/rooms';
+import { computeDayPlan, type DayPlanInput } from '@shared/turnover';
+
+import { dayPlanInputOf, previewMove } from './plan-preview';
+
+// Invented day: two MR rooms; in MR 1, ACC-2 starts 15 min after ACC-1 ends.
+const rooms: Room[] = [
+  { id: 1, name: 'MR 1', modality: 'MR', airChangesPerHour: 6, staff: 1, opensAt: '07:00', closesAt: '19:00' },
+  { id: 2, name: 'MR 2', modality: 'MR', airChangesPerHour: 12, staff: 2, opensAt: '07:00', closesAt: '19:00' },
+];
+const exam = (id: number, roomId: number, start: string, extra: Partial<DayPlanInput['exams'][number]> = {}) => ({
+  id,
+  accession: `ACC-${id}`,
+  roomId,
+  start: `2027-03-15T${start}:00-05:00`,
+  durationMinutes: 30,
+  procedure: 'MR knee without contrast',
+  coil: 'knee',
+  precaution: 'none' as const,
+  mobility: 'ambulatory' as const,
+  contrast: false,
+  version: 1,
+  ...extra,
+});
+const stored: DayPlanInput = {
+  date: '2027-03-15',
+  timezone: 'America/Chicago',
+  snugMarginMinutes: 3,
+  rooms,
+  exams: [exam(1, 1, '08:00'), exam(2, 1, '08:45'), exam(3, 2, '08:00', { precaution: 'airborne' }), exam(4, 2, '10:00')],
+  staffOverrides: { 4: 3 },
+};
+const serverPlan = computeDayPlan(stored);
+
+describe('dayPlanInputOf', () => {
+  it('rebuilds an input that computes the very plan the server sent', () => {
+    expect(computeDayPlan(dayPlanInputOf(serverPlan, rooms, 3))).toEqual(serverPlan);
+  });
+
+  it('turns a gap staffed apart from its room into a staff override', () => {
+    expect(dayPlanInputOf(serverPlan, rooms, 3).staffOverrides).toEqual({ 4: 3 });
+  });
+});
+
+describe('previewMove', () => {
+  const input = dayPlanInputOf(serverPlan, rooms, 3);
+
+  it('returns the would-be verdict of a gap after a slot moves along its lane', () => {
+    // One person, nothing special: 20 min (product brief check value), so 15 min is short by 5…
+    expect(serverPlan.rooms[0].gaps[1]).toMatchObject({ verdict: 'short', shortByMinutes: 5 });
+    // …and 25 min is more than 20 + the 3-min snug margin.
+    const after = previewMove(input, { examId: 2, roomId: 1, start: '2027-03-15T08:55:00-05:00' })!;
+    expect(after.get(1)!.gaps[1]).toMatchObject({ verdict: 'fits', availableMinutes: 25, requiredMinutes: 20 });
+  });
+
+  it('recomputes both rooms when a slot moves to another lane, and only those', () => {
+    const after = previewMove(input, { examId: 2, roomId: 2, start: '2027-03-15T11:00:00-05:00' })!;
+    expect([...after.keys()].sort()).toEqual([1, 2]);
+    expect(after.get(1)!.exams.map((e) => e.id)).toEqual([1]);
+    expect(after.get(2)!.exams.map((e) => e.id)).toEqual([3, 4, 2]);
+  });
+
+  it('returns null for an exam that is not on the day', () => {
+    expect(previewMove(input, { examId: 99, roomId: 1, start: '2027-03-15T08:55:00-05:00' })).toBeNull();
+  });
+
+  it('returns null rather than guessing when the air changes of an airborne room are unknown', () => {
+    const blind = dayPlanInputOf(serverPlan, [], 3);
+    expect(previewMove(blind, { examId: 4, roomId: 2, start: '2027-03-15T10:30:00-05:00' })).toBeNull();
+  });
+});

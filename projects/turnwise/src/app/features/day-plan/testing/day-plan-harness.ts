@@ -1,0 +1,81 @@
+import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { signal } from '@angular/core';
+import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { provideRouter } from '@angular/router';
+
+import type { DayPlan as Plan } from '@shared/api/plan';
+import { AuthService } from '../../../core/auth/auth-service';
+import { SessionUser } from '../../../core/auth/roles';
+import { errorInterceptor } from '../../../core/http/error-interceptor';
+import { provideIcons } from '../../../core/layout/icons';
+import { DayPlan } from '../day-plan';
+import { EVENT_SOURCE } from '../day-events';
+import { ROOMS, dayPlan } from './example-day';
+
+export { DAY_INPUT, ROOMS, dayPlan } from './example-day';
+
+const SETTINGS = { settings: { siteName: 'Example Imaging', timezone: 'America/Chicago', snugMarginMinutes: 3 } };
+
+/** A stand-in EventSource the test drives: `emit()` sends a `change` event. */
+export class FakeEventSource {
+  static last: FakeEventSource | null = null;
+  readyState = 1;
+  onopen: (() => void) | null = null;
+  onerror: (() => void) | null = null;
+  closed = false;
+  private readonly listeners: ((event: MessageEvent) => void)[] = [];
+  constructor(readonly url: string) {
+    FakeEventSource.last = this;
+  }
+  addEventListener(_type: string, listener: (event: MessageEvent) => void) {
+    this.listeners.push(listener);
+  }
+  emit(data: object) {
+    for (const listener of this.listeners) listener(new MessageEvent('change', { data: JSON.stringify(data) }));
+  }
+  close() {
+    this.closed = true;
+  }
+}
+
+export async function settle(fixture: ComponentFixture<unknown>) {
+  await new Promise((resolve) => setTimeout(resolve));
+  await fixture.whenStable();
+  await new Promise((resolve) => setTimeout(resolve));
+  await fixture.whenStable();
+}
+
+/** The Day plan on 2027-03-15 for `user`, with settings, rooms and the plan answered. */
+export async function renderDay(options: { user?: SessionUser; plan?: Plan | null; date?: string } = {}) {
+  TestBed.configureTestingModule({
+    imports: [DayPlan],
+    providers: [
+      provideRouter([]),
+      provideHttpClient(withInterceptors([errorInterceptor])),
+      provideHttpClientTesting(),
+      provideIcons(),
+      // No jest here: this file is compiled with the app's tsconfig too.
+      { provide: AuthService, useValue: { user: signal(options.user ?? { username: 'jo', displayName: 'Jo Charge', role: 'charge' }).asReadonly() } },
+      { provide: MatSnackBar, useValue: { open: () => undefined } },
+      { provide: EVENT_SOURCE, useValue: (url: string) => new FakeEventSource(url) },
+    ],
+  });
+  const fixture = TestBed.createComponent(DayPlan);
+  if (options.date !== '') fixture.componentRef.setInput('date', options.date ?? '2027-03-15');
+  const backend = TestBed.inject(HttpTestingController);
+  backend.expectOne('/api/settings').flush(SETTINGS);
+  backend.expectOne('/api/rooms').flush({ rooms: ROOMS });
+  await settle(fixture);
+  if (options.plan !== null) {
+    backend.expectOne('/api/days/2027-03-15/plan').flush(options.plan ?? dayPlan());
+    await settle(fixture);
+  }
+  const page = fixture.nativeElement as HTMLElement;
+  return { fixture, backend, page };
+}
+
+export const text = (element: Element | null | undefined) => element?.textContent?.replace(/\s+/g, ' ').trim() ?? '';
+export const block = (page: HTMLElement, examId: number) => page.querySelector<HTMLElement>(`[data-exam-id="${examId}"]`)!;
+export const marker = (page: HTMLElement, toExamId: number) => page.querySelector<HTMLButtonElement>(`[data-gap-to="${toExamId}"]`)!;
