@@ -8,7 +8,7 @@ import type { Room } from '@shared/api/rooms';
 import type { Fix } from '@shared/fixes/model';
 import { AuthService } from '../../core/auth/auth-service';
 import { SiteSettingsService } from '../../shared/ui/site-settings-service';
-import { DayEvents } from './day-events';
+import { DayEvents } from '../../shared/ui/day-events';
 import { DayPlanService, MoveReason } from './day-plan-service';
 import { dayPlanInputOf } from './plan-preview';
 
@@ -159,9 +159,10 @@ export class DayPlanStore {
     this.stream?.unsubscribe();
     this.live.set('connecting');
     let opened = false;
-    this.stream = this.events.changes(date).subscribe((notice) => {
-      if (notice === 'dropped') return this.live.set('offline');
-      if (notice === 'opened') {
+    this.stream = this.events.stream(date).subscribe((message) => {
+      if (message.type === 'status') {
+        if (message.status === 'reconnecting') return this.live.set('offline');
+        if (message.status === 'connecting') return;
         this.live.set('live');
         // A reconnection may have missed changes; the first opening needs nothing new.
         if (opened) this.reload();
@@ -169,10 +170,11 @@ export class DayPlanStore {
         return;
       }
       this.live.set('live');
-      if (notice.reason === 'staffing') this.loadRooms();
+      const notice = message.event;
+      if (!notice || notice.reason === 'staffing') this.loadRooms();
       this.reload();
       const me = this.user();
-      if (notice.by && notice.by !== (me?.displayName || me?.username)) this.showUpdatedBy(notice.by);
+      if (notice?.by && notice.by !== (me?.displayName || me?.username)) this.showUpdatedBy(notice.by);
     });
   }
 

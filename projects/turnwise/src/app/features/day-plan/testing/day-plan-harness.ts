@@ -11,7 +11,7 @@ import { SessionUser } from '../../../core/auth/roles';
 import { errorInterceptor } from '../../../core/http/error-interceptor';
 import { provideIcons } from '../../../core/layout/icons';
 import { DayPlan } from '../day-plan';
-import { EVENT_SOURCE } from '../day-events';
+import { EVENT_SOURCE } from '../../../shared/ui/day-events';
 import { ROOMS, dayPlan } from './example-day';
 
 export { DAY_INPUT, ROOMS, dayPlan } from './example-day';
