@@ -3,7 +3,8 @@ import { MatIconModule } from '@angular/material/icon';
 
 import type { Mobility, Precaution } from '@shared/api/plan';
 
-const PRECAUTION_ICONS: Readonly<Record<Exclude<Precaution, 'none'>, string>> = {
+/** The icon of each isolation precaution, shared by every screen that shows one. */
+export const PRECAUTION_ICONS: Readonly<Record<Exclude<Precaution, 'none'>, string>> = {
   contact: 'back_hand',
   enteric: 'sanitizer',
   droplet: 'masks',

@@ -1,13 +1,10 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 
-// The same icons as the Day plan's exam tags, so a precaution looks alike on every screen.
-const ICONS: Readonly<Record<string, string>> = {
-  contact: 'back_hand',
-  enteric: 'sanitizer',
-  droplet: 'masks',
-  airborne: 'air',
-};
+import { PRECAUTION_ICONS } from './exam-tags';
+
+// The Day plan's exam tags' icons, so a precaution looks alike on every screen.
+const ICONS: Readonly<Record<string, string>> = PRECAUTION_ICONS;
 
 /** An exam's precaution as icon plus words ("airborne precautions"); "no precautions" for none. */
 @Component({
