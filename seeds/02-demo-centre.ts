@@ -2,10 +2,12 @@ import type { Knex } from 'knex';
 import { hashPassword } from '../server/services/passwords';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './support/demo-accounts';
 import { seedDemoDay } from './support/demo-day';
+import { seedShiftTasks } from './support/demo-shift-tasks';
 
 /**
  * An invented outpatient centre: three MR rooms and one CT room, a user for every role, and a
- * day list for the current day (so the demo always shows today). Idempotent: what exists stays.
+ * day list for the current day (so the demo always shows today), and each room's default shift
+ * tasks. Idempotent: what exists stays.
  */
 export const DEMO_SITE = { siteName: 'Turnwise Demo Imaging Centre', timezone: 'America/Chicago', snugMarginMinutes: 3 };
 
@@ -39,5 +41,6 @@ export async function seed(knex: Knex, now: Date = new Date(), options: { day?: 
   for (const room of DEMO_ROOMS) {
     await knex('rooms').insert({ ...room, created_at: created }).onConflict('name').ignore();
   }
+  await seedShiftTasks(knex, now);
   if (options.day ?? true) await seedDemoDay(knex, now);
 }

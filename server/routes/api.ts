@@ -5,11 +5,24 @@ import type { DayEvents } from '../services/day-events';
 import { dayChangeRoutes } from './day-changes';
 import { dayRoutes } from './days';
 import { examRoutes } from './exams';
+import { boardRoutes } from './board';
+import { examProgressRoutes } from './exam-progress';
+import { logRoutes } from './log';
+import { shiftTaskRoutes } from './shift-tasks';
+import { turnoverRoutes } from './turnovers';
 
-/** Day-plan routes: days (plan, import, history, fixes, events) and exams (moves, staffing). */
+/**
+ * Day-plan routes: days (plan, import, history, fixes, events) and exams (moves, staffing);
+ * the day itself: board, arrivals, turnovers, shift tasks and the cleaning log.
+ */
 export function apiRoutes(deps: { db: Knex; clock: Clock; events: DayEvents }): Router {
   const router = Router();
   router.use('/days', dayRoutes(deps), dayChangeRoutes(deps));
-  router.use('/exams', examRoutes(deps));
+  router.use('/exams', examRoutes(deps), examProgressRoutes(deps));
+  // Rooms now, checklists, the cleaning log and shift tasks
+  router.use(boardRoutes(deps));
+  router.use('/turnovers', turnoverRoutes(deps));
+  router.use('/shift-tasks', shiftTaskRoutes(deps));
+  router.use(logRoutes(deps));
   return router;
 }

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import type { Room, RoomFields } from '../../shared/api/rooms';
 import { ValidationError } from '../errors';
+import { addDefaultShiftTasks } from './shift-tasks';
 
 interface RoomRow {
   id: number;
@@ -33,15 +34,20 @@ export async function createRoom(db: Knex, room: RoomFields, now: Date): Promise
   const clash = await db('rooms').whereRaw('lower(name) = lower(?)', [room.name]).first();
   if (clash) throw new ValidationError(`A room named "${room.name}" already exists.`, { problems: [{ field: 'name', message: 'already exists' }] });
   const [{ max }] = await db('rooms').max({ max: 'sort_order' });
-  const [id] = await db('rooms').insert({
-    name: room.name,
-    modality: room.modality,
-    air_changes_per_hour: room.airChangesPerHour,
-    staff: room.staff,
-    opens_at: room.opensAt,
-    closes_at: room.closesAt,
-    sort_order: (Number(max) || 0) + 1,
-    created_at: now.toISOString(),
+  const id = await db.transaction(async (trx) => {
+    const [roomId] = await trx('rooms').insert({
+      name: room.name,
+      modality: room.modality,
+      air_changes_per_hour: room.airChangesPerHour,
+      staff: room.staff,
+      opens_at: room.opensAt,
+      closes_at: room.closesAt,
+      sort_order: (Number(max) || 0) + 1,
+      created_at: now.toISOString(),
+    });
+    // every new room starts with our default shift tasks (wipe-downs, scanner QA, deep clean)
+    await addDefaultShiftTasks(trx, roomId, room, now);
+    return roomId;
   });
   return toRoom((await db<RoomRow>('rooms').where({ id }).first())!);
 }

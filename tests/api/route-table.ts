@@ -2,6 +2,8 @@ import type { Response } from 'supertest';
 import type { Role } from '../../shared/api/auth';
 import type { Client, Harness } from './harness';
 import { exampleCsv } from '../fixtures/exam-lists';
+import { loadChecklist } from '../../server/services/checklist';
+import { finishExam } from '../../server/services/turnovers';
 
 export interface RouteCase {
   method: 'get' | 'post' | 'put' | 'patch' | 'delete';
@@ -90,6 +92,63 @@ export const ROUTE_TABLE: RouteCase[] = [
         res.once('end', () => done(null, null));
       }),
   },
+  // Rooms now, arrivals, turnover checklists, the cleaning log and shift tasks
+  { method: 'get', path: '/api/days/:date/board', allowed: 'signed-in', send: (c) => c.get('/api/days/2027-03-10/board') },
+  {
+    method: 'post',
+    path: '/api/exams/:id/arrived',
+    allowed: ['frontdesk', 'charge', 'tech', 'admin'],
+    prepare: firstExam,
+    send: (c, e) => c.post(`/api/exams/${(e as Exam).id}/arrived`, {}),
+  },
+  {
+    method: 'delete',
+    path: '/api/exams/:id/arrived',
+    allowed: ['frontdesk', 'charge', 'tech', 'admin'],
+    prepare: firstExam,
+    send: (c, e) => c.delete(`/api/exams/${(e as Exam).id}/arrived`),
+  },
+  { method: 'get', path: '/api/rooms/:id/turnover', allowed: 'signed-in', send: (c) => c.get('/api/rooms/1/turnover?date=2027-03-10') },
+  {
+    method: 'post',
+    path: '/api/exams/:id/finished',
+    allowed: ['tech', 'charge', 'admin'],
+    prepare: unfinishedExam,
+    send: (c, id) => c.post(`/api/exams/${id as number}/finished`, {}),
+  },
+  {
+    method: 'post',
+    path: '/api/turnovers/:id/steps/:key/done',
+    allowed: ['tech', 'charge', 'admin'],
+    prepare: openTurnover,
+    send: (c, t) => c.post(`/api/turnovers/${(t as OpenTurnover).id}/steps/${(t as OpenTurnover).firstStep}/done`, {}),
+  },
+  {
+    method: 'post',
+    path: '/api/turnovers/:id/complete',
+    allowed: ['tech', 'charge', 'admin'],
+    alsoOk: [422], // steps left: the role was let through
+    prepare: openTurnover,
+    send: (c, t) => c.post(`/api/turnovers/${(t as OpenTurnover).id}/complete`, {}),
+  },
+  { method: 'get', path: '/api/log', allowed: ['tech', 'charge', 'admin'], send: (c) => c.get('/api/log?date=2027-03-10') },
+  { method: 'get', path: '/api/log.csv', allowed: ['tech', 'charge', 'admin'], send: (c) => c.get('/api/log.csv?date=2027-03-10') },
+  {
+    method: 'post',
+    path: '/api/log/:id/corrections',
+    allowed: ['tech', 'charge', 'admin'],
+    prepare: async (h) => (await openTurnover(h)) && (await h.db('cleaning_log').max({ id: 'id' }))[0]!.id,
+    send: (c, id) => c.post(`/api/log/${id as number}/corrections`, { note: 'Role matrix check' }),
+  },
+  { method: 'get', path: '/api/rooms/:id/tasks', allowed: 'signed-in', send: (c) => c.get('/api/rooms/1/tasks?date=2027-03-10') },
+  {
+    method: 'post',
+    path: '/api/shift-tasks/:taskId/done',
+    allowed: ['tech', 'charge', 'admin'],
+    alsoOk: [409], // the occurrence was ticked by a role before
+    prepare: async (h) => (await h.db('shift_tasks').where({ room_id: 1, key: 'wipe-start' }).first('id')).id,
+    send: (c, id) => c.post(`/api/shift-tasks/${id as number}/done`, { due: '2027-03-10T07:00:00-06:00' }),
+  },
 ];
 
 interface Exam {
@@ -102,4 +161,24 @@ interface Exam {
 async function firstExam(h: Harness): Promise<Exam> {
   const exam = await h.db('exams').where({ day: '2027-03-10' }).orderBy('id').first();
   return { id: exam.id, start: exam.start_at, version: exam.version };
+}
+
+/** An exam of the seeded day whose end is not recorded yet. */
+async function unfinishedExam(h: Harness): Promise<number> {
+  const exam = await h.db('exams').where({ day: '2027-03-10' }).whereNotIn('id', h.db('turnovers').select('from_exam_id')).orderBy('id').first('id');
+  return exam.id;
+}
+
+interface OpenTurnover {
+  id: number;
+  firstStep: string;
+}
+
+/** A fresh turnover (recorded by the demo technologist) and the first step of its checklist. */
+async function openTurnover(h: Harness): Promise<OpenTurnover> {
+  const user = await h.db('users').where({ username: 'tech' }).first('id', 'username', 'display_name', 'role');
+  const now = h.clock.now();
+  const ref = await finishExam(h.db, await unfinishedExam(h), { id: user.id, username: user.username, displayName: user.display_name, role: user.role }, now);
+  const checklist = await loadChecklist(h.db, ref.roomId, ref.day, now, ref.turnoverId);
+  return { id: ref.turnoverId, firstStep: checklist.steps[0]!.key };
 }

@@ -1,0 +1,92 @@
+import type { Knex } from 'knex';
+import { DateTime } from 'luxon';
+import { ValidationError } from '../errors';
+import { appendContactAchieved, appendLog } from './cleaning-log';
+import type { TurnoverRecord } from './room-day';
+import { assertOpen, loadTurnover, localIso, type TurnoverRef } from './turnovers';
+import { planRoomTurnover, type PlannedStep } from './turnover-plan';
+import type { UserRecord } from './users';
+
+const MINUTE = 60_000;
+
+/**
+ * Minutes each disinfected surface was left before it was next used: from the step's tick to
+ * the first later tick of a step that needs it dry, or else the turnover's completion (the
+ * next patient may use it from then on). Rounded down, so the log never claims more.
+ */
+export function contactAchieved(steps: readonly PlannedStep[], record: TurnoverRecord, completedMs: number): Map<string, number> {
+  const achieved = new Map<string, number>();
+  for (const step of steps) {
+    const tick = record.ticks.get(step.key);
+    if (!tick || step.productKey === null || tick.productKey === null) continue;
+    const uses = steps
+      .filter((s) => s.needs.some((n) => n.key === step.key && n.dry))
+      .map((s) => record.ticks.get(s.key)?.doneMs)
+      .filter((ms): ms is number => ms !== undefined && ms >= tick.doneMs);
+    const usedMs = Math.min(completedMs, ...uses);
+    achieved.set(step.key, Math.floor((usedMs - tick.doneMs) / MINUTE));
+  }
+  return achieved;
+}
+
+/**
+ * "Turnover complete": every step ticked and, after an airborne case, the air hold over (or
+ * an explicit override reason). The room shows `ready`; the log gets the completion entry
+ * and the contact time each surface achieved.
+ */
+export async function completeTurnover(db: Knex, turnoverId: number, overrideReason: string | undefined, user: UserRecord, now: Date): Promise<TurnoverRef> {
+  const { roomDay, record, leavingIndex, accession } = await loadTurnover(db, turnoverId);
+  const { zone } = roomDay;
+  assertOpen(record, zone);
+  const planned = planRoomTurnover(roomDay, leavingIndex, record.examEndedMs);
+  const missing = planned.steps.filter((s) => !record.ticks.has(s.key));
+  if (missing.length > 0) {
+    throw new ValidationError(`Not every step is done: ${missing.map((s) => `"${s.label}"`).join(', ')}.`, {
+      missing: missing.map((s) => s.key),
+      problems: missing.map((s) => ({ field: s.key, message: 'not done yet' })),
+    });
+  }
+  const nowMs = now.getTime();
+  const reason = overrideReason?.trim() || null;
+  const holdUntilMs = record.examEndedMs + planned.airHoldMinutes * MINUTE;
+  const early = planned.airHoldMinutes > 0 && holdUntilMs > nowMs;
+  if (early && !reason) {
+    const until = DateTime.fromMillis(holdUntilMs, { zone });
+    throw new ValidationError(`The air hold lasts until ${until.toFormat('HH:mm')}; give an override reason to make the room ready before then.`, {
+      airHoldUntil: until.toISO({ suppressMilliseconds: true }),
+      problems: [{ field: 'overrideReason', message: 'needed during the air hold' }],
+    });
+  }
+  const at = localIso(now, zone);
+  const achieved = contactAchieved(planned.steps, record, nowMs);
+  await db.transaction(async (trx) => {
+    const updated = await trx('turnovers')
+      .where({ id: turnoverId })
+      .whereNull('completed_at')
+      .update({ completed_at: at, completed_ms: nowMs, completed_by: user.id, override_reason: early ? reason : null });
+    if (updated === 0) assertOpen({ ...record, completedAt: at }, zone);
+    const entries: { id: number; step_key: string }[] = await trx('cleaning_log').where({ turnover_id: turnoverId, kind: 'step' }).select('id', 'step_key');
+    await appendContactAchieved(
+      trx,
+      entries.filter((e) => achieved.has(e.step_key)).map((e) => ({ entryId: e.id, minutes: achieved.get(e.step_key)! })),
+      at,
+    );
+    await appendLog(
+      trx,
+      {
+        at,
+        atMs: nowMs,
+        day: roomDay.day,
+        roomId: roomDay.room.id,
+        roomName: roomDay.room.name,
+        turnoverId,
+        examAccession: accession,
+        cleanType: record.cleanType,
+        kind: 'turnover complete',
+        earlyReason: early ? reason : null,
+      },
+      user,
+    );
+  });
+  return { turnoverId, roomId: roomDay.room.id, day: roomDay.day };
+}

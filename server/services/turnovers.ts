@@ -1,0 +1,75 @@
+import type { Knex } from 'knex';
+import { DateTime } from 'luxon';
+import { ConflictError, NotFoundError } from '../errors';
+import { appendLog } from './cleaning-log';
+import { loadRoomDays, type RoomDay, type TurnoverRecord } from './room-day';
+import { readSettings } from './settings';
+import { cleanTypeOf } from './turnover-plan';
+import type { UserRecord } from './users';
+
+/** Where a turnover lives, for the caller to answer with its checklist and announce the change. */
+export interface TurnoverRef {
+  turnoverId: number;
+  roomId: number;
+  day: string;
+}
+
+/** The site-local ISO text of an instant. */
+export function localIso(now: Date, zone: string): string {
+  return DateTime.fromJSDate(now, { zone }).toISO({ suppressMilliseconds: true })!;
+}
+
+/**
+ * "Exam finished": records the exam's actual end (now) and opens the turnover after it,
+ * logged as an `exam finished` entry. A second call for the same exam is a conflict.
+ */
+export async function finishExam(db: Knex, examId: number, user: UserRecord, now: Date): Promise<TurnoverRef> {
+  const { timezone: zone } = await readSettings(db);
+  return db.transaction(async (trx) => {
+    const exam = await trx('exams as e').join('rooms as r', 'r.id', 'e.room_id').where('e.id', examId).first('e.*', 'r.name as room_name');
+    if (!exam) throw new NotFoundError(`No exam ${examId}.`);
+    const recorded = await trx('turnovers').where({ from_exam_id: examId }).first();
+    if (recorded) throw new ConflictError(`The end of ${exam.accession} was already recorded at ${DateTime.fromISO(recorded.exam_ended_at, { zone }).toFormat('HH:mm')}.`);
+    const next = await trx('exams')
+      .where({ day: exam.day, room_id: exam.room_id })
+      .andWhere((q) => q.where('start_ms', '>', exam.start_ms).orWhere((q2) => q2.where('start_ms', exam.start_ms).andWhere('id', '>', exam.id)))
+      .first('id');
+    const at = localIso(now, zone);
+    const cleanType = cleanTypeOf(exam.precaution, Boolean(next));
+    const [turnoverId] = await trx('turnovers').insert({
+      day: exam.day,
+      room_id: exam.room_id,
+      from_exam_id: examId,
+      clean_type: cleanType,
+      precaution: exam.precaution,
+      exam_ended_at: at,
+      exam_ended_ms: now.getTime(),
+      ended_by: user.id,
+    });
+    await appendLog(
+      trx,
+      { at, atMs: now.getTime(), day: exam.day, roomId: exam.room_id, roomName: exam.room_name, turnoverId, examAccession: exam.accession, cleanType, kind: 'exam finished' },
+      user,
+    );
+    return { turnoverId: turnoverId as number, roomId: exam.room_id as number, day: exam.day as string };
+  });
+}
+
+/** A recorded turnover with its room's day, for checks against the plan and the ticks. */
+export async function loadTurnover(db: Knex, turnoverId: number): Promise<{ roomDay: RoomDay; record: TurnoverRecord; leavingIndex: number; accession: string }> {
+  const row = await db('turnovers').where({ id: turnoverId }).first('day', 'room_id');
+  if (!row) throw new NotFoundError(`No turnover ${turnoverId}.`);
+  const [roomDay] = await loadRoomDays(db, row.day, [row.room_id]);
+  const record = roomDay && [...roomDay.turnovers.values()].find((t) => t.id === turnoverId);
+  if (!roomDay || !record) throw new NotFoundError(`No turnover ${turnoverId}.`);
+  const leavingIndex = roomDay.slots.findIndex((s) => s.exam.id === record.fromExamId);
+  if (leavingIndex < 0) throw new ConflictError(`The exam before turnover ${turnoverId} has been moved out of ${roomDay.room.name}.`);
+  return { roomDay, record, leavingIndex, accession: roomDay.slots[leavingIndex]!.exam.accession };
+}
+
+/** Refuses to change a turnover that is already complete. */
+export function assertOpen(record: TurnoverRecord, zone: string): void {
+  if (record.completedAt) {
+    throw new ConflictError(`This turnover was completed at ${DateTime.fromISO(record.completedAt, { zone }).toFormat('HH:mm')}; add a correction to the log instead.`);
+  }
+}
