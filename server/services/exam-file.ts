@@ -1,3 +1,4 @@
+import { isUtf8 } from 'node:buffer';
 import { parse as parseCsv } from 'csv-parse/sync';
 import { Workbook, ValueType, type Cell } from 'exceljs';
 import { UnsupportedMediaTypeError, ValidationError } from '../errors';
@@ -19,6 +20,7 @@ const OLE2_MAGIC = Buffer.from([0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1])
 // date system); exceljs turns them into Dates as if that day were UTC.
 const EXCEL_EPOCH_DAYS = [Date.UTC(1899, 11, 30), Date.UTC(1904, 0, 1)];
 const MINUTE = 60_000;
+const UTF8_BOM = Buffer.from([0xef, 0xbb, 0xbf]);
 
 /**
  * Reads an uploaded exam list into a table of text cells (`table[0]` is the header) for
@@ -47,20 +49,20 @@ export async function readExamFile(file: UploadedExamFile): Promise<string[][]> 
   else if (extension === 'xlsx' || file.mimetype === XLSX_MIMETYPE) throw damagedWorkbook();
   else table = readCsv(buffer);
 
-  const withData = table.filter((cells) => cells.length > 0);
-  if (withData.length === 0) throw new ValidationError('The file is empty.');
-  if (withData.length === 1) throw new ValidationError('The file has a header row but no exams.');
+  const withData = rowsWithData(table, 2);
+  if (withData === 0) throw new ValidationError('The file is empty.');
+  if (withData === 1) throw new ValidationError('The file has a header row but no exams.');
   return table;
 }
 
 function readCsv(buffer: Buffer): string[][] {
   if (looksBinary(buffer)) throw new UnsupportedMediaTypeError(`The file is neither text nor an .xlsx workbook. ${ACCEPTED}`);
-  let text: string;
-  try {
-    text = new TextDecoder('utf-8', { fatal: true }).decode(buffer);
-  } catch {
+  if (!isUtf8(buffer)) {
     throw new ValidationError('The file is not UTF-8 text. In Excel choose "CSV UTF-8" when saving, or upload the .xlsx.');
   }
+  // csv-parse reads bytes (a string would be encoded back to them), so the file goes in as it
+  // came, less one byte-order mark, as decoding to text would have dropped.
+  const text = startsWith(buffer, UTF8_BOM) ? buffer.subarray(UTF8_BOM.length) : buffer;
   try {
     const records: string[][] = parseCsv(text, {
       bom: true,
@@ -138,7 +140,15 @@ function dateText(value: Date): string {
 function dropTrailingEmpty(cells: string[]): string[] {
   let end = cells.length;
   while (end > 0 && cells[end - 1].trim() === '') end--;
-  return cells.slice(0, end);
+  // Most rows have nothing to drop; reusing them spares a copy of every row of a big file.
+  return end === cells.length ? cells : cells.slice(0, end);
+}
+
+// Counts only as far as needed: a big file is known to hold exams after its second filled row.
+function rowsWithData(table: string[][], enough: number): number {
+  let count = 0;
+  for (let i = 0; i < table.length && count < enough; i++) if (table[i].length > 0) count++;
+  return count;
 }
 
 function startsWith(buffer: Buffer, magic: Buffer): boolean {
@@ -148,7 +158,9 @@ function startsWith(buffer: Buffer, magic: Buffer): boolean {
 // Text never holds NUL; a few stray control characters may come from a spreadsheet export.
 function looksBinary(buffer: Buffer): boolean {
   let control = 0;
-  for (const byte of buffer) {
+  // Indexed, not for…of: a Buffer's iterator costs ~20 ms on a 1 MB file.
+  for (let i = 0; i < buffer.length; i++) {
+    const byte = buffer[i];
     if (byte === 0) return true;
     if (byte < 0x20 && byte !== 0x09 && byte !== 0x0a && byte !== 0x0d && byte !== 0x0c) control++;
   }

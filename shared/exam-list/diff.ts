@@ -1,4 +1,5 @@
 import { DateTime } from 'luxon';
+import { canonicalInstant } from '../turnover/zoned-time';
 import type { ExamListColumn } from './columns';
 import type { ExamListRow } from './model';
 
@@ -33,7 +34,7 @@ export interface ExamListDiff {
 const COMPARED: { column: ExamListColumn; same: (a: ExamListKeyed, b: ExamListKeyed) => boolean }[] = [
   { column: 'room', same: (a, b) => a.room === b.room },
   // Compared as instants, so 08:00-05:00 and 13:00Z are the same start.
-  { column: 'start', same: (a, b) => DateTime.fromISO(a.start).toMillis() === DateTime.fromISO(b.start).toMillis() },
+  { column: 'start', same: (a, b) => instant(a.start) === instant(b.start) },
   { column: 'duration_min', same: (a, b) => a.durationMinutes === b.durationMinutes },
   { column: 'procedure', same: (a, b) => a.procedure === b.procedure },
   // A missing value may be stored as null or as an empty string; both mean "none".
@@ -43,6 +44,12 @@ const COMPARED: { column: ExamListColumn; same: (a: ExamListKeyed, b: ExamListKe
   { column: 'contrast', same: (a, b) => a.contrast === b.contrast },
   { column: 'notes', same: (a, b) => (a.notes ?? '') === (b.notes ?? '') },
 ];
+
+// Stored and imported starts are nearly always the canonical form, read without luxon's cost.
+function instant(iso: string): number {
+  const ms = canonicalInstant(iso);
+  return Number.isNaN(ms) ? DateTime.fromISO(iso).toMillis() : ms;
+}
 
 /**
  * Compares the stored day list with an incoming one, keyed by accession (unique within each

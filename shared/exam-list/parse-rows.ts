@@ -1,8 +1,9 @@
 import { IANAZone, DateTime } from 'luxon';
-import { EXAM_LIST_COLUMNS, type ExamListColumn } from './columns';
-import { columnLetter, readHeader, type ExamListHeader } from './header';
+import type { ExamListColumn, Mobility, Precaution } from './columns';
+import { readHeader, type ExamListHeader } from './header';
 import type { ExamListIssue, ExamListOptions, ExamListResult, ExamListRow } from './model';
-import { examRowSchema, type ExamListCells } from './row-schema';
+import { CellProblem, examRowChecks, type Checked, type CheckedStart } from './cell-checks';
+import { cellsByColumn, strayCells, trimmedCells } from './row-cells';
 
 /**
  * Checks the day's exam list, given as a table of cells with the header in `table[0]`, and
@@ -27,7 +28,7 @@ export function parseExamTable(table: string[][], options: ExamListOptions): Exa
     return { rows: [], errors: [{ row: 1, column: '', message: 'The first row must be the header, e.g. accession,room,start,duration_min,procedure.' }], warnings: [] };
   }
   const header = readHeader(table[0]);
-  const schema = examRowSchema(options);
+  const checks = examRowChecks(options);
   const rows: ExamListRow[] = [];
   const errors: ExamListIssue[] = [...header.errors];
   const warnings: ExamListIssue[] = [...header.warnings];
@@ -36,19 +37,23 @@ export function parseExamTable(table: string[][], options: ExamListOptions): Exa
 
   table.slice(1).forEach((rawCells, index) => {
     const row = index + 2;
-    const cells = rawCells.map((cell) => (cell ?? '').trim());
-    if (isBlank(cells)) return;
+    const cells = trimmedCells(rawCells);
+    if (cells === null) return;
     dataRows += 1;
     const rowErrors = strayCells(cells, header, row);
-
     const record = cellsByColumn(cells, header);
-    const parsed = schema.safeParse(record);
-    if (!parsed.success) {
-      for (const issue of parsed.error.issues) {
-        const column = String(issue.path[0] ?? '');
-        if (!header.missing.includes(column as ExamListColumn)) rowErrors.push({ row, column, message: issue.message });
-      }
-    }
+    const problems = new RowProblems(row, header, rowErrors);
+    const accessionValue = problems.take('accession', checks.accession(record.accession));
+    const room = problems.take('room', checks.room(record.room));
+    const start = problems.take('start', checks.start(record.start));
+    const durationMinutes = problems.take('duration_min', checks.duration_min(record.duration_min));
+    const procedure = problems.take('procedure', checks.procedure(record.procedure));
+    const coil = problems.take('coil', checks.coil(record.coil));
+    const precaution = problems.take('precaution', checks.precaution(record.precaution));
+    const mobility = problems.take('mobility', checks.mobility(record.mobility));
+    const contrast = problems.take('contrast', checks.contrast(record.contrast));
+    const notes = problems.take('notes', checks.notes(record.notes));
+
     const accession = record.accession;
     const firstRow = firstRowOfAccession.get(accession);
     if (accession !== '' && firstRow !== undefined) {
@@ -57,22 +62,22 @@ export function parseExamTable(table: string[][], options: ExamListOptions): Exa
       firstRowOfAccession.set(accession, row);
     }
 
-    errors.push(...sortByColumn(rowErrors, header));
-    if (!parsed.success || rowErrors.length > 0 || header.missing.length > 0) return;
-    const value = parsed.data;
-    if (value.start.warning) warnings.push({ row, column: 'start', message: value.start.warning });
+    if (rowErrors.length > 0) errors.push(...sortByColumn(rowErrors, header));
+    if (problems.any || rowErrors.length > 0 || header.missing.length > 0) return;
+    const checked = start as CheckedStart;
+    if (checked.warning) warnings.push({ row, column: 'start', message: checked.warning });
     rows.push({
       row,
-      accession: value.accession,
-      room: value.room,
-      start: value.start.start,
-      durationMinutes: value.duration_min,
-      procedure: value.procedure,
-      coil: value.coil,
-      precaution: value.precaution,
-      mobility: value.mobility,
-      contrast: value.contrast,
-      notes: value.notes,
+      accession: accessionValue as string,
+      room: room as string,
+      start: checked.start,
+      durationMinutes: durationMinutes as number,
+      procedure: procedure as string,
+      coil: coil as string | null,
+      precaution: precaution as Precaution,
+      mobility: mobility as Mobility,
+      contrast: contrast as boolean,
+      notes: notes as string | null,
     });
   });
 
@@ -93,22 +98,21 @@ function isBlank(cells: string[]): boolean {
   return cells.every((cell) => (cell ?? '').trim() === '');
 }
 
-function cellsByColumn(cells: string[], header: ExamListHeader): ExamListCells {
-  const record = {} as ExamListCells;
-  for (const { name } of EXAM_LIST_COLUMNS) {
-    const position = header.positions[name];
-    record[name] = position === undefined ? '' : (cells[position] ?? '');
-  }
-  return record;
-}
+/** Collects a row's cell problems as issues; a column the header lacks was reported once on row 1. */
+class RowProblems {
+  any = false;
+  constructor(
+    private readonly row: number,
+    private readonly header: ExamListHeader,
+    private readonly issues: ExamListIssue[],
+  ) {}
 
-// Data under no header is usually a comma inside an unquoted value that shifted the row.
-function strayCells(cells: string[], header: ExamListHeader, row: number): ExamListIssue[] {
-  return cells.flatMap((cell, index) =>
-    cell === '' || header.named.has(index)
-      ? []
-      : [{ row, column: columnLetter(index), message: `Cell ${columnLetter(index)}${row} holds "${cell.slice(0, 40)}" but its column has no header; a comma inside a value needs "quotes".` }],
-  );
+  take<T>(column: ExamListColumn, result: Checked<T>): T | undefined {
+    if (!(result instanceof CellProblem)) return result;
+    this.any = true;
+    if (!this.header.missing.includes(column)) this.issues.push({ row: this.row, column, message: result.message });
+    return undefined;
+  }
 }
 
 // Errors read left to right as the file shows them; the duplicate check runs last but belongs to accession.
