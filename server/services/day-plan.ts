@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
-import { computeDayPlan, type DayPlanExam, type DayPlanInput } from '../../shared/turnover';
-import type { DayPlan } from '../../shared/api/plan';
+import { computeDayPlan, computeDaySummary, type DayPlanExam, type DayPlanInput } from '../../shared/turnover';
+import type { DayPlan, PlanSummary } from '../../shared/api/plan';
 import type { Room } from '../../shared/api/rooms';
 import { examsOfDay, toPlanExam } from './exams';
 import { listRooms } from './rooms';
@@ -23,14 +23,17 @@ export async function loadDayPlanInput(db: Knex, day: string): Promise<DayPlanIn
   return dayPlanInput(day, settings, rooms, exams.map(toPlanExam), staffOverrides);
 }
 
-/** Computes a plan for given exams (stored or would-be), with the site's settings. */
-export function planFor(
+/**
+ * The verdict counts a would-be list (an import preview) gives, with the site's settings; only
+ * the summary is needed, so the steps' clock times are never written out.
+ */
+export function summaryFor(
   day: string,
   settings: { timezone: string; snugMarginMinutes: number },
   rooms: Room[],
   exams: DayPlanExam[],
-): DayPlan {
-  return computeDayPlan(dayPlanInput(day, settings, rooms, exams, {}));
+): PlanSummary {
+  return computeDaySummary(dayPlanInput(day, settings, rooms, exams, {}));
 }
 
 function dayPlanInput(

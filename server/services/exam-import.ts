@@ -1,10 +1,11 @@
 import type { Knex } from 'knex';
 import { diffExamLists, parseExamTable, type ExamListRow } from '../../shared/exam-list';
 import type { ImportResult } from '../../shared/api/import';
-import { computeDaySummary, type DayPlanExam } from '../../shared/turnover';
+import type { DayPlanExam } from '../../shared/turnover';
 import { ValidationError } from '../errors';
 import { examColumns, examsOfDay, toListed } from './exams';
 import { readExamFile, type UploadedExamFile } from './exam-file';
+import { summaryFor } from './day-plan';
 import { listRooms } from './rooms';
 import { readSettings } from './settings';
 
@@ -46,16 +47,7 @@ export async function importExamList(db: Knex, req: ImportRequest): Promise<Impo
     parsed.rows,
   );
   const wouldBe = parsed.rows.map((row, i) => wouldBeExam(row, -(i + 1), roomIdByName.get(row.room)!));
-  // Only the summary is shown, so the plan is judged without writing out ~130,000 step times.
-  // Same input as planFor: every row names a listed room, so none is filtered out.
-  const summary = computeDaySummary({
-    date: req.day,
-    timezone: settings.timezone,
-    snugMarginMinutes: settings.snugMarginMinutes,
-    rooms,
-    exams: wouldBe,
-    staffOverrides: {},
-  });
+  const summary = summaryFor(req.day, settings, rooms, wouldBe);
   const result: ImportResult = {
     dryRun: req.dryRun,
     date: req.day,
