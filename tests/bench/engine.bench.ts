@@ -4,7 +4,7 @@ import { computeDayPlan, MOBILITIES, PRECAUTIONS } from '../../shared/turnover';
 const ROOMS = 100;
 const EXAMS = 10_000;
 const WARM_UP_RUNS = 2;
-const WARM_RUNS = 5;
+const WARM_RUNS = 15;
 const TARGET_MS = 50;
 
 /** Deterministic pseudo-random numbers (mulberry32), so every run plans the same invented day. */
