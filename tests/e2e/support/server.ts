@@ -15,6 +15,8 @@ export interface TestServer {
   /** e.g. `http://127.0.0.1:41234`, no trailing slash. */
   baseUrl: string;
   db: Knex;
+  /** The server's clock when started with `now`: tests move it on (a surface dries); absent on real time. */
+  clock?: ReturnType<typeof fixedClock>;
   close(): Promise<void>;
 }
 
@@ -36,7 +38,8 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
   }
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'turnwise-e2e-'));
   const db = createDb(path.join(dir, 'e2e.sqlite'));
-  const clock = options.now ? fixedClock(options.now) : systemClock;
+  const settable = options.now ? fixedClock(options.now) : undefined;
+  const clock = settable ?? systemClock;
   await migrateToLatest(db);
   await seedReferenceData(db);
   await seedDemo(db, clock.now(), { day: options.seedDay ?? true });
@@ -59,6 +62,7 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
   return {
     baseUrl: `http://127.0.0.1:${port}`,
     db,
+    clock: settable,
     async close() {
       // Chromium keeps idle keep-alive sockets open, which would hold server.close() forever.
       server.closeAllConnections();

@@ -98,6 +98,10 @@ describe('RoomsNow', () => {
     expect(text(first.querySelector('.overdue'))).toBe('Overdue: Daily scanner QA (due 07:00)');
     // A room in exam does not count down: its ready-at moves with the exam's real end.
     expect(cards(page)[1].querySelector('.countdown')).toBeNull();
+    // Only a room in exam says which exam is on; a turning-over room's current exam has left.
+    expect(text(cards(page)[1].querySelector('.current .accession'))).toBe('ACC-1021');
+    expect(text(cards(page)[1].querySelector('.current .ends'))).toBe('slot ends 09:20');
+    expect(first.querySelector('.current')).toBeNull();
   });
 
   it('counts down with the clock and says when a room runs late', async () => {

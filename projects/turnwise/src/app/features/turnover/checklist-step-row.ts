@@ -30,6 +30,8 @@ export class ChecklistStepRow {
   readonly now = input.required<number>();
   /** Off until the exam has left the room (or while a call is on its way). */
   readonly enabled = input(true);
+  /** A read-only preview (the opening before the first exam): no product or Done at all. */
+  readonly preview = input(false);
   /** The server said the surface is still wet: ask for the reason even if this screen thought it dry. */
   readonly askReason = input(false);
 
@@ -43,6 +45,14 @@ export class ChecklistStepRow {
   protected readonly wet = computed(() => wetSurfaces(this.step(), this.steps(), this.now()));
   protected readonly waitsFor = computed(() => notYetDone(this.step(), this.steps()));
   protected readonly disinfects = computed(() => this.step().productKey !== null);
+  /** The contact time of the product picked (or used, once done), not only the protocol's default. */
+  protected readonly contactMinutes = computed(() => {
+    const step = this.step();
+    const key = step.done ? step.done.productKey : this.productKey();
+    return this.products().find((product) => product.key === key)?.contactMinutes ?? step.contactMinutes;
+  });
+  /** With two or more people on the turnover each row says whose step it is in the plan. */
+  protected readonly shared = computed(() => this.steps().some((step) => step.planned.person > 1));
 
   /** "wet until 10:42 (3:20 left)" while the step's own surface is wet; null once dry or with no wait. */
   protected readonly wetLeft = computed(() => {

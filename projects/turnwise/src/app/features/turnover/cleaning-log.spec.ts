@@ -41,7 +41,8 @@ function entry(id: number, overrides: Partial<LogEntry> = {}): LogEntry {
 
 // Invented: one step ticked early (contact short of the label's), and a correction of it.
 const ENTRIES = [
-  entry(8, { kind: 'correction', stepKey: null, stepLabel: null, productName: null, contactRequiredMinutes: null, contactAchievedMinutes: null, note: 'Product was the sporicidal wipe', correctsId: 7, at: at('10:50') }),
+  // As the server writes a correction: it copies the step it is about and adds the note.
+  entry(8, { kind: 'correction', productName: null, contactRequiredMinutes: null, contactAchievedMinutes: null, note: 'Product was the sporicidal wipe', correctsId: 7, at: at('10:50') }),
   entry(7, { earlyReason: 'Patient waiting on a stretcher', contactAchievedMinutes: 1 }),
 ];
 
@@ -96,6 +97,8 @@ describe('CleaningLog', () => {
     expect(text(rows(page)[0].querySelector('.links'))).toBe('corrects #7');
     expect(text(rows(page)[1].querySelector('.links'))).toBe('corrected by #8');
     expect(rows(page)[1].id).toBe('log-7');
+    // the step is copied onto the correction; its note must still show
+    expect(text(rows(page)[0].querySelector('.mat-column-step'))).toBe('Table top and rails Product was the sporicidal wipe');
   });
 
   it('says entries are never edited or deleted, and offers no way to do either', async () => {

@@ -37,6 +37,10 @@ export class TurnoverClose {
     const until = this.checklist().airHoldUntil;
     return isAhead(until, this.now()) ? countdown(until!, this.now()) : null;
   });
+  /** Surfaces still wet: closing now lets the next patient use them before their contact time is up. */
+  protected readonly stillWet = computed(() =>
+    this.checklist().steps.filter((step) => step.done && isAhead(step.wetUntil, this.now())).map((step) => ({ label: step.label, until: step.wetUntil! })),
+  );
   protected readonly canComplete = computed(() => {
     const c = this.checklist();
     return c.turnoverId !== null && c.completedAt === null && this.missing() === 0 && !this.busy();

@@ -43,7 +43,8 @@ import { SiteTime } from '../../shared/ui/site-time';
       </section>
     </div>
     <p class="clean">
-      <strong>{{ c.cleanType }} clean</strong>, {{ c.staff }} {{ c.staff === 1 ? 'person' : 'people' }} ·
+      <strong>{{ c.cleanType }} clean</strong>
+      <span>· {{ c.staff }} {{ c.staff === 1 ? 'person' : 'people' }} ·</span>
       <tw-precaution-label [precaution]="c.precaution" />
     </p>
     @if (c.leaving && !c.examEndedAt) {

@@ -83,8 +83,12 @@ describe('Turnover', () => {
     const { page, backend, fixture } = await render(exampleChecklist({ steps: [ticked(clear, '10:32'), table, linen] }));
     const select = row(page, 'table').querySelector('select')!;
     expect(select.value).toBe('standard');
+    expect(text(row(page, 'table').querySelector('.contact'))).toBe('2 min contact');
     select.value = 'sporicidal';
     select.dispatchEvent(new Event('change'));
+    await settle(fixture);
+    // The contact time shown follows the product picked (sporicidal: 4 min in the example products).
+    expect(text(row(page, 'table').querySelector('.contact'))).toBe('4 min contact');
     button(row(page, 'table'), 'button.tick').click();
     const request = backend.expectOne('/api/turnovers/9/steps/table/done');
     expect(request.request.body).toEqual({ productKey: 'sporicidal' });
@@ -205,6 +209,39 @@ describe('Turnover', () => {
     request.flush({ task: { ...task, doneAt: at('10:31'), doneBy: 'Robin Example', overdue: false } });
     await settle(fixture);
     expect(text(page.querySelector('tw-shift-task-list li'))).toContain('Done 10:31 by Robin Example');
+  });
+  it('explains that the opening is a preview, with no Done buttons and no close', async () => {
+    const opening = exampleChecklist({ turnoverId: null, leaving: null, examEndedAt: null, now: at('06:50'), steps: [clear, table] });
+    const { page } = await render(opening);
+    expect(text(page.querySelector('.hint.opening'))).toContain('the first turnover starts when an exam is finished');
+    expect(page.querySelector('button.tick')).toBeNull();
+    expect(row(page, 'table').querySelector('select')).toBeNull();
+    expect(page.querySelector('tw-turnover-close')).toBeNull();
+    expect(text(row(page, 'table'))).toContain('planned');
+  });
+
+  it('keeps saying the turnover is complete after the checklist moves on to the next one', async () => {
+    const steps = [ticked(clear, '10:32'), ticked(table, '10:34', at('10:38')), ticked(linen, '10:39')];
+    const { page, backend, events, fixture } = await render(exampleChecklist({ steps, now: at('10:40') }));
+    button(page, 'button.complete-turnover').click();
+    await answer(fixture, backend.expectOne('/api/turnovers/9/complete'), exampleChecklist({ steps, completedAt: at('10:40') }));
+    // The stream announces the completion; the room's checklist is now the next exam's, not yet finished.
+    events.sources[0].change({ kind: 'board', reason: 'turnover complete' });
+    const next = exampleChecklist({ turnoverId: null, examEndedAt: null, leaving: exampleChecklist().arriving, arriving: null });
+    await answer(fixture, backend.expectOne(checklistUrl(1)), next);
+    expect(text(page.querySelector('.closed-note'))).toBe('Turnover after ACC-2041 complete at 10:40: MR 1 shows ready on the board.');
+    expect(page.querySelector('button.exam-finished')).not.toBeNull();
+  });
+
+  it('does not ask for a reason when the server says a needed step is not done yet', async () => {
+    const { page, backend, fixture } = await render(exampleChecklist({ steps: [ticked(clear, '10:32'), table, linen] }));
+    button(row(page, 'linen'), 'button.tick').click();
+    backend
+      .expectOne('/api/turnovers/9/steps/linen/done')
+      .flush({ error: { code: 'validation_failed', message: 'Tick "Table top and rails" first.' } }, { status: 422, statusText: 'x' });
+    await settle(fixture);
+    expect(text(page.querySelector('[role="alert"]'))).toBe('Tick "Table top and rails" first.');
+    expect(row(page, 'linen').querySelector('.reason input')).toBeNull();
   });
 });
 

@@ -16,7 +16,9 @@ import { DayEvents, DayStreamStatus } from '../../shared/ui/day-events';
 import { dayRefreshes } from '../../shared/ui/day-refresh';
 import { LiveIndicator } from '../../shared/ui/live-indicator';
 import { SiteSettingsService } from '../../shared/ui/site-settings-service';
+import { SiteTime } from '../../shared/ui/site-time';
 import { ChecklistStepRow } from './checklist-step-row';
+import { notYetDone } from './step-readiness';
 import { readLastRoom, rememberRoom } from './last-room';
 import { ShiftTaskList } from './shift-task-list';
 import { TurnoverClose } from './turnover-close';
@@ -29,7 +31,7 @@ import { TurnoverTabs } from './turnover-tabs';
   selector: 'tw-turnover',
   imports: [
     MatFormFieldModule, MatIconModule, MatInputModule,
-    CautionNote, ChecklistStepRow, LiveIndicator, ShiftTaskList, TurnoverClose, TurnoverExams, TurnoverTabs,
+    CautionNote, ChecklistStepRow, LiveIndicator, ShiftTaskList, SiteTime, TurnoverClose, TurnoverExams, TurnoverTabs,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './turnover.html',
@@ -52,6 +54,11 @@ export class Turnover {
   protected readonly busy = signal(false);
   /** The step the server refused as still wet, so its row asks for a reason. */
   protected readonly reasonFor = signal<string | null>(null);
+  /**
+   * The turnover this screen just closed. The room's checklist moves on to the next turnover as
+   * soon as the day's stream says so, which would otherwise hide that the close went through.
+   */
+  protected readonly justCompleted = signal<{ roomId: number; accession: string | null; at: string; roomName: string } | null>(null);
   private readonly skew = signal(0);
   /** The error shown came from fetching, so the next good fetch clears it (an action's error stays). */
   private fetchFailed = false;
@@ -61,6 +68,15 @@ export class Turnover {
     const rooms = this.rooms();
     const wanted = Number(this.room() ?? readLastRoom());
     return rooms.some((room) => room.id === wanted) ? wanted : (rooms[0]?.id ?? null);
+  });
+
+  /**
+   * The opening before the day's first exam: a read-only preview, since a turnover only opens
+   * with "Exam finished"; what the technologist does now is the shift tasks.
+   */
+  protected readonly opening = computed(() => {
+    const c = this.checklist();
+    return !!c && c.turnoverId === null && !c.leaving && !!c.arriving;
   });
 
   /** Steps can be ticked once the exam has left (or at the opening) and the turnover is open. */
@@ -88,6 +104,7 @@ export class Turnover {
         filter((at): at is { roomId: number; date: string } => at.roomId !== null && at.date !== null),
         tap(({ roomId }) => {
           this.checklist.set(null);
+          if (this.justCompleted()?.roomId !== roomId) this.justCompleted.set(null);
           rememberRoom(roomId);
         }),
         switchMap(({ roomId, date }) =>
@@ -106,21 +123,31 @@ export class Turnover {
   }
 
   protected examFinished(examId: number): void {
+    this.justCompleted.set(null);
     this.act(this.service.examFinished(examId));
   }
 
   protected tick(stepKey: string, tick: StepTick): void {
-    const id = this.checklist()?.turnoverId;
-    if (id == null) return;
-    this.act(this.service.stepDone(id, stepKey, tick), (error) => {
-      // A 422 without a reason is the server finding the surface still wet by its clock.
-      if (error.status === 422 && !tick.earlyReason) this.reasonFor.set(stepKey);
+    const checklist = this.checklist();
+    const step = checklist?.steps.find((candidate) => candidate.key === stepKey);
+    if (checklist?.turnoverId == null || !step) return;
+    // A 422 is about wetness only when every surface the step needs dry has been ticked (the
+    // server's clock finds one still wet); otherwise it says which step to tick first, and a
+    // reason field would not help.
+    const mayBeWet = step.needsDry.length > 0 && notYetDone(step, checklist.steps).length === 0;
+    this.act(this.service.stepDone(checklist.turnoverId, stepKey, tick), (error) => {
+      if (error.status === 422 && !tick.earlyReason && mayBeWet) this.reasonFor.set(stepKey);
     });
   }
 
   protected complete(overrideReason: string | undefined): void {
     const id = this.checklist()?.turnoverId;
-    if (id != null) this.act(this.service.complete(id, overrideReason));
+    if (id == null) return;
+    this.act(this.service.complete(id, overrideReason), undefined, (closed) => {
+      if (closed.completedAt) {
+        this.justCompleted.set({ roomId: closed.roomId, accession: closed.leaving?.accession ?? null, at: closed.completedAt, roomName: closed.roomName });
+      }
+    });
   }
 
   protected shiftTaskDone(task: BoardShiftTask): void {
@@ -134,13 +161,14 @@ export class Turnover {
     });
   }
 
-  private act(call: Observable<Checklist>, onError?: (error: ApiError) => void): void {
+  private act(call: Observable<Checklist>, onError?: (error: ApiError) => void, onDone?: (checklist: Checklist) => void): void {
     this.busy.set(true);
     this.reasonFor.set(null);
     call.subscribe({
       next: (checklist) => {
         this.show(checklist);
         this.settle(null);
+        onDone?.(checklist);
       },
       error: (error: ApiError) => {
         this.settle(error);
