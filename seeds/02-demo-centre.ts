@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import { hashPassword } from '../server/services/passwords';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './support/demo-accounts';
 import { seedDemoDay } from './support/demo-day';
+import { seedDemoHistory } from './support/demo-history';
 import { seedShiftTasks } from './support/demo-shift-tasks';
 
 /**
@@ -18,7 +19,7 @@ export const DEMO_ROOMS = [
   { name: 'CT 1', modality: 'CT', air_changes_per_hour: 12, staff: 1, opens_at: '07:00', closes_at: '19:00', sort_order: 4 },
 ];
 
-export async function seed(knex: Knex, now: Date = new Date(), options: { day?: boolean } = {}): Promise<void> {
+export async function seed(knex: Knex, now: Date = new Date(), options: { day?: boolean; history?: boolean } = {}): Promise<void> {
   const created = now.toISOString();
   const isFresh = (await knex('users').count({ n: '*' }))[0]!['n'] === 0;
   if (isFresh) {
@@ -43,4 +44,5 @@ export async function seed(knex: Knex, now: Date = new Date(), options: { day?: 
   }
   await seedShiftTasks(knex, now);
   if (options.day ?? true) await seedDemoDay(knex, now);
+  if (options.history) await seedDemoHistory(knex, now);
 }

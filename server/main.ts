@@ -9,7 +9,8 @@ async function main(): Promise<void> {
   const db = createDb(config.databaseFile);
   await migrateToLatest(db);
   await seedReferenceData(db);
-  if (config.demo) await seedDemo(db, systemClock.now());
+  // the demo day is played forward to now, so the board and log start from a believable state
+  if (config.demo) await seedDemo(db, systemClock.now(), { history: true });
 
   const app = createApp({
     db,

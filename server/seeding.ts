@@ -8,6 +8,6 @@ export async function seedReferenceData(db: Knex): Promise<void> {
 }
 
 /** The invented demo centre and today's day list (idempotent; demo mode only). */
-export async function seedDemo(db: Knex, now: Date, options: { day?: boolean } = {}): Promise<void> {
+export async function seedDemo(db: Knex, now: Date, options: { day?: boolean; history?: boolean } = {}): Promise<void> {
   await seedDemoCentre(db, now, options);
 }

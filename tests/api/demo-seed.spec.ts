@@ -32,3 +32,25 @@ describe('demo seed', () => {
     expect(await h.db('users').count({ n: '*' })).toEqual([{ n: 5 }]);
   });
 });
+
+describe('demo history', () => {
+  it('plays the day forward to now: past turnovers are finished, ticked and closed, later ones are untouched', async () => {
+    const h = await startHarness({ seedDay: true, now: '2027-06-02T19:30:00Z' }); // 14:30 in Chicago (CDT)
+    try {
+      await seedDemo(h.db, h.clock.now(), { history: true });
+      const turnovers = await h.db('turnovers').where({ day: '2027-06-02' });
+      expect(turnovers.length).toBeGreaterThan(8);
+      expect(turnovers.every((t) => Date.parse(t.exam_ended_at) <= h.clock.now().getTime())).toBe(true);
+      const exams = await h.db('exams').where({ day: '2027-06-02' });
+      const future = exams.filter((e) => Number(e.start_ms) > h.clock.now().getTime()).map((e) => e.id);
+      expect(turnovers.some((t) => future.includes(t.from_exam_id))).toBe(false);
+      const entries = await h.db('cleaning_log').count({ n: '*' });
+      expect(Number(entries[0]!['n'])).toBeGreaterThan(turnovers.length * 5);
+      // idempotent
+      await seedDemo(h.db, h.clock.now(), { history: true });
+      expect(await h.db('turnovers').where({ day: '2027-06-02' })).toHaveLength(turnovers.length);
+    } finally {
+      await h.close();
+    }
+  });
+});

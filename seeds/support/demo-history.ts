@@ -1,0 +1,45 @@
+import type { Knex } from 'knex';
+import { DateTime } from 'luxon';
+import { loadChecklist } from '../../server/services/checklist';
+import { completeTurnover } from '../../server/services/turnover-complete';
+import { tickStep } from '../../server/services/turnover-ticks';
+import { finishExam } from '../../server/services/turnovers';
+import { findActiveUser } from '../../server/services/users';
+import { readSettings } from '../../server/services/settings';
+
+/**
+ * Plays today's invented list forward to the moment of seeding, as the demo technologist would
+ * have worked it: each exam that has ended is recorded finished at its planned end, its turnover's
+ * steps ticked at their planned times and closed when ready. So the board, the checklist and the
+ * cleaning log start from a believable state instead of every room "in exam" and hours late.
+ * Only turnovers that would be complete by `now` are played; the rest is left to the user.
+ */
+export async function seedDemoHistory(knex: Knex, now: Date): Promise<void> {
+  const { timezone } = await readSettings(knex);
+  const day = DateTime.fromJSDate(now).setZone(timezone).toISODate()!;
+  if (await knex('turnovers').where({ day }).first()) return;
+  const techRow = await knex('users').where({ username: 'tech' }).first('id');
+  const tech = techRow && (await findActiveUser(knex, techRow.id));
+  if (!tech) return;
+  const exams: { id: number; room_id: number; start_ms: number; duration_minutes: number }[] = await knex('exams')
+    .where({ day })
+    .orderBy([{ column: 'room_id' }, { column: 'start_ms' }]);
+  const stoppedRooms = new Set<number>();
+  for (const exam of exams) {
+    const end = exam.start_ms + exam.duration_minutes * 60_000;
+    if (stoppedRooms.has(exam.room_id) || end > now.getTime()) continue;
+    const preview = await loadChecklist(knex, exam.room_id, day, new Date(end));
+    const readyMs = Math.max(Date.parse(preview.readyAt ?? ''), ...preview.steps.map((s) => Date.parse(s.planned.dryAt)));
+    if (!Number.isFinite(readyMs) || readyMs > now.getTime()) {
+      stoppedRooms.add(exam.room_id);
+      continue;
+    }
+    const { turnoverId } = await finishExam(knex, exam.id, tech, new Date(end));
+    const checklist = await loadChecklist(knex, exam.room_id, day, new Date(end), turnoverId);
+    for (const step of [...checklist.steps].sort((a, b) => Date.parse(a.planned.end) - Date.parse(b.planned.end))) {
+      await tickStep(knex, turnoverId, step.key, {}, tech, new Date(Date.parse(step.planned.end)));
+    }
+    const holdEnd = checklist.airHoldUntil ? Date.parse(checklist.airHoldUntil) : 0;
+    await completeTurnover(knex, turnoverId, undefined, tech, new Date(Math.max(readyMs, holdEnd)));
+  }
+}
