@@ -7,6 +7,7 @@ import type { DayPlan, PlanExam, PlanRoom } from '@shared/api/plan';
 import type { MoveReason } from './day-plan-service';
 import { DayPlanStore } from './day-plan-store';
 import { LANE_HEADER_PX, LANE_HEIGHT_PX } from './lane-size';
+import { LaneWindow } from './lane-window';
 import { previewMove } from './plan-preview';
 import { DragPointer, PointerDrag } from './pointer-drag';
 import { markStart, measureSinceStart } from './render-marks';
@@ -77,6 +78,8 @@ export class DayTimeline {
     const tz = this.plan().timezone;
     return movedWithoutGaps(rooms, move, siteIso(move.startMs, tz), siteIso(move.startMs + move.exam.durationMinutes * MINUTE, tz));
   });
+  /** Lanes drawn in full; the others show their header only until they come near the view. */
+  protected readonly lanesInView = new LaneWindow(this.plan);
   protected readonly status = computed(() => {
     const move = this.pending();
     if (!move) return '';
@@ -95,8 +98,16 @@ export class DayTimeline {
       const element = this.scroller().nativeElement;
       // Measured now, before the first scroll to "now", so that scroll uses the real scale.
       if (element.clientWidth > 0) this.viewportPx.set(Math.max(480, element.clientWidth));
+      this.lanesInView.seen(element);
+      // Passive and outside the template: a scroll only redraws when it reaches another lane.
+      const onScroll = () => this.lanesInView.seen(element);
+      element.addEventListener('scroll', onScroll, { passive: true });
+      destroyRef.onDestroy(() => element.removeEventListener('scroll', onScroll));
       if (typeof ResizeObserver === 'undefined') return;
-      const observer = new ResizeObserver(([entry]) => this.viewportPx.set(Math.max(480, entry.contentRect.width)));
+      const observer = new ResizeObserver(([entry]) => {
+        this.viewportPx.set(Math.max(480, entry.contentRect.width));
+        this.lanesInView.seen(element, entry.contentRect.height);
+      });
       observer.observe(element);
       destroyRef.onDestroy(() => observer.disconnect());
     });
@@ -134,6 +145,7 @@ export class DayTimeline {
     const block = (event.target as Element).closest<HTMLElement>('[data-exam-id]');
     const home = block && this.homes().get(Number(block.dataset['examId']));
     if (!home) return;
+    this.warmPreview(home.exam, home.room.id);
     this.drag?.end();
     this.drag = new PointerDrag(event, {
       frame: (at) => this.dragFrame(home.exam, home.room.id, at),
@@ -144,6 +156,16 @@ export class DayTimeline {
       },
       cancel: () => this.pending.set(null),
     });
+  }
+
+  /**
+   * Readies the engine while the button is still down: its input for the day and the turnovers
+   * of the pressed slot's room (kept in the engine's cache), so the first frame of the drag does
+   * not pay for them.
+   */
+  private warmPreview(exam: PlanExam, roomId: number): void {
+    const input = this.store.previewInput();
+    if (input) previewMove(input, { examId: exam.id, roomId, start: exam.start });
   }
 
   /** The would-be room and start under the pointer: 5-minute steps, and only lanes of the exam's modality. */
@@ -157,6 +179,9 @@ export class DayTimeline {
     const roomId = base[index].modality === modality ? base[index].id : (this.pending()?.roomId ?? originRoomId);
     const moved = Date.parse(exam.start) + ((at.x - at.x0) / this.scale().pxPerMinute) * MINUTE;
     const startMs = clampStart(snapToMinutes(moved), exam.durationMinutes, this.range());
+    const current = this.pending();
+    // Most frames move the pointer within the same 5-minute step: nothing to recompute or redraw.
+    if (current?.exam.id === exam.id && current.roomId === roomId && current.startMs === startMs) return measureSinceStart('tw-drag-frame');
     this.pending.set({ exam, roomId, startMs, reason: 'drag' });
     afterNextRender(() => measureSinceStart('tw-drag-frame'), { injector: this.injector });
   }
@@ -186,6 +211,7 @@ export class DayTimeline {
     }
     event.preventDefault();
     this.pending.set(next);
+    if (next) this.lanesInView.reveal(this.scroller().nativeElement, next.roomId);
     this.focusExam(home.exam.id);
   }
 

@@ -1,16 +1,13 @@
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 
-import type { PlanExam } from '@shared/api/plan';
-import { siteClock } from '../../shared/ui/site-time';
-import { examFlags } from './exam-flags';
-
-/** Below this width a block shows icons only; the words stay in its label and tooltip. */
-const COMPACT_PX = 150;
+import type { BlockView } from './lane-view';
 
 /**
- * One exam slot on a lane, placed by its start and length. Presentational: the timeline
- * listens for pointer and key events on the lanes and finds the block by `data-exam-id`.
+ * One exam slot on a lane, placed by its start and length: accession, then the time on a line of
+ * its own (never cut mid-number: the lane drops the end, then the time, when the block is narrow),
+ * procedure and flags. Presentational: the timeline listens for pointer and key events on the
+ * lanes and finds the block by `data-exam-id`.
  */
 @Component({
   selector: 'tw-exam-block',
@@ -21,49 +18,37 @@ const COMPACT_PX = 150;
     role: 'button',
     'aria-roledescription': 'exam slot',
     '[attr.tabindex]': '0',
-    '[attr.data-exam-id]': 'exam().id',
-    '[attr.aria-label]': 'label()',
+    '[attr.data-exam-id]': 'view().exam.id',
+    '[attr.aria-label]': 'view().label',
     '[attr.aria-describedby]': 'movable() ? "tw-move-hint" : null',
-    '[attr.title]': 'label()',
-    '[class.compact]': 'compact()',
+    '[attr.title]': 'view().label',
+    '[class.compact]': 'view().compact',
     '[class.movable]': 'movable()',
     '[class.moving]': 'moving()',
-    '[class.dimmed]': 'dimmed()',
-    '[class.outside]': 'exam().outsideHours',
-    '[style.left.px]': 'left()',
-    '[style.width.px]': 'width()',
+    '[class.dimmed]': 'view().dimmed',
+    '[class.outside]': 'view().exam.outsideHours',
+    '[style.left.px]': 'view().left',
+    '[style.width.px]': 'view().width',
   },
   template: `
-    <div class="line">
-      <span class="accession">{{ exam().accession }}</span>
-      <span class="time">{{ time() }}</span>
-    </div>
-    <div class="procedure">{{ exam().procedure }}</div>
-    <ul class="flags" aria-hidden="true">
-      @for (flag of flags(); track flag.kind) {
-        <li [class]="flag.kind"><mat-icon [svgIcon]="flag.icon" />@if (!compact()) {<span>{{ flag.text }}</span>}</li>
-      }
-    </ul>
+    @let v = view();
+    <div class="accession">{{ v.accession }}</div>
+    @if (v.time) {
+      <div class="time">{{ v.time }}</div>
+    }
+    <div class="procedure">{{ v.exam.procedure }}</div>
+    @if (v.flags.length) {
+      <ul class="flags" aria-hidden="true">
+        @for (flag of v.flags; track flag.kind) {
+          <li [class]="flag.kind"><mat-icon [svgIcon]="flag.icon" />@if (!v.compact) {<span>{{ flag.text }}</span>}</li>
+        }
+      </ul>
+    }
   `,
   styleUrl: './exam-block.scss',
 })
 export class ExamBlock {
-  readonly exam = input.required<PlanExam>();
-  readonly roomName = input.required<string>();
-  readonly left = input.required<number>();
-  readonly width = input.required<number>();
+  readonly view = input.required<BlockView>();
   readonly movable = input(false);
   readonly moving = input(false);
-  readonly dimmed = input(false);
-
-  protected readonly compact = computed(() => this.width() < COMPACT_PX);
-  protected readonly time = computed(() => `${siteClock(this.exam().start)}–${siteClock(this.exam().end)}`);
-  protected readonly flags = computed(() => examFlags(this.exam()));
-  /** "MR 2, 09:30–10:15, ACC-123, MR brain with contrast, contact precautions" */
-  protected readonly label = computed(() => {
-    const exam = this.exam();
-    const parts = [this.roomName(), this.time(), exam.accession, exam.procedure, ...this.flags().map((flag) => flag.text)];
-    if (exam.outsideHours) parts.push('outside opening hours');
-    return parts.join(', ');
-  });
 }

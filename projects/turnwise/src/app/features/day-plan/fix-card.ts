@@ -7,22 +7,38 @@ import { SiteTime } from '../../shared/ui/site-time';
 import { VerdictChip } from '../../shared/ui/verdict-chip';
 
 /**
+ * A fix that leaves its gap still short or overlapping: it helps, but does not fix the gap.
+ *
+ * @example
+ * isPartialFix({ ...fix, effect: { ...fix.effect, verdictAfter: 'short', shortByAfter: 8 } }); // true
+ */
+export function isPartialFix(fix: Pick<Fix, 'effect'>): boolean {
+  return fix.effect.shortByAfter > 0 || fix.effect.verdictAfter === 'short' || fix.effect.verdictAfter === 'overlap';
+}
+
+/**
  * One suggested fix: what it does, the gap's verdict afterwards, how the day's end moves and
- * whether it makes other gaps short. A fix that does asks once more before it is applied.
+ * whether it makes other gaps short. A fix that does asks once more before it is applied. A fix
+ * that only helps says so in its heading and its effect, so it is not taken for a full fix.
  */
 @Component({
   selector: 'tw-fix-card',
   imports: [MatButtonModule, MatIconModule, SiteTime, VerdictChip],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  host: { class: 'tw-fix-card', '[attr.data-fix-id]': 'fix().id' },
+  host: { class: 'tw-fix-card', '[attr.data-fix-id]': 'fix().id', '[class.partial]': 'partial()' },
   template: `
-    <h4>{{ fix().title }}</h4>
+    <h4>
+      @if (partial()) {
+        <span class="helps-tag">helps</span>
+      }
+      {{ fix().title }}
+    </h4>
     <p class="detail">{{ fix().detail }}</p>
     <ul class="effect">
       <li>
         Afterwards <tw-verdict-chip [verdict]="fix().effect.verdictAfter" />
-        @if (fix().effect.shortByAfter > 0) {
-          <span>still short by {{ fix().effect.shortByAfter }} min</span>
+        @if (partial()) {
+          <strong class="helps">helps: still short by {{ fix().effect.shortByAfter }} min</strong>
         }
       </li>
       <li>Day ends {{ fix().effect.dayEndsBefore | siteTime }} → {{ fix().effect.dayEndsAfter | siteTime }}</li>
@@ -53,6 +69,9 @@ import { VerdictChip } from '../../shared/ui/verdict-chip';
   styles: `
     :host { display: grid; gap: 6px; padding: 10px 12px; border-radius: var(--tw-radius-s); background: var(--mat-sys-surface); border: 1px solid var(--mat-sys-outline-variant); }
     h4 { margin: 0; font: var(--mat-sys-title-small); }
+    :host(.partial) { border-style: dashed; background: var(--mat-sys-surface-container-low); }
+    .helps-tag { margin-right: 6px; padding: 0 6px; border: 1px solid var(--tw-verdict-snug-ink); border-radius: 3px; color: var(--tw-verdict-snug-ink); font: var(--mat-sys-label-medium); }
+    .helps { color: var(--tw-verdict-short-ink); }
     .detail { margin: 0; }
     .effect { display: grid; gap: 4px; margin: 0; padding: 0; list-style: none; font: var(--mat-sys-body-small); }
     .effect li { display: flex; flex-wrap: wrap; align-items: center; gap: 6px; }
@@ -71,6 +90,7 @@ export class FixCard {
   readonly applied = output<boolean>();
 
   protected readonly risky = computed(() => this.fix().effect.newProblems > 0);
+  protected readonly partial = computed(() => isPartialFix(this.fix()));
   protected readonly confirming = signal(false);
 
   protected apply(): void {

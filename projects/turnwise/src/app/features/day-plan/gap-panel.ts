@@ -12,7 +12,7 @@ import { CautionKind, CautionNote } from '../../shared/ui/caution-note';
 import { SiteTime } from '../../shared/ui/site-time';
 import { VerdictChip } from '../../shared/ui/verdict-chip';
 import { DayPlanService } from './day-plan-service';
-import { FixCard } from './fix-card';
+import { FixCard, isPartialFix } from './fix-card';
 import { STAFF_RANGE } from './room-lane';
 
 type FixesState = { status: 'loading' } | { status: 'loaded'; fixes: Fix[] } | { status: 'failed'; message: string };
@@ -74,6 +74,13 @@ export class GapPanel {
     ),
     { initialValue: { status: 'loading' } as FixesState },
   );
+
+  /** Fixes that make the gap fit come first; those that only help (still short) after them. */
+  protected readonly orderedFixes = computed(() => {
+    const state = this.fixes();
+    if (state.status !== 'loaded') return [];
+    return [...state.fixes.filter((fix) => !isPartialFix(fix)), ...state.fixes.filter(isPartialFix)];
+  });
 
   constructor() {
     // Opening the panel takes the keyboard to it; Escape or Close brings it back to the timeline.

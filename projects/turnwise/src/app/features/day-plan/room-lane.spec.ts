@@ -1,0 +1,35 @@
+import { TestBed } from '@angular/core/testing';
+
+import { provideIcons } from '../../core/layout/icons';
+import { RoomLane } from './room-lane';
+import { exampleExam, exampleGap, exampleRoom } from './testing/example-plan';
+
+// Invented lane: MR 1 with one exam at 08:00 after its opening.
+const room = exampleRoom([exampleExam(1, '08:00', '08:30')], [exampleGap(null, 1, 'fits', { availableMinutes: 60, requiredMinutes: 7 })]);
+const scale = { startMs: Date.parse('2027-03-15T07:00:00-05:00'), endMs: Date.parse('2027-03-15T19:00:00-05:00'), pxPerMinute: 4, widthPx: 2880 };
+
+async function lane(drawn: boolean): Promise<HTMLElement> {
+  TestBed.configureTestingModule({ imports: [RoomLane], providers: [provideIcons()] });
+  const fixture = TestBed.createComponent(RoomLane);
+  fixture.componentRef.setInput('room', room);
+  fixture.componentRef.setInput('scale', scale);
+  fixture.componentRef.setInput('drawn', drawn);
+  await fixture.whenStable();
+  return fixture.nativeElement as HTMLElement;
+}
+
+describe('RoomLane', () => {
+  it('draws its slots and gaps when drawn, the header then being no tab stop of its own', async () => {
+    const page = await lane(true);
+    expect(page.querySelectorAll('tw-exam-block')).toHaveLength(1);
+    expect(page.querySelectorAll('tw-gap-marker')).toHaveLength(1);
+    expect(page.querySelector('.header')!.getAttribute('tabindex')).toBeNull();
+  });
+
+  it('shows only its header when not drawn, and keeps it a tab stop so focus can bring the lane into view', async () => {
+    const page = await lane(false);
+    expect(page.querySelectorAll('tw-exam-block, tw-gap-marker')).toHaveLength(0);
+    expect(page.querySelector('.header')!.textContent).toContain('MR 1');
+    expect(page.querySelector('.header')!.getAttribute('tabindex')).toBe('0');
+  });
+});
