@@ -49,12 +49,21 @@ export async function completeTurnover(db: Knex, turnoverId: number, overrideRea
   const nowMs = now.getTime();
   const reason = overrideReason?.trim() || null;
   const holdUntilMs = record.examEndedMs + planned.airHoldMinutes * MINUTE;
-  const early = planned.airHoldMinutes > 0 && holdUntilMs > nowMs;
+  const holding = planned.airHoldMinutes > 0 && holdUntilMs > nowMs;
+  // Ready means the next patient may touch every surface: one still wet has not had its contact time.
+  const wet = [...record.ticks.values()].filter((tick) => tick.doneMs + tick.waitMinutes * MINUTE > nowMs);
+  const early = holding || wet.length > 0;
   if (early && !reason) {
-    const until = DateTime.fromMillis(holdUntilMs, { zone });
-    throw new ValidationError(`The air hold lasts until ${until.toFormat('HH:mm')}; give an override reason to make the room ready before then.`, {
-      airHoldUntil: until.toISO({ suppressMilliseconds: true }),
-      problems: [{ field: 'overrideReason', message: 'needed during the air hold' }],
+    const hhmm = (ms: number) => DateTime.fromMillis(ms, { zone }).toFormat('HH:mm');
+    const labels = new Map(planned.steps.map((s) => [s.key, s.label]));
+    const why = [
+      ...(holding ? [`the air hold lasts until ${hhmm(holdUntilMs)}`] : []),
+      ...wet.map((tick) => `"${labels.get(tick.key) ?? tick.key}" stays wet until ${hhmm(tick.doneMs + tick.waitMinutes * MINUTE)}`),
+    ];
+    throw new ValidationError(`Not ready yet: ${why.join('; ')}. Give an override reason to make the room ready before then.`, {
+      airHoldUntil: holding ? DateTime.fromMillis(holdUntilMs, { zone }).toISO({ suppressMilliseconds: true }) : null,
+      wet: wet.map((tick) => tick.key),
+      problems: [{ field: 'overrideReason', message: 'needed during the air hold or while a surface is wet' }],
     });
   }
   const at = localIso(now, zone);

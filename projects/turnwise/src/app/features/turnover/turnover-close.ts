@@ -11,7 +11,8 @@ import { SiteTime } from '../../shared/ui/site-time';
 
 /**
  * The end of a turnover: ready-at as recomputed from what happened, the air hold countdown, and
- * "Turnover complete" once every step is done. Closing during an air hold needs a stated reason.
+ * "Turnover complete" once every step is done. Closing during an air hold or while a surface is
+ * still wet needs a stated reason.
  */
 @Component({
   selector: 'tw-turnover-close',
@@ -26,7 +27,7 @@ export class TurnoverClose {
   readonly now = input.required<number>();
   readonly busy = input(false);
 
-  /** The override reason when closing before the air hold ends, else undefined. */
+  /** The override reason when closing early (air hold, wet surface), else undefined. */
   readonly completed = output<string | undefined>();
 
   protected readonly overrideOpen = signal(false);
@@ -50,8 +51,14 @@ export class TurnoverClose {
     this.overrideReason.set((event.target as HTMLInputElement).value);
   }
 
+  /** Closing before the air hold ends or while a surface is wet needs a stated reason (the server asks too). */
+  protected readonly early = computed(() => this.holdLeft() !== null || this.stillWet().length > 0);
+  protected readonly reasonLabel = computed(() =>
+    this.holdLeft() !== null ? 'Why close before the air hold ends?' : 'Why close while surfaces are still wet?',
+  );
+
   protected complete(): void {
-    if (this.holdLeft() === null) {
+    if (!this.early()) {
       this.completed.emit(undefined);
     } else if (!this.overrideOpen()) {
       this.overrideOpen.set(true);

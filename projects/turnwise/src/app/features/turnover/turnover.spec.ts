@@ -152,11 +152,28 @@ describe('Turnover', () => {
     expect(row(page, 'linen').querySelector('.reason input')).not.toBeNull();
   });
 
+  it('asks for a reason before closing while a surface is still wet, and sends it', async () => {
+    const { page, backend, fixture } = await render(exampleChecklist({ steps: [ticked(clear, '10:32'), ticked(table, '10:34', at('10:59')), ticked(linen, '10:39')] }));
+    expect(text(page.querySelector('tw-turnover-close'))).toContain('wet until 10:59');
+    button(page, 'button.complete-turnover').click();
+    await settle(fixture);
+    backend.expectNone('/api/turnovers/9/complete');
+    const input = page.querySelector('tw-turnover-close .override input') as HTMLInputElement;
+    expect(text(page.querySelector('tw-turnover-close .override'))).toContain('Why close while surfaces are still wet?');
+    input.value = 'Next patient is a stretcher transfer; table covered with a fresh sheet';
+    input.dispatchEvent(new Event('input'));
+    await settle(fixture);
+    button(page, 'button.complete-turnover').click();
+    const request = backend.expectOne('/api/turnovers/9/complete');
+    expect(request.request.body).toEqual({ overrideReason: 'Next patient is a stretcher transfer; table covered with a fresh sheet' });
+  });
+
   it('enables "Turnover complete" only when every step is done, then shows the room ready', async () => {
     const { page, backend, events, fixture } = await render(exampleChecklist({ steps: [ticked(clear, '10:32'), table, linen] }));
     expect(button(page, 'button.complete-turnover').disabled).toBe(true);
     expect(text(page.querySelector('tw-turnover-close .hint'))).toBe('2 steps still to do.');
-    const allDone = exampleChecklist({ steps: [ticked(clear, '10:32'), ticked(table, '10:34', at('10:38')), ticked(linen, '10:39')] });
+    // every surface already dry (no wet-until), so closing needs no reason
+    const allDone = exampleChecklist({ steps: [ticked(clear, '10:32'), ticked(table, '10:34'), ticked(linen, '10:39')] });
     // The day's stream says something changed (a colleague ticked the rest): the checklist is fetched again.
     events.sources[0].change({ kind: 'log', reason: 'step done' });
     await answer(fixture, backend.expectOne(checklistUrl(1)), allDone);
