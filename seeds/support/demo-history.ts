@@ -6,6 +6,7 @@ import { tickStep } from '../../server/services/turnover-ticks';
 import { finishExam } from '../../server/services/turnovers';
 import { findActiveUser } from '../../server/services/users';
 import { readSettings } from '../../server/services/settings';
+import { markShiftTaskDone, shiftTasksOfDay } from '../../server/services/shift-tasks';
 
 /**
  * Plays today's invented list forward to the moment of seeding, as the demo technologist would
@@ -13,6 +14,7 @@ import { readSettings } from '../../server/services/settings';
  * steps ticked at their planned times and closed when ready. So the board, the checklist and the
  * cleaning log start from a believable state instead of every room "in exam" and hours late.
  * Only turnovers that would be complete by `now` are played; the rest is left to the user.
+ * Shift tasks whose time has passed are ticked at their due time.
  */
 export async function seedDemoHistory(knex: Knex, now: Date): Promise<void> {
   const { timezone } = await readSettings(knex);
@@ -41,5 +43,12 @@ export async function seedDemoHistory(knex: Knex, now: Date): Promise<void> {
     }
     const holdEnd = checklist.airHoldUntil ? Date.parse(checklist.airHoldUntil) : 0;
     await completeTurnover(knex, turnoverId, undefined, tech, new Date(Math.max(readyMs, holdEnd)));
+  }
+  const roomIds = [...new Set(exams.map((e) => e.room_id))];
+  for (const tasks of (await shiftTasksOfDay(knex, roomIds, day, timezone, now)).values()) {
+    for (const task of tasks) {
+      const doneAt = Date.parse(task.due) + task.durationMinutes * 60_000;
+      if (!task.doneAt && doneAt <= now.getTime()) await markShiftTaskDone(knex, task.taskId, task.due, tech, timezone, new Date(doneAt));
+    }
   }
 }
