@@ -3,7 +3,7 @@ import { DateTime } from 'luxon';
 import { ValidationError } from '../errors';
 import { appendContactAchieved, appendLog } from './cleaning-log';
 import type { TurnoverRecord } from './room-day';
-import { assertOpen, loadTurnover, localIso, type TurnoverRef } from './turnovers';
+import { assertOpen, loadTurnover, localIso, turnoverLogFields, type TurnoverRef } from './turnovers';
 import { planRoomTurnover, type PlannedStep } from './turnover-plan';
 import type { UserRecord } from './users';
 
@@ -83,14 +83,7 @@ export async function completeTurnover(db: Knex, turnoverId: number, overrideRea
     await appendLog(
       trx,
       {
-        at,
-        atMs: nowMs,
-        day: roomDay.day,
-        roomId: roomDay.room.id,
-        roomName: roomDay.room.name,
-        turnoverId,
-        examAccession: accession,
-        cleanType: record.cleanType,
+        ...turnoverLogFields(roomDay, record, accession, at, nowMs),
         kind: 'turnover complete',
         earlyReason: early ? reason : null,
       },

@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import { DateTime } from 'luxon';
 import { ConflictError, NotFoundError, ValidationError } from '../errors';
 import { appendLog } from './cleaning-log';
-import { assertOpen, loadTurnover, localIso, type TurnoverRef } from './turnovers';
+import { assertOpen, loadTurnover, localIso, turnoverLogFields, type TurnoverRef } from './turnovers';
 import { planRoomTurnover, productOf, PRODUCTS } from './turnover-plan';
 import type { UserRecord } from './users';
 
@@ -82,14 +82,7 @@ export async function tickStep(db: Knex, turnoverId: number, key: string, input:
     await appendLog(
       trx,
       {
-        at,
-        atMs: nowMs,
-        day: roomDay.day,
-        roomId: roomDay.room.id,
-        roomName: roomDay.room.name,
-        turnoverId,
-        examAccession: accession,
-        cleanType: record.cleanType,
+        ...turnoverLogFields(roomDay, record, accession, at, nowMs),
         kind: 'step',
         stepKey: key,
         stepLabel: step.label,

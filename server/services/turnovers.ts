@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import { DateTime } from 'luxon';
 import { ConflictError, NotFoundError } from '../errors';
-import { appendLog } from './cleaning-log';
+import { appendLog, type NewLogEntry } from './cleaning-log';
 import { loadRoomDays, type RoomDay, type TurnoverRecord } from './room-day';
 import { readSettings } from './settings';
 import { cleanTypeOf } from './turnover-plan';
@@ -72,4 +72,15 @@ export function assertOpen(record: TurnoverRecord, zone: string): void {
   if (record.completedAt) {
     throw new ConflictError(`This turnover was completed at ${DateTime.fromISO(record.completedAt, { zone }).toFormat('HH:mm')}; add a correction to the log instead.`);
   }
+}
+
+/** The log fields every entry of a recorded turnover shares (where, which exam, which clean, when). */
+export function turnoverLogFields(
+  roomDay: RoomDay,
+  record: TurnoverRecord,
+  accession: string,
+  at: string,
+  atMs: number,
+): Pick<NewLogEntry, 'at' | 'atMs' | 'day' | 'roomId' | 'roomName' | 'turnoverId' | 'examAccession' | 'cleanType'> {
+  return { at, atMs, day: roomDay.day, roomId: roomDay.room.id, roomName: roomDay.room.name, turnoverId: record.id, examAccession: accession, cleanType: record.cleanType };
 }
