@@ -6,7 +6,7 @@ import { ChangeDetectionStrategy, Component } from '@angular/core';
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <h1>Reports</h1>
-    <p>Turnover minutes per room and day, short gaps, minutes lost and checklist completion, with CSV export.</p>
+    <p>Not built yet. This screen will show: turnover minutes per room and day, short gaps, minutes lost and checklist completion, with CSV export.</p>
   `,
 })
 export class Reports {}

@@ -6,7 +6,7 @@ import { ChangeDetectionStrategy, Component } from '@angular/core';
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <h1>Setup</h1>
-    <p>Rooms, disinfectant products, protocol steps, equipment, users and site settings.</p>
+    <p>Not built yet. This screen will show: rooms, disinfectant products, protocol steps, equipment, users and site settings.</p>
   `,
 })
 export class Setup {}
