@@ -1,5 +1,5 @@
 import { HttpClient } from '@angular/common/http';
-import { Injectable, computed, inject, signal } from '@angular/core';
+import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
 import { DateTime } from 'luxon';
 import { firstValueFrom } from 'rxjs';
 
@@ -14,18 +14,23 @@ export class SiteSettingsService {
   private readonly http = inject(HttpClient);
   private readonly current = signal<SiteSettings | null>(null);
   private loading: Promise<SiteSettings | null> | null = null;
+  // Re-read each minute so a screen left open (a wall display) moves on to the next day at midnight.
+  private readonly minute = signal(Date.now());
 
   /** The settings, or null until loaded. */
   readonly settings = this.current.asReadonly();
 
   /** Today (`YYYY-MM-DD`) in the site's zone, or null until the settings are loaded. */
   readonly today = computed(() => {
+    this.minute();
     const settings = this.current();
     return settings ? todayIn(settings.timezone) : null;
   });
 
   constructor() {
     void this.load();
+    const timer = setInterval(() => this.minute.set(Date.now()), 60_000);
+    inject(DestroyRef).onDestroy(() => clearInterval(timer));
   }
 
   /** Fetches the settings once. If they cannot be read, today falls back to the browser's zone. */
