@@ -68,7 +68,18 @@ export function createApp(deps: AppDeps): Express {
   );
   // Event streams must reach the browser at once, so they are never buffered by gzip.
   app.use(compression({ filter: (req, res) => !String(res.getHeader('Content-Type') ?? '').startsWith('text/event-stream') && compression.filter(req, res) }));
-  if (deps.logRequests) app.use(pinoHttp({ autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
+  if (deps.logRequests) {
+    // One short line per API call; headers are left out so session cookies never reach the log.
+    app.use(
+      pinoHttp({
+        autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
+        serializers: {
+          req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url }),
+          res: (res: { statusCode: number }) => ({ status: res.statusCode }),
+        },
+      }),
+    );
+  }
 
   const passport = new Passport();
   passport.use(
