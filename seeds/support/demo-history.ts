@@ -13,7 +13,7 @@ import { markShiftTaskDone, shiftTasksOfDay } from '../../server/services/shift-
  * have worked it: each exam that has ended is recorded finished at its planned end, its turnover's
  * steps ticked at their planned times and closed when ready. So the board, the checklist and the
  * cleaning log start from a believable state instead of every room "in exam" and hours late.
- * Only turnovers that would be complete by `now` are played; the rest is left to the user.
+ * The turnover under way at `now` is left open with the steps done by then; the rest is left to the user.
  * Shift tasks whose time has passed are ticked at their due time.
  */
 export async function seedDemoHistory(knex: Knex, now: Date): Promise<void> {
@@ -30,19 +30,20 @@ export async function seedDemoHistory(knex: Knex, now: Date): Promise<void> {
   for (const exam of exams) {
     const end = exam.start_ms + exam.duration_minutes * 60_000;
     if (stoppedRooms.has(exam.room_id) || end > now.getTime()) continue;
-    const preview = await loadChecklist(knex, exam.room_id, day, new Date(end));
-    const readyMs = Math.max(Date.parse(preview.readyAt ?? ''), ...preview.steps.map((s) => Date.parse(s.planned.dryAt)));
-    if (!Number.isFinite(readyMs) || readyMs > now.getTime()) {
+    const { turnoverId } = await finishExam(knex, exam.id, tech, new Date(end));
+    const checklist = await loadChecklist(knex, exam.room_id, day, new Date(end), turnoverId);
+    const holdEnd = checklist.airHoldUntil ? Date.parse(checklist.airHoldUntil) : 0;
+    const readyMs = Math.max(holdEnd, ...checklist.steps.map((s) => Date.parse(s.planned.dryAt)));
+    for (const step of [...checklist.steps].sort((a, b) => Date.parse(a.planned.end) - Date.parse(b.planned.end))) {
+      const at = Date.parse(step.planned.end);
+      if (at > now.getTime()) break; // the turnover in progress right now: its later steps are left to the user
+      await tickStep(knex, turnoverId, step.key, {}, tech, new Date(at));
+    }
+    if (readyMs > now.getTime()) {
       stoppedRooms.add(exam.room_id);
       continue;
     }
-    const { turnoverId } = await finishExam(knex, exam.id, tech, new Date(end));
-    const checklist = await loadChecklist(knex, exam.room_id, day, new Date(end), turnoverId);
-    for (const step of [...checklist.steps].sort((a, b) => Date.parse(a.planned.end) - Date.parse(b.planned.end))) {
-      await tickStep(knex, turnoverId, step.key, {}, tech, new Date(Date.parse(step.planned.end)));
-    }
-    const holdEnd = checklist.airHoldUntil ? Date.parse(checklist.airHoldUntil) : 0;
-    await completeTurnover(knex, turnoverId, undefined, tech, new Date(Math.max(readyMs, holdEnd)));
+    await completeTurnover(knex, turnoverId, undefined, tech, new Date(readyMs));
   }
   const roomIds = [...new Set(exams.map((e) => e.room_id))];
   for (const tasks of (await shiftTasksOfDay(knex, roomIds, day, timezone, now)).values()) {
