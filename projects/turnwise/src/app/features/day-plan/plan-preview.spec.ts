@@ -2,26 +2,13 @@ import type { Room } from '@shared/api/rooms';
 import { computeDayPlan, type DayPlanInput } from '@shared/turnover';
 
 import { dayPlanInputOf, previewMove } from './plan-preview';
+import { exam } from './testing/example-day';
 
 // Invented day: two MR rooms; in MR 1, ACC-2 starts 15 min after ACC-1 ends.
 const rooms: Room[] = [
   { id: 1, name: 'MR 1', modality: 'MR', airChangesPerHour: 6, staff: 1, opensAt: '07:00', closesAt: '19:00' },
   { id: 2, name: 'MR 2', modality: 'MR', airChangesPerHour: 12, staff: 2, opensAt: '07:00', closesAt: '19:00' },
 ];
-const exam = (id: number, roomId: number, start: string, extra: Partial<DayPlanInput['exams'][number]> = {}) => ({
-  id,
-  accession: `ACC-${id}`,
-  roomId,
-  start: `2027-03-15T${start}:00-05:00`,
-  durationMinutes: 30,
-  procedure: 'MR knee without contrast',
-  coil: 'knee',
-  precaution: 'none' as const,
-  mobility: 'ambulatory' as const,
-  contrast: false,
-  version: 1,
-  ...extra,
-});
 const stored: DayPlanInput = {
   date: '2027-03-15',
   timezone: 'America/Chicago',

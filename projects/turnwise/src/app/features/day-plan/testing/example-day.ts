@@ -9,7 +9,8 @@ export const ROOMS: Room[] = [
   { id: 2, name: 'MR 2', modality: 'MR', airChangesPerHour: 6, staff: 1, opensAt: '07:00', closesAt: '19:00' },
 ];
 
-const exam = (id: number, roomId: number, start: string, extra: Partial<DayPlanInput['exams'][number]> = {}) => ({
+/** An invented 30-minute MR knee exam on 2027-03-15 (Chicago, CDT) with an `ACC-<id>` accession. */
+export const exam = (id: number, roomId: number, start: string, extra: Partial<DayPlanInput['exams'][number]> = {}) => ({
   id,
   accession: `ACC-${id}`,
   roomId,
