@@ -38,6 +38,9 @@ const hygiene = step('hygiene', 'Gloves off, hand hygiene', 1, [], { afterAllOth
 const workstation = step('workstation', 'Workstation wipe-down', 5, [], { disinfects: true });
 const openingInjector = step('injector', 'Contrast injector prep', 3, [], { onlyWithContrast: true });
 
+/** Opening step every default protocol shares: the room made up before the first patient. */
+const roomcheck = step('roomcheck', 'Room made up for the first patient', 2, []);
+
 /** Default MR protocol (the product brief's table). */
 export const MR_PROTOCOL: Protocol = {
   modality: 'MR',
@@ -58,7 +61,7 @@ export const MR_PROTOCOL: Protocol = {
   ],
   openingSteps: [
     workstation,
-    step('roomcheck', 'Room made up for the first patient', 2, []),
+    roomcheck,
     openingInjector,
   ],
 };
@@ -77,7 +80,7 @@ export const CT_PROTOCOL: Protocol = {
   ],
   openingSteps: [
     workstation,
-    step('roomcheck', 'Room made up for the first patient', 2, []),
+    roomcheck,
     openingInjector,
   ],
 };
@@ -92,7 +95,7 @@ export const GENERIC_PROTOCOL: Protocol = {
     step('linen', 'Fresh sheet and pillow', 1, dryOf('table')),
     hygiene,
   ],
-  openingSteps: [workstation, step('roomcheck', 'Room made up for the first patient', 2, [])],
+  openingSteps: [workstation, roomcheck],
 };
 
 /** Default protocols by DICOM modality code; `*` is the fallback. */
