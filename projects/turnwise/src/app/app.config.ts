@@ -4,7 +4,6 @@ import { provideRouter, TitleStrategy, withComponentInputBinding } from '@angula
 
 import { routes } from './app.routes';
 import { errorInterceptor } from './core/http/error-interceptor';
-import { provideIcons } from './core/layout/icons';
 import { PageTitle } from './core/layout/page-title';
 
 export const appConfig: ApplicationConfig = {
@@ -18,6 +17,5 @@ export const appConfig: ApplicationConfig = {
       withInterceptors([errorInterceptor]),
       withXsrfConfiguration({ cookieName: 'XSRF-TOKEN', headerName: 'X-XSRF-TOKEN' }),
     ),
-    provideIcons(),
   ],
 };

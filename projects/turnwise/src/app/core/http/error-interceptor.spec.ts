@@ -1,25 +1,25 @@
 import { HttpClient, provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router, provideRouter } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 
 import { ApiError } from '@shared/api/errors';
 import { fakeAuth } from '../../../testing/fake-auth';
 import { errorInterceptor } from './error-interceptor';
+import { ErrorNotice } from './error-notice';
 import { showsOwnErrors } from './shows-own-errors';
 
 function setUp() {
   const { fake, provider } = fakeAuth({ username: 'casey', role: 'charge' });
-  const snackBar = { open: jest.fn() };
+  const notice = { show: jest.fn() };
   TestBed.configureTestingModule({
     providers: [
       provideRouter([]),
       provideHttpClient(withInterceptors([errorInterceptor])),
       provideHttpClientTesting(),
       provider,
-      { provide: MatSnackBar, useValue: snackBar },
+      { provide: ErrorNotice, useValue: notice },
     ],
   });
   const router = TestBed.inject(Router);
@@ -27,7 +27,7 @@ function setUp() {
   const navigate = jest.spyOn(router, 'navigate').mockResolvedValue(true);
   return {
     auth: fake,
-    snackBar,
+    notice,
     navigate,
     http: TestBed.inject(HttpClient),
     backend: TestBed.inject(HttpTestingController),
@@ -57,11 +57,11 @@ async function fail(
 describe('errorInterceptor', () => {
   afterEach(() => TestBed.inject(HttpTestingController).verify());
 
-  it('turns a 500 into an ApiError and shows the server message in a snack bar', async () => {
+  it('turns a 500 into an ApiError and shows the server message to the user', async () => {
     const setup = setUp();
     const error = await fail(setup, '/api/rooms', { error: { code: 'internal', message: 'The database is busy.' } }, 500);
     expect(error).toEqual({ status: 500, code: 'internal', message: 'The database is busy.' });
-    expect(setup.snackBar.open).toHaveBeenCalledWith('The database is busy.', 'Dismiss', expect.any(Object));
+    expect(setup.notice.show).toHaveBeenCalledWith('The database is busy.');
     expect(setup.navigate).not.toHaveBeenCalled();
   });
 
@@ -71,7 +71,7 @@ describe('errorInterceptor', () => {
     expect(error.status).toBe(401);
     expect(setup.auth.clear).toHaveBeenCalled();
     expect(setup.navigate).toHaveBeenCalledWith(['/sign-in'], { queryParams: { returnUrl: '/day?date=2027-03-14' } });
-    expect(setup.snackBar.open).not.toHaveBeenCalled();
+    expect(setup.notice.show).not.toHaveBeenCalled();
   });
 
   it('leaves a 401 from the "who am I" call alone: that is how signed-out is learned', async () => {
@@ -79,14 +79,14 @@ describe('errorInterceptor', () => {
     await fail(setup, '/api/auth/me', { error: { code: 'unauthenticated', message: 'Sign in first.' } }, 401, { ownErrors: true });
     expect(setup.auth.clear).not.toHaveBeenCalled();
     expect(setup.navigate).not.toHaveBeenCalled();
-    expect(setup.snackBar.open).not.toHaveBeenCalled();
+    expect(setup.notice.show).not.toHaveBeenCalled();
   });
 
   it('skips the snack bar when the caller shows the error itself, still handing over an ApiError', async () => {
     const setup = setUp();
     const error = await fail(setup, '/api/exams/7', { error: { code: 'stale_version', message: 'Someone moved this slot first.' } }, 409, { ownErrors: true });
     expect(error).toEqual({ status: 409, code: 'stale_version', message: 'Someone moved this slot first.' });
-    expect(setup.snackBar.open).not.toHaveBeenCalled();
+    expect(setup.notice.show).not.toHaveBeenCalled();
   });
 
   it('keeps a short plain-text body, as a rate limiter might send', async () => {
@@ -102,6 +102,6 @@ describe('errorInterceptor', () => {
     const error = (await result) as ApiError;
     expect(error.status).toBe(0);
     expect(error.code).toBe('unreachable');
-    expect(setup.snackBar.open).toHaveBeenCalledWith(expect.stringContaining('cannot reach'), 'Dismiss', expect.any(Object));
+    expect(setup.notice.show).toHaveBeenCalledWith(expect.stringContaining('cannot reach'));
   });
 });

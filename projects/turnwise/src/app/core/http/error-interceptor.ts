@@ -1,11 +1,11 @@
 import { HttpErrorResponse, HttpInterceptorFn } from '@angular/common/http';
 import { inject } from '@angular/core';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router } from '@angular/router';
 import { catchError, throwError } from 'rxjs';
 
 import { ApiError } from '@shared/api/errors';
 import { AuthService } from '../auth/auth-service';
+import { ErrorNotice } from './error-notice';
 import { SHOWS_OWN_ERRORS } from './shows-own-errors';
 
 /** Calls that answer 401 as part of normal sign-in, never as "your session ended". */
@@ -19,7 +19,7 @@ const AUTH_CALLS = ['/api/auth/me', '/api/auth/login'];
 export const errorInterceptor: HttpInterceptorFn = (request, next) => {
   const auth = inject(AuthService);
   const router = inject(Router);
-  const snackBar = inject(MatSnackBar);
+  const notice = inject(ErrorNotice);
   const showsOwnErrors = request.context.get(SHOWS_OWN_ERRORS);
 
   return next(request).pipe(
@@ -32,7 +32,7 @@ export const errorInterceptor: HttpInterceptorFn = (request, next) => {
           void router.navigate(['/sign-in'], { queryParams: { returnUrl: router.url } });
         }
       } else if (!showsOwnErrors) {
-        snackBar.open(apiError.message, 'Dismiss', { duration: 8000 });
+        notice.show(apiError.message);
       }
       return throwError(() => apiError);
     }),
