@@ -2,8 +2,10 @@ import { ChangeDetectionStrategy, Component } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
+import searchOff from '@material-design-icons/svg/outlined/search_off.svg';
 
 import { Logo } from './logo';
+import { registerIcons } from './register-icons';
 
 /** Shown for any address Turnwise does not know; works signed in or out. */
 @Component({
@@ -20,4 +22,9 @@ import { Logo } from './logo';
     </main>
   `,
 })
-export class NotFound {}
+export class NotFound {
+  constructor() {
+    // Shown outside the shell, possibly signed out, so it cannot rely on the shell's icons.
+    registerIcons({ search_off: searchOff });
+  }
+}

@@ -9,9 +9,12 @@ import { Router, RouterLink, RouterOutlet } from '@angular/router';
 import { map } from 'rxjs';
 
 import { AuthService } from '../auth/auth-service';
+import { ErrorNotice } from '../http/error-notice';
 import { roleLabel } from '../auth/roles';
+import { ICONS } from './icons';
 import { Logo } from './logo';
 import { Nav } from './nav';
+import { registerIcons } from './register-icons';
 import { ShellChrome } from './shell-chrome';
 
 /** Below this width (a tablet in portrait) the navigation becomes an overlay opened from the toolbar. */
@@ -40,6 +43,13 @@ export class Shell {
     const user = this.user();
     return user ? roleLabel(user.role) : '';
   });
+
+  constructor() {
+    // Every screen renders inside the shell, so its icons are in place before any screen draws.
+    registerIcons(ICONS);
+    // Signed in, errors become possible: fetch the snack bar now, while the server surely answers.
+    inject(ErrorNotice).preload();
+  }
 
   protected async signOut(): Promise<void> {
     try {

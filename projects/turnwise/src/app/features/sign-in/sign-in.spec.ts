@@ -4,7 +4,6 @@ import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
 
 import { errorInterceptor } from '../../core/http/error-interceptor';
-import { provideIcons } from '../../core/layout/icons';
 import { SignIn } from './sign-in';
 
 const DEMO_URL = '/api/auth/demo-accounts';
@@ -16,7 +15,6 @@ async function render(returnUrl?: string) {
       provideRouter([]),
       provideHttpClient(withInterceptors([errorInterceptor])),
       provideHttpClientTesting(),
-      provideIcons(),
     ],
   });
   const router = TestBed.inject(Router);
@@ -56,6 +54,12 @@ describe('SignIn', () => {
     expect(labels).toEqual(['Username', 'Password']);
     expect(page.querySelector('input[type="password"]')).not.toBeNull();
     expect(page.querySelector('button[type="submit"]')?.textContent).toContain('Sign in');
+  });
+
+  it('draws its own icons, before the shell that registers the others has loaded', async () => {
+    const { page, backend } = await render();
+    backend.expectOne(DEMO_URL).flush(null, { status: 404, statusText: 'Not Found' });
+    expect(page.querySelector('button[type="submit"] mat-icon svg')).not.toBeNull();
   });
 
   it('submits the credentials and goes to the role home', async () => {

@@ -5,12 +5,15 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { Router } from '@angular/router';
+import error from '@material-design-icons/svg/outlined/error.svg';
+import login from '@material-design-icons/svg/outlined/login.svg';
 
 import { DemoAccounts } from '@shared/api/auth';
 import { isApiError } from '@shared/api/errors';
 import { AuthService } from '../../core/auth/auth-service';
 import { SessionUser, homeFor, roleLabel } from '../../core/auth/roles';
 import { Logo } from '../../core/layout/logo';
+import { registerIcons } from '../../core/layout/register-icons';
 import { DemoAccountsService } from './demo-accounts';
 
 /** Sign in with username and password; in demo mode, lists the demo accounts to pick from. */
@@ -38,6 +41,8 @@ export class SignIn {
   protected readonly roleLabel = roleLabel;
 
   constructor() {
+    // The page is drawn before the shell (which registers the rest) has ever loaded.
+    registerIcons({ error, login });
     void inject(DemoAccountsService).fetch().then((demo) => this.demo.set(demo));
   }
 
