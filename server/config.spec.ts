@@ -23,4 +23,11 @@ describe('readConfig', () => {
     expect(() => readConfig({ NODE_ENV: 'production' })).toThrow(/SESSION_SECRET/);
     expect(readConfig({ NODE_ENV: 'production', SESSION_SECRET: 'x'.repeat(32) })).toMatchObject({ production: true, demo: false });
   });
+
+  it('trusts no proxy unless TRUST_PROXY lists them, comma-separated', () => {
+    const base = { DATABASE_FILE: path.join(dir, 'c', 'db.sqlite') };
+    expect(readConfig(base).trustProxy).toEqual([]);
+    expect(readConfig({ ...base, TRUST_PROXY: '' }).trustProxy).toEqual([]);
+    expect(readConfig({ ...base, TRUST_PROXY: ' 10.0.0.5, 192.168.0.0/16 ,loopback,' }).trustProxy).toEqual(['10.0.0.5', '192.168.0.0/16', 'loopback']);
+  });
 });

@@ -9,6 +9,11 @@ export interface ServerConfig {
   production: boolean;
   demo: boolean;
   clientDir: string;
+  /**
+   * Proxies whose X-Forwarded-For is believed (addresses, subnets or Express's names such as
+   * `loopback`); empty trusts none, so the sign-in throttle keys on the connecting address.
+   */
+  trustProxy: string[];
 }
 
 /**
@@ -32,6 +37,7 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     production,
     demo,
     clientDir: env['CLIENT_DIR'] ?? path.resolve(__dirname, '..', 'dist', 'turnwise', 'browser'),
+    trustProxy: (env['TRUST_PROXY'] ?? '').split(',').map((entry) => entry.trim()).filter(Boolean),
   };
 }
 
