@@ -4,6 +4,7 @@ import path from 'node:path';
 import type { Express } from 'express';
 import type { Knex } from 'knex';
 import request from 'supertest';
+import type { CookieAccessInfo, CookieJar } from 'cookiejar';
 import { createApp, type AppDeps } from '../../server/app';
 import { fixedClock } from '../../server/clock';
 import { createDb, migrateToLatest } from '../../server/db';
@@ -52,16 +53,29 @@ export async function startHarness(options: Partial<AppDeps> & { now?: string; s
   return harness;
 }
 
-/** A cookie-keeping client that has its XSRF token and sends it on every call. */
+/** What the agent's jar sends with a sign-in call: supertest's host, the auth path, plain HTTP. */
+const API_REQUEST = { domain: '127.0.0.1', path: '/api/auth/login', secure: false, script: false } as CookieAccessInfo;
+
+/**
+ * A cookie-keeping client that sends its current XSRF token on every call. The server re-issues
+ * the token when the session changes (sign-in), so it is read from the cookie jar each time,
+ * as the Angular client reads the cookie before each request.
+ */
 export async function client(app: Express) {
   const agent = request.agent(app);
-  const res = await agent.get('/api/health');
-  const cookie = (res.headers['set-cookie'] as unknown as string[] | undefined)?.find((c) => c.startsWith('XSRF-TOKEN='));
-  const token = decodeURIComponent(cookie?.split(';')[0]?.split('=')[1] ?? '');
-  const withToken = <T extends request.Test>(t: T) => t.set('X-XSRF-TOKEN', token);
+  await agent.get('/api/health');
+  const jar = (agent as unknown as { jar: CookieJar }).jar;
+  /** The raw value of a cookie the agent holds (as the server set it), or undefined. */
+  const cookie = (name: string): string | undefined => jar.getCookie(name, API_REQUEST)?.value;
+  const token = () => decodeURIComponent(cookie('XSRF-TOKEN') ?? '');
+  const withToken = <T extends request.Test>(t: T) => t.set('X-XSRF-TOKEN', token());
   return {
     agent,
-    token,
+    cookie,
+    /** The XSRF token the client would send now. */
+    get token() {
+      return token();
+    },
     get: (url: string) => agent.get(url),
     post: (url: string, body?: object) => withToken(agent.post(url)).send(body),
     put: (url: string, body?: object) => withToken(agent.put(url)).send(body),
