@@ -45,8 +45,22 @@ describe('auth API', () => {
 
   it('ends the session at logout', async () => {
     const c = await signedIn(h.app, 'tech');
+    const cookies = (await c.get('/api/auth/me')).request.cookies as unknown as string;
     expect((await c.post('/api/auth/logout')).status).toBe(204);
     expect((await c.get('/api/auth/me')).status).toBe(401);
+    // the old cookie, replayed, no longer names a session
+    expect((await request(h.app).get('/api/auth/me').set('Cookie', cookies)).status).toBe(401);
+  });
+
+  it('sets an httpOnly known-device cookie at sign-in, sent only to the sign-in routes', async () => {
+    const c = await client(h.app);
+    const res = await c.post('/api/auth/login', { username: 'tech', password: DEMO_PASSWORD });
+    const device = (res.headers['set-cookie'] as unknown as string[]).find((v) => v.startsWith('turnwise.device'));
+    expect(device).toMatch(/HttpOnly/i);
+    expect(device).toMatch(/Path=\/api\/auth/i);
+    expect(device).toMatch(/SameSite=Lax/i);
+    const failed = await c.post('/api/auth/login', { username: 'tech', password: 'nope' });
+    expect((failed.headers['set-cookie'] as unknown as string[] | undefined)?.some((v) => v.startsWith('turnwise.device')) ?? false).toBe(false);
   });
 
   it('issues a new session id at sign-in (no session fixation)', async () => {
@@ -89,7 +103,7 @@ describe('auth API', () => {
 
   it('throttles after the allowed number of failed sign-ins with a clear message', async () => {
     await h.close();
-    h = await startHarness({ loginAttempts: 3 });
+    h = await startHarness({ signInLimits: { perAccount: 3, perAddress: 30 } });
     const c = await client(h.app);
     for (let i = 0; i < 3; i++) expect((await c.post('/api/auth/login', { username: 'tech', password: 'bad' })).status).toBe(401);
     const blocked = await c.post('/api/auth/login', { username: 'tech', password: DEMO_PASSWORD });
