@@ -14,9 +14,9 @@ import type { Clock } from './clock';
 import { systemClock } from './clock';
 import { NotFoundError } from './errors';
 import { errorHandler } from './middleware/error-handler';
-import { xsrf } from './middleware/xsrf';
+import { xsrfTokens } from './middleware/xsrf';
 import { authenticate, findActiveUser } from './services/users';
-import { authRoutes } from './routes/auth';
+import { authRoutes, type SignInLimits } from './routes/auth';
 import { roomRoutes } from './routes/rooms';
 import { settingsRoutes } from './routes/settings';
 import { apiRoutes } from './routes/api';
@@ -32,8 +32,10 @@ export interface AppDeps {
   demo?: boolean;
   /** Production: Secure cookies behind a TLS-terminating proxy. */
   production?: boolean;
-  /** Failed sign-ins allowed per address per 15 minutes. */
-  loginAttempts?: number;
+  /** Failed sign-ins allowed per 15 minutes; default 10 per account, 30 per address. */
+  signInLimits?: Partial<SignInLimits>;
+  /** Proxies whose X-Forwarded-For is believed (TRUST_PROXY); none by default. */
+  trustProxy?: string[];
   /** Folder of the built client; omitted in API-only tests. */
   clientDir?: string;
   /** Request logging; off in tests. */
@@ -49,7 +51,8 @@ export function createApp(deps: AppDeps): Express {
   const logError = deps.logError ?? ((err: unknown) => console.error(err));
   const app = express();
   app.disable('x-powered-by');
-  if (production) app.set('trust proxy', 1);
+  // req.ip (and so the sign-in throttle) believes X-Forwarded-For only from these proxies
+  app.set('trust proxy', deps.trustProxy?.length ? deps.trustProxy : false);
 
   app.use(
     helmet({
@@ -92,12 +95,19 @@ export function createApp(deps: AppDeps): Express {
     findActiveUser(deps.db, id).then((user) => done(null, user ?? false), done);
   });
 
+  const SESSION_COOKIE = 'turnwise.sid';
+  const xsrf = xsrfTokens({ secret: deps.sessionSecret, secure: production });
   const api = express.Router();
+  // set first so that a route (the plan, with its ETag) can replace it
+  api.use((_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
   api.use(express.json({ limit: '100kb' }));
   api.use(cookieParser());
   api.use(
     session({
-      name: 'turnwise.sid',
+      name: SESSION_COOKIE,
       secret: deps.sessionSecret,
       store: new ConnectSessionKnexStore({ knex: deps.db, createTable: false, cleanupInterval: production ? 60_000 : 0 }),
       resave: false,
@@ -108,12 +118,24 @@ export function createApp(deps: AppDeps): Express {
   );
   api.use(passport.initialize());
   api.use(passport.session());
-  api.use(xsrf({ secure: production }));
+  api.use(xsrf.middleware);
 
   api.get('/health', (_req, res) => {
     res.json({ status: 'ok', demo: Boolean(deps.demo), time: clock.now().toISOString() });
   });
-  api.use('/auth', authRoutes({ db: deps.db, passport, demo: Boolean(deps.demo), loginAttempts: deps.loginAttempts ?? 10 }));
+  api.use(
+    '/auth',
+    authRoutes({
+      db: deps.db,
+      passport,
+      demo: Boolean(deps.demo),
+      limits: { perAccount: 10, perAddress: 30, ...deps.signInLimits },
+      secret: deps.sessionSecret,
+      secure: production,
+      xsrf,
+      sessionCookie: SESSION_COOKIE,
+    }),
+  );
   api.use('/rooms', roomRoutes({ db: deps.db, clock, events }));
   api.use('/settings', settingsRoutes({ db: deps.db }));
   api.use(apiRoutes({ db: deps.db, clock, events }));

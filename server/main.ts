@@ -17,9 +17,13 @@ async function main(): Promise<void> {
     sessionSecret: config.sessionSecret,
     demo: config.demo,
     production: config.production,
+    trustProxy: config.trustProxy,
     clientDir: config.clientDir,
     logRequests: true,
   });
+  if (config.production && config.trustProxy.length === 0) {
+    console.warn('TRUST_PROXY is unset: X-Forwarded-For is ignored. Behind a TLS-terminating proxy, set it to the proxy address (README, Security).');
+  }
   const server = app.listen(config.port, () => {
     console.log(`Turnwise listening on http://localhost:${config.port} (${config.demo ? 'demo mode' : 'production'}; database ${config.databaseFile})`);
   });
