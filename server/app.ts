@@ -21,6 +21,7 @@ import { roomRoutes } from './routes/rooms';
 import { settingsRoutes } from './routes/settings';
 import { apiRoutes } from './routes/api';
 import { DayEvents } from './services/day-events';
+import { createFixesPool, type FixesPool } from './workers/fixes-pool';
 
 export interface AppDeps {
   db: Knex;
@@ -28,6 +29,8 @@ export interface AppDeps {
   clock?: Clock;
   /** Live-update fan-out; one per app unless a test shares one. */
   events?: DayEvents;
+  /** Worker threads for suggested fixes; made per app if omitted. */
+  fixesPool?: FixesPool;
   /** Demo mode lists the demo accounts on the sign-in page. */
   demo?: boolean;
   /** Production: Secure cookies behind a TLS-terminating proxy. */
@@ -47,6 +50,7 @@ export interface AppDeps {
 export function createApp(deps: AppDeps): Express {
   const clock = deps.clock ?? systemClock;
   const events = deps.events ?? new DayEvents();
+  const fixesPool = deps.fixesPool ?? createFixesPool();
   const production = deps.production ?? false;
   const logError = deps.logError ?? ((err: unknown) => console.error(err));
   const app = express();
@@ -138,7 +142,7 @@ export function createApp(deps: AppDeps): Express {
   );
   api.use('/rooms', roomRoutes({ db: deps.db, clock, events }));
   api.use('/settings', settingsRoutes({ db: deps.db }));
-  api.use(apiRoutes({ db: deps.db, clock, events }));
+  api.use(apiRoutes({ db: deps.db, clock, events, fixesPool }));
   api.use(() => {
     throw new NotFoundError('No such API route.');
   });
@@ -151,5 +155,7 @@ export function createApp(deps: AppDeps): Express {
   }
 
   app.use(errorHandler(logError));
+  // Whoever ends the app (main.ts on a signal, a test's afterAll) closes its fixes worker threads.
+  app.locals['fixesPool'] = fixesPool;
   return app;
 }

@@ -3,6 +3,7 @@ import { readConfig } from './config';
 import { createDb, migrateToLatest } from './db';
 import { seedDemo, seedReferenceData } from './seeding';
 import { systemClock } from './clock';
+import type { FixesPool } from './workers/fixes-pool';
 
 async function main(): Promise<void> {
   const config = readConfig();
@@ -27,7 +28,8 @@ async function main(): Promise<void> {
   const server = app.listen(config.port, () => {
     console.log(`Turnwise listening on http://localhost:${config.port} (${config.demo ? 'demo mode' : 'production'}; database ${config.databaseFile})`);
   });
-  const stop = () => server.close(() => db.destroy().then(() => process.exit(0)));
+  const fixesPool = app.locals['fixesPool'] as FixesPool;
+  const stop = () => server.close(() => Promise.all([fixesPool.close(), db.destroy()]).then(() => process.exit(0)));
   process.on('SIGINT', stop);
   process.on('SIGTERM', stop);
 }

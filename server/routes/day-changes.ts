@@ -6,15 +6,26 @@ import { ConflictError } from '../errors';
 import { currentUser, requireRole, requireUser } from '../middleware/roles';
 import type { DayEvents } from '../services/day-events';
 import { loadDayPlan } from '../services/day-plan';
-import { applyFix, dayFixes } from '../services/fixes';
+import { applyFix, dayFixesPage, gapFixes } from '../services/fixes';
 import { dayHistory, undoOrRedo } from '../services/plan-changes';
 import { parseInput } from '../validate';
+import type { FixesPool } from '../workers/fixes-pool';
+import { MAX_FIX_GAPS_PER_CALL } from '../../shared/fixes/model';
 import { parseDay } from './days';
 
+const examId = z.coerce.number().int().positive().max(Number.MAX_SAFE_INTEGER);
+/** `?gap=` (one gap's fixes) alone, or a page: `?limit=` problem gaps (at most 20) `&after=` a page's `next`. */
+const fixesQuerySchema = z
+  .object({
+    gap: examId.optional(),
+    after: examId.optional(),
+    limit: z.coerce.number().int().min(1).max(MAX_FIX_GAPS_PER_CALL).optional(),
+  })
+  .refine((q) => q.gap === undefined || (q.after === undefined && q.limit === undefined), { message: 'gap gives one gap\'s fixes: send it without after or limit', path: ['gap'] });
 const applySchema = z.object({ fixId: z.string().min(1).max(80), acceptNewProblems: z.boolean().default(false) });
 
 /** History, undo/redo, suggested fixes and the live event stream of a day. */
-export function dayChangeRoutes(deps: { db: Knex; clock: Clock; events: DayEvents }): Router {
+export function dayChangeRoutes(deps: { db: Knex; clock: Clock; events: DayEvents; fixesPool: FixesPool }): Router {
   const router = Router();
   const publish = (date: string, reason: string, by: string) => deps.events.publish({ date, kind: 'plan', reason, by, at: deps.clock.now().toISOString() });
 
@@ -34,14 +45,17 @@ export function dayChangeRoutes(deps: { db: Knex; clock: Clock; events: DayEvent
   }
 
   router.get('/:date/fixes', requireUser, async (req, res) => {
-    res.json({ fixes: await dayFixes(deps.db, parseDay(req.params['date'])) });
+    const day = parseDay(req.params['date']);
+    const query = parseInput(fixesQuerySchema, req.query, 'query');
+    if (query.gap !== undefined) res.json({ fixes: await gapFixes(deps.db, deps.fixesPool, day, query.gap) });
+    else res.type('json').send(await dayFixesPage(deps.db, deps.fixesPool, day, query));
   });
 
   router.post('/:date/fixes/apply', requireRole('charge'), async (req, res) => {
     const day = parseDay(req.params['date']);
     const { fixId, acceptNewProblems } = parseInput(applySchema, req.body, 'fix');
     const user = currentUser(req);
-    const fix = await applyFix(deps.db, day, fixId, acceptNewProblems, user.id, deps.clock.now());
+    const fix = await applyFix(deps.db, deps.fixesPool, day, fixId, acceptNewProblems, user.id, deps.clock.now());
     publish(day, 'suggestion', user.displayName || user.username);
     res.json({ applied: fix, plan: await loadDayPlan(deps.db, day) });
   });

@@ -1,20 +1,42 @@
 import type { Knex } from 'knex';
-import { suggestFixes, type Fix } from '../../shared/fixes';
-import { ConflictError, ValidationError } from '../errors';
+import { FIX_KINDS, type Fix, type FixKind } from '../../shared/fixes';
+import { ConflictError, NotFoundError, ValidationError } from '../errors';
+import type { FixesPool } from '../workers/fixes-pool';
 import { loadDayPlanInput } from './day-plan';
 import { applyChanges, recordChange } from './plan-changes';
 
-export async function dayFixes(db: Knex, day: string): Promise<Fix[]> {
-  return suggestFixes(await loadDayPlanInput(db, day));
+/**
+ * One page of the day's fixes (`FixesPage` as JSON, ready to send), weighed in a worker thread.
+ *
+ * @throws NotFoundError when `after` is not an exam of the day
+ */
+export async function dayFixesPage(db: Knex, pool: FixesPool, day: string, page: { after?: number; limit?: number }): Promise<string> {
+  const json = await pool.page({ input: await loadDayPlanInput(db, day), ...page });
+  if (json === null) throw new NotFoundError(`Exam ${page.after} is not on the day list of ${day}; start again from the first page.`);
+  return json;
+}
+
+/**
+ * The fixes of the gap before exam `toExamId` (none when that gap is not short or overlapping),
+ * weighed in a worker thread.
+ *
+ * @throws NotFoundError when the exam is not on that day's list
+ */
+export async function gapFixes(db: Knex, pool: FixesPool, day: string, toExamId: number): Promise<Fix[]> {
+  const fixes = await pool.gap({ input: await loadDayPlanInput(db, day), toExamId });
+  if (fixes === null) throw new NotFoundError(`Exam ${toExamId} is not on the day list of ${day}.`);
+  return fixes;
 }
 
 /**
  * Applies one suggested fix in a single transaction with one audit entry. The fix is recomputed
- * from the stored plan, so a stale one (the plan changed meanwhile) is a 409; a fix that would
- * make another gap short needs `acceptNewProblems`.
+ * from the stored plan (only its gap's fixes: the id names the gap), so a stale one (the plan
+ * changed meanwhile) is a 409; a fix that would make another gap short needs `acceptNewProblems`.
  */
-export async function applyFix(db: Knex, day: string, fixId: string, acceptNewProblems: boolean, userId: number, now: Date): Promise<Fix> {
-  const fix = (await dayFixes(db, day)).find((f) => f.id === fixId);
+export async function applyFix(db: Knex, pool: FixesPool, day: string, fixId: string, acceptNewProblems: boolean, userId: number, now: Date): Promise<Fix> {
+  const toExamId = gapOfFixId(fixId);
+  const fixes = toExamId === null ? null : await pool.gap({ input: await loadDayPlanInput(db, day), toExamId });
+  const fix = fixes?.find((f) => f.id === fixId);
   if (!fix) throw new ConflictError('That suggestion no longer applies: the day has changed. Suggestions have been refreshed.');
   if (fix.effect.newProblems > 0 && !acceptNewProblems) {
     throw new ValidationError(
@@ -27,4 +49,10 @@ export async function applyFix(db: Knex, day: string, fixId: string, acceptNewPr
     await recordChange(trx, { day, userId, reason: 'suggestion', summary: fix.title, changes: fix.changes }, now);
   });
   return fix;
+}
+
+/** The gap a fix id (`${kind}:${toExamId}`) is for, or null when it is not one. */
+function gapOfFixId(fixId: string): number | null {
+  const match = /^([a-z-]+):(\d{1,15})$/.exec(fixId);
+  return match && FIX_KINDS.includes(match[1] as FixKind) ? Number(match[2]) : null;
 }

@@ -27,3 +27,18 @@ export interface Fix {
     summaryAfter: PlanSummary;
   };
 }
+
+/** Most problem gaps one `GET /api/days/:date/fixes` call covers (its `limit`, and the default). */
+export const MAX_FIX_GAPS_PER_CALL = 20;
+
+/** `GET /api/days/:date/fixes` without `gap`: one page of the day's fixes. */
+export interface FixesPage {
+  /** The fixes of the gaps covered, gap by gap in plan order. */
+  fixes: Fix[];
+  /** The problem gaps this page covers (`toExamId`s), including those with no fix. */
+  gaps: number[];
+  /** `short` and `overlap` gaps in the whole day. */
+  problemGaps: number;
+  /** Pass as `after` for the next page; null on the last. */
+  next: number | null;
+}

@@ -1,150 +1,232 @@
-import { DateTime } from 'luxon';
 import type { ExamMove, PlanChange } from '../api/changes';
-import type { DayPlan, PlanExam, PlanGap, PlanRoom } from '../api/plan';
-import { computeDayPlan, type DayPlanInput } from '../turnover';
-import { withChanges } from './apply-changes';
-import type { Fix, FixKind } from './model';
+import type { DayPlanInput } from '../turnover/day-plan-input';
+import type { DayPlanSlot } from '../turnover/day-plan-output';
+import { turnoverFor } from '../turnover/day-plan-cache';
+import { protocolFor } from '../turnover/protocols';
+import { fixDay, summaryWith, type FixDay } from './fix-day';
+import { MAX_FIX_GAPS_PER_CALL, type Fix, type FixesPage, type FixKind } from './model';
+import { isProblemVerdict, type JudgedGap, type JudgedRoom } from './room-gaps';
 
 const MINUTE = 60_000;
 const MAX_STAFF = 3;
-const isProblem = (gap: PlanGap | undefined) => gap !== undefined && (gap.verdict === 'short' || gap.verdict === 'overlap');
 
 /**
- * Proposes fixes for every `short` or `overlap` gap of the day, each with its effect computed
- * by the engine: push the arriving exam (and only as much of the cascade as needed) later; move
- * it to another room of the same modality where it fits; add a helper to the turnover; move the
- * leaving isolation case to the end of its room's list (common practice, no source: isolation
- * cases last). A fix never counts the gap it fixes as new; `effect.newProblems` counts the rest.
+ * The fixes for one problem gap (the gap before exam `toExamId`), each with its effect computed
+ * by the engine on the rooms it touches: push the arriving exam (and only as much of the
+ * cascade as needed) later; move it to another room of the same modality where it fits; add a
+ * helper to the turnover; move the leaving isolation case to the end of its room's list (common
+ * practice, no source: isolation cases last). A fix never counts the gap it fixes as new;
+ * `effect.newProblems` counts the rest. Work grows with the rooms touched, not the day.
  *
+ * @returns `[]` when that gap is not `short` or `overlap`; null when no such exam is in the day
+ * @throws what `computeDaySummary` throws on a bad day
  * @example
- * const fixes = suggestFixes(input); // [{ id: 'push-later:12', kind: 'push-later', title: 'Start ACC-12 at 10:45', … }]
+ * suggestGapFixes(input, 12); // [{ id: 'push-later:12', kind: 'push-later', title: 'Start ACC-12 30 min later, at 10:45', … }]
  */
-export function suggestFixes(input: DayPlanInput, plan: DayPlan = computeDayPlan(input)): Fix[] {
-  const ctx = { input, plan, zone: input.timezone, margin: input.snugMarginMinutes ?? 3 };
-  const fixes: Fix[] = [];
-  for (const room of plan.rooms) {
-    for (const gap of room.gaps) {
-      if (!isProblem(gap)) continue;
-      for (const build of [pushLater, otherRoom, addHelper, isolationLast]) {
-        const fix = build(ctx, room, gap);
-        if (fix) fixes.push(fix);
+export function suggestGapFixes(input: DayPlanInput, toExamId: number): Fix[] | null {
+  const day = fixDay(input);
+  const roomId = day.roomOfExam.get(toExamId);
+  if (roomId === undefined) return null;
+  const room = day.judged(roomId);
+  return fixesOfGap(day, room, room.gaps.findIndex((g) => g.toExamId === toExamId));
+}
+
+export interface SuggestFixesOptions {
+  /** Start after the gap before this exam (a page's `next`); default the day's first gap. */
+  after?: number;
+  /** Problem gaps to cover, 1 to {@link MAX_FIX_GAPS_PER_CALL} (the default). */
+  limit?: number;
+}
+
+/**
+ * One page of the day's fixes: those of the next `limit` problem gaps in plan order (rooms as
+ * listed, then by start), from the gap after exam `after`. The work per call is bounded by the
+ * page, whatever the size of the day.
+ *
+ * @returns null when `after` is not an exam of the day
+ * @throws RangeError when `limit` is not a whole number from 1 to {@link MAX_FIX_GAPS_PER_CALL};
+ *   what `computeDaySummary` throws on a bad day
+ * @example
+ * const first = suggestFixes(input, { limit: 20 }); // { fixes: [...], gaps: [4, 9, …], problemGaps: 57, next: 311 }
+ * const second = suggestFixes(input, { after: first.next!, limit: 20 });
+ */
+export function suggestFixes(input: DayPlanInput, options: SuggestFixesOptions = {}): FixesPage | null {
+  const limit = options.limit ?? MAX_FIX_GAPS_PER_CALL;
+  if (!Number.isInteger(limit) || limit < 1 || limit > MAX_FIX_GAPS_PER_CALL) {
+    throw new RangeError(`limit must be a whole number from 1 to ${MAX_FIX_GAPS_PER_CALL}, got ${limit}`);
+  }
+  const day = fixDay(input);
+  let roomIndex = 0;
+  let gapIndex = 0;
+  if (options.after !== undefined) {
+    const roomId = day.roomOfExam.get(options.after);
+    if (roomId === undefined) return null;
+    roomIndex = day.rooms.findIndex((r) => r.id === roomId);
+    gapIndex = day.judged(roomId).gaps.findIndex((g) => g.toExamId === options.after) + 1;
+  }
+  const page: FixesPage = { fixes: [], gaps: [], problemGaps: day.summary.short + day.summary.overlap, next: null };
+  for (; roomIndex < day.rooms.length; roomIndex++, gapIndex = 0) {
+    const room = day.judged(day.rooms[roomIndex]!.id);
+    for (; gapIndex < room.gaps.length; gapIndex++) {
+      const gap = room.gaps[gapIndex]!;
+      if (!isProblemVerdict(gap.verdict)) continue;
+      if (page.gaps.length === limit) {
+        // one more problem gap exists: the page ends at the last one covered
+        page.next = page.gaps.at(-1)!;
+        return page;
       }
+      page.gaps.push(gap.toExamId);
+      page.fixes.push(...fixesOfGap(day, room, gapIndex));
     }
+  }
+  return page;
+}
+
+function fixesOfGap(day: FixDay, room: JudgedRoom, index: number): Fix[] {
+  if (!isProblemVerdict(room.gaps[index]?.verdict)) return [];
+  const fixes: Fix[] = [];
+  for (const build of [pushLater, otherRoom, addHelper, isolationLast]) {
+    const fix = build(day, room, index);
+    if (fix) fixes.push(fix);
   }
   return fixes;
 }
 
-interface Ctx {
-  input: DayPlanInput;
-  plan: DayPlan;
-  zone: string;
-  margin: number;
+const hhmm = (day: FixDay, t: number) => day.format(t).slice(11, 16);
+
+function move(day: FixDay, slot: DayPlanSlot, roomId: number, start: string): ExamMove {
+  const { exam } = slot;
+  return { type: 'move', examId: exam.id, accession: exam.accession, from: { roomId: exam.roomId, start: day.format(slot.startMs) }, to: { roomId, start } };
 }
 
-const ms = (iso: string) => Date.parse(iso);
-function iso(ctx: Ctx, t: number): string {
-  return DateTime.fromMillis(t, { zone: ctx.zone }).toISO({ suppressMilliseconds: true })!;
+interface Weighed {
+  focus: JudgedGap;
+  /** The touched rooms afterwards. */
+  after: Map<number, JudgedRoom>;
 }
-function hhmm(ctx: Ctx, t: number): string {
-  return DateTime.fromMillis(t, { zone: ctx.zone }).toFormat('HH:mm');
-}
-function move(exam: PlanExam, roomId: number, start: string): ExamMove {
-  return { type: 'move', examId: exam.id, accession: exam.accession, from: { roomId: exam.roomId, start: exam.start }, to: { roomId, start } };
-}
-const dayEnd = (room: PlanRoom) => Math.max(...room.exams.map((e) => ms(e.end)), ms(room.opensAt));
 
-/** Evaluates changes with the engine and packages them as a fix. */
-function evaluate(ctx: Ctx, kind: FixKind, gap: PlanGap, changes: PlanChange[], title: string, describe: (after: DayPlan, focus: PlanGap | undefined) => string, focusExamId = gap.toExamId): Fix | null {
-  const after = computeDayPlan(withChanges(ctx.input, changes));
-  const beforeGaps = new Map(ctx.plan.rooms.flatMap((r) => r.gaps).map((g) => [g.toExamId, g]));
-  const afterGaps = after.rooms.flatMap((r) => r.gaps);
-  const focus = afterGaps.find((g) => g.toExamId === focusExamId);
+/**
+ * Weighs changes on the rooms they touch (the gap's room, and the rooms exams move from and to:
+ * no other gap can change) and packages them as a fix.
+ */
+function evaluate(day: FixDay, kind: FixKind, room: JudgedRoom, gap: JudgedGap, changes: PlanChange[], title: string, describe: (weighed: Weighed) => string): Fix | null {
+  const touched = new Set<number>([room.room.id]);
+  for (const change of changes) if (change.type === 'move') touched.add(change.from.roomId).add(change.to.roomId);
+  const after = day.judgeWith(touched, changes);
+  let focus: JudgedGap | undefined;
+  let newProblems = 0;
+  for (const judged of after.values()) {
+    for (const g of judged.gaps) {
+      if (g.toExamId === gap.toExamId) focus = g;
+      else if (isProblemVerdict(g.verdict) && !isProblemVerdict(day.gapBefore(g.toExamId)?.verdict)) newProblems++;
+    }
+  }
   if (!focus) return null;
-  const newProblems = afterGaps.filter((g) => g.toExamId !== focusExamId && isProblem(g) && !isProblem(beforeGaps.get(g.toExamId))).length;
-  const touched = new Set(changes.flatMap((c) => (c.type === 'move' ? [c.from.roomId, c.to.roomId] : [])));
-  const roomOf = (p: DayPlan) => p.rooms.filter((r) => touched.has(r.id) || r.gaps.some((g) => g.toExamId === gap.toExamId));
-  const endBefore = Math.max(...roomOf(ctx.plan).map(dayEnd));
-  const endAfter = Math.max(...roomOf(after).map(dayEnd));
+  let endBefore = -Infinity;
+  let endAfter = -Infinity;
+  for (const [roomId, judged] of after) {
+    endBefore = Math.max(endBefore, day.judged(roomId).endsMs);
+    endAfter = Math.max(endAfter, judged.endsMs);
+  }
   return {
     id: `${kind}:${gap.toExamId}`,
     kind,
     toExamId: gap.toExamId,
     title,
-    detail: describe(after, focus),
+    detail: describe({ focus, after }),
     changes,
     effect: {
       verdictAfter: focus.verdict,
       shortByAfter: focus.shortByMinutes,
       newProblems,
-      dayEndsBefore: iso(ctx, endBefore),
-      dayEndsAfter: iso(ctx, endAfter),
-      summaryAfter: after.summary,
+      dayEndsBefore: day.format(endBefore),
+      dayEndsAfter: day.format(endAfter),
+      summaryAfter: summaryWith(day, after),
     },
   };
 }
 
-function pushLater(ctx: Ctx, room: PlanRoom, gap: PlanGap): Fix | null {
-  const index = room.exams.findIndex((e) => e.id === gap.toExamId);
+function pushLater(day: FixDay, room: JudgedRoom, index: number): Fix | null {
+  const gap = room.gaps[index]!;
   const changes: ExamMove[] = [];
-  let previousEnd = ms(room.exams[index]!.start) - gap.availableMinutes * MINUTE; // the leaving exam's end (or the opening)
-  for (let i = index; i < room.exams.length; i++) {
-    const exam = room.exams[i]!;
-    const g = room.gaps.find((x) => x.toExamId === exam.id)!;
+  let previousEnd = room.slots[index]!.startMs - gap.availableMinutes * MINUTE; // the leaving exam's end (or the opening)
+  for (let i = index; i < room.slots.length; i++) {
+    const slot = room.slots[i]!;
+    const g = room.gaps[i]!;
     // only as far as needed: a fitting gap keeps fitting, a snug one stays at least snug, a problem gap gets no worse
-    const wanted = i === index ? g.requiredMinutes + ctx.margin : g.verdict === 'fits' ? g.requiredMinutes + ctx.margin : g.verdict === 'snug' ? g.requiredMinutes : g.availableMinutes;
-    const start = Math.max(ms(exam.start), previousEnd + wanted * MINUTE);
-    if (start === ms(exam.start)) break;
-    changes.push(move(exam, room.id, iso(ctx, start)));
-    previousEnd = start + exam.durationMinutes * MINUTE;
+    const wanted = i === index ? g.requiredMinutes + day.margin : g.verdict === 'fits' ? g.requiredMinutes + day.margin : g.verdict === 'snug' ? g.requiredMinutes : g.availableMinutes;
+    const start = Math.max(slot.startMs, previousEnd + wanted * MINUTE);
+    if (start === slot.startMs) break;
+    previousEnd = start + slot.exam.durationMinutes * MINUTE;
+    if (previousEnd > day.lastEndMs) return null; // nothing is pushed into the next day
+    changes.push(move(day, slot, room.room.id, day.format(start)));
   }
   if (changes.length === 0) return null;
   const first = changes[0]!;
-  const lastEnd = DateTime.fromISO(ctx.plan.date, { zone: ctx.zone }).plus({ days: 1 }).toMillis();
-  if (changes.some((c) => ms(c.to.start) + room.exams.find((e) => e.id === c.examId)!.durationMinutes * MINUTE > lastEnd)) return null;
-  const later = Math.round((ms(first.to.start) - ms(first.from.start)) / MINUTE);
-  return evaluate(ctx, 'push-later', gap, changes, `Start ${first.accession} ${later} min later, at ${hhmm(ctx, ms(first.to.start))}`, (after) => {
-    const cascade = changes.length > 1 ? ` and ${changes.length - 1} later exam${changes.length > 2 ? 's' : ''} in ${room.name} move too` : '';
-    const end = Math.max(...after.rooms.filter((r) => r.id === room.id).map(dayEnd));
-    return `${first.accession} moves${cascade}; ${room.name}'s last exam then ends at ${hhmm(ctx, end)} (was ${hhmm(ctx, dayEnd(room))}).`;
+  const later = Math.round((Date.parse(first.to.start) - Date.parse(first.from.start)) / MINUTE);
+  const name = room.room.name;
+  return evaluate(day, 'push-later', room, gap, changes, `Start ${first.accession} ${later} min later, at ${first.to.start.slice(11, 16)}`, ({ after }) => {
+    const cascade = changes.length > 1 ? ` and ${changes.length - 1} later exam${changes.length > 2 ? 's' : ''} in ${name} move too` : '';
+    return `${first.accession} moves${cascade}; ${name}'s last exam then ends at ${hhmm(day, after.get(room.room.id)!.endsMs)} (was ${hhmm(day, room.endsMs)}).`;
   });
 }
 
-function otherRoom(ctx: Ctx, room: PlanRoom, gap: PlanGap): Fix | null {
-  const exam = room.exams.find((e) => e.id === gap.toExamId)!;
-  for (const candidate of ctx.plan.rooms) {
-    if (candidate.id === room.id || candidate.modality !== room.modality) continue;
-    const fix = evaluate(ctx, 'other-room', gap, [move(exam, candidate.id, exam.start)], `Move ${exam.accession} to ${candidate.name} at the same time`, (_after, focus) =>
-      `${exam.accession} keeps its ${hhmm(ctx, ms(exam.start))} start in ${candidate.name}; its turnover there ${focus!.verdict === 'fits' ? 'fits' : `is ${focus!.verdict}`}.`,
+function otherRoom(day: FixDay, room: JudgedRoom, index: number): Fix | null {
+  const gap = room.gaps[index]!;
+  const slot = room.slots[index]!;
+  const { exam } = slot;
+  for (const candidate of day.rooms) {
+    if (candidate.id === room.room.id || candidate.modality !== room.room.modality) continue;
+    const start = day.format(slot.startMs);
+    const fix = evaluate(day, 'other-room', room, gap, [move(day, slot, candidate.id, start)], `Move ${exam.accession} to ${candidate.name} at the same time`, ({ focus }) =>
+      `${exam.accession} keeps its ${hhmm(day, slot.startMs)} start in ${candidate.name}; its turnover there ${focus.verdict === 'fits' ? 'fits' : `is ${focus.verdict}`}.`,
     );
-    if (fix && fix.effect.newProblems === 0 && !isProblem({ verdict: fix.effect.verdictAfter } as PlanGap)) return fix;
+    if (fix && fix.effect.newProblems === 0 && !isProblemVerdict(fix.effect.verdictAfter)) return fix;
   }
   return null;
 }
 
-function addHelper(ctx: Ctx, room: PlanRoom, gap: PlanGap): Fix | null {
+function addHelper(day: FixDay, room: JudgedRoom, index: number): Fix | null {
+  const gap = room.gaps[index]!;
   if (gap.staff >= MAX_STAFF) return null;
-  const accession = room.exams.find((e) => e.id === gap.toExamId)!.accession;
-  const current = ctx.input.staffOverrides?.[gap.toExamId] ?? null;
-  const fix = evaluate(ctx, 'add-helper', gap, [{ type: 'staffing', toExamId: gap.toExamId, accession, from: current, to: gap.staff + 1 }], `Add a helper before ${accession} (${gap.staff + 1} people)`, (_after, focus) =>
-    focus!.requiredMinutes < gap.requiredMinutes
-      ? `The turnover takes ${focus!.requiredMinutes} min instead of ${gap.requiredMinutes}${isProblem(focus) ? `; still short by ${focus!.shortByMinutes} min` : ''}.`
+  const accession = room.slots[index]!.exam.accession;
+  const current = day.input.staffOverrides?.[gap.toExamId] ?? null;
+  const changes: PlanChange[] = [{ type: 'staffing', toExamId: gap.toExamId, accession, from: current, to: gap.staff + 1 }];
+  const fix = evaluate(day, 'add-helper', room, gap, changes, `Add a helper before ${accession} (${gap.staff + 1} people)`, ({ focus }) =>
+    focus.requiredMinutes < gap.requiredMinutes
+      ? `The turnover takes ${focus.requiredMinutes} min instead of ${gap.requiredMinutes}${isProblemVerdict(focus.verdict) ? `; still short by ${focus.shortByMinutes} min` : ''}.`
       : 'A second person does not shorten this turnover (it is waiting on drying or the air hold).',
   );
   return fix && fix.effect.shortByAfter < gap.shortByMinutes ? fix : null;
 }
 
-function isolationLast(ctx: Ctx, room: PlanRoom, gap: PlanGap): Fix | null {
-  const leaving = room.exams.find((e) => e.id === gap.fromExamId);
-  const last = room.exams.at(-1)!;
-  if (!leaving || leaving.precaution === 'none' || leaving.id === last.id) return null;
-  // first place it right after the last exam to learn the turnover it needs, then leave that gap
-  const probe = computeDayPlan(withChanges(ctx.input, [move(leaving, room.id, last.end)]));
-  const needed = probe.rooms.find((r) => r.id === room.id)!.gaps.find((g) => g.toExamId === leaving.id)!.requiredMinutes;
-  const start = ms(last.end) + (needed + ctx.margin) * MINUTE;
-  if (start + leaving.durationMinutes * MINUTE > DateTime.fromISO(ctx.plan.date, { zone: ctx.zone }).plus({ days: 1 }).toMillis()) return null;
-  const changes = [move(leaving, room.id, iso(ctx, start))];
-  return evaluate(ctx, 'isolation-last', gap, changes, `Move the ${leaving.precaution}-precaution case ${leaving.accession} to the end of ${room.name}'s list`, (after) => {
-    const end = Math.max(...after.rooms.filter((r) => r.id === room.id).map(dayEnd));
-    return `${leaving.accession} then starts at ${hhmm(ctx, start)} after ${last.accession}; ${room.name}'s day ends at ${hhmm(ctx, end)}. Isolation cases last is common practice, leaving time for the terminal clean.`;
-  });
+function isolationLast(day: FixDay, room: JudgedRoom, index: number): Fix | null {
+  const gap = room.gaps[index]!;
+  const leaving = index > 0 ? room.slots[index - 1]! : undefined;
+  const last = room.slots.at(-1)!;
+  if (!leaving || leaving.exam.precaution === 'none' || leaving === last) return null;
+  // the turnover it needs when placed right after the last exam; then that gap is left before it
+  const needed = turnoverAfterLast(day, room, leaving, last);
+  const startMs = last.endMs + (needed + day.margin) * MINUTE;
+  if (startMs + leaving.exam.durationMinutes * MINUTE > day.lastEndMs) return null;
+  const name = room.room.name;
+  const changes = [move(day, leaving, room.room.id, day.format(startMs))];
+  const { accession, precaution } = leaving.exam;
+  return evaluate(day, 'isolation-last', room, gap, changes, `Move the ${precaution}-precaution case ${accession} to the end of ${name}'s list`, ({ after }) =>
+    `${accession} then starts at ${hhmm(day, startMs)} after ${last.exam.accession}; ${name}'s day ends at ${hhmm(day, after.get(room.room.id)!.endsMs)}. Isolation cases last is common practice, leaving time for the terminal clean.`,
+  );
+}
+
+/** Required minutes of the turnover before `leaving` once it starts at the end of the last exam. */
+function turnoverAfterLast(day: FixDay, room: JudgedRoom, leaving: DayPlanSlot, last: DayPlanSlot): number {
+  const { input } = day;
+  if (last.endMs > last.startMs) {
+    // it then starts after every other exam, so the last exam is the one it follows
+    const protocol = protocolFor(room.room.modality, input.protocols);
+    const staff = input.staffOverrides?.[leaving.exam.id] ?? room.room.staff;
+    return turnoverFor(day.turnovers(protocol), { input, room: room.room, protocol, leaving: last.exam, arriving: leaving.exam, staff }).requiredMinutes;
+  }
+  // a zero-length last exam ties on start time, and the id decides the order: judge the room
+  const probe = day.judgeWith(new Set([room.room.id]), [move(day, leaving, room.room.id, day.format(last.endMs))]).get(room.room.id)!;
+  return probe.gaps.find((g) => g.toExamId === leaving.exam.id)!.requiredMinutes;
 }

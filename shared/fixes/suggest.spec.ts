@@ -1,0 +1,152 @@
+import type { DayPlan, PlanGap } from '../api/plan';
+import { computeDayPlan } from '../turnover/day-plan';
+import type { DayPlanInput } from '../turnover/day-plan-input';
+import { withChanges } from './apply-changes';
+import { MAX_FIX_GAPS_PER_CALL, type Fix } from './model';
+import { suggestFixes, suggestGapFixes } from './suggest';
+import { randomDay } from './testing/random-day';
+
+const isProblem = (gap: PlanGap | undefined) => gap?.verdict === 'short' || gap?.verdict === 'overlap';
+const problemGapIds = (plan: DayPlan) => plan.rooms.flatMap((r) => r.gaps.filter(isProblem).map((g) => g.toExamId));
+
+/** Every page from the first, following `next`. */
+function allPages(input: DayPlanInput, limit: number) {
+  const pages = [];
+  let after: number | undefined;
+  do {
+    const page = suggestFixes(input, { after, limit })!;
+    pages.push(page);
+    after = page.next ?? undefined;
+  } while (after !== undefined);
+  return pages;
+}
+
+/**
+ * The oracle: the whole day recomputed by the engine with the fix's changes applied, as the
+ * fixes were weighed before they were weighed on the touched rooms only.
+ */
+function wholeDayEffect(input: DayPlanInput, before: DayPlan, fix: Fix) {
+  const after = computeDayPlan(withChanges(input, fix.changes));
+  const beforeGaps = new Map(before.rooms.flatMap((r) => r.gaps).map((g) => [g.toExamId, g]));
+  const afterGaps = after.rooms.flatMap((r) => r.gaps);
+  const focus = afterGaps.find((g) => g.toExamId === fix.toExamId)!;
+  const touched = new Set(fix.changes.flatMap((c) => (c.type === 'move' ? [c.from.roomId, c.to.roomId] : [])));
+  const ends = (plan: DayPlan) => {
+    const rooms = plan.rooms.filter((r) => touched.has(r.id) || r.gaps.some((g) => g.toExamId === fix.toExamId));
+    return Math.max(...rooms.flatMap((r) => [Date.parse(r.opensAt), ...r.exams.map((e) => Date.parse(e.end))]));
+  };
+  return {
+    verdictAfter: focus.verdict,
+    shortByAfter: focus.shortByMinutes,
+    newProblems: afterGaps.filter((g) => g.toExamId !== fix.toExamId && isProblem(g) && !isProblem(beforeGaps.get(g.toExamId))).length,
+    dayEndsBefore: ends(before),
+    dayEndsAfter: ends(after),
+    summaryAfter: after.summary,
+  };
+}
+
+describe('suggestFixes', () => {
+  it('pages through every problem gap once, in plan order, each page at most `limit` gaps', () => {
+    for (let seed = 1; seed <= 15; seed++) {
+      const input = randomDay(seed);
+      const expected = problemGapIds(computeDayPlan(input));
+      for (const limit of [1, 4, MAX_FIX_GAPS_PER_CALL]) {
+        const pages = allPages(input, limit);
+        expect([seed, limit, pages.flatMap((p) => p.gaps)]).toEqual([seed, limit, expected]);
+        for (const page of pages) {
+          expect(page.gaps.length).toBeLessThanOrEqual(limit);
+          expect(page.problemGaps).toBe(expected.length);
+          expect(page.fixes.every((fix) => page.gaps.includes(fix.toExamId))).toBe(true);
+        }
+        expect(pages.at(-1)!.next).toBeNull();
+        expect(pages.slice(0, -1).map((p) => p.next)).toEqual(pages.slice(0, -1).map((p) => p.gaps.at(-1)));
+      }
+    }
+  });
+
+  it('weighs each fix as recomputing the whole day would', () => {
+    let checked = 0;
+    const kinds = new Set<string>();
+    for (let seed = 1; seed <= 40; seed++) {
+      const input = randomDay(seed, seed % 5 === 0 ? '2027-03-14' : '2027-03-15');
+      const before = computeDayPlan(input);
+      for (const fix of allPages(input, MAX_FIX_GAPS_PER_CALL).flatMap((p) => p.fixes)) {
+        const { dayEndsBefore, dayEndsAfter, ...effect } = fix.effect;
+        const whole = wholeDayEffect(input, before, fix);
+        expect([fix.id, { ...effect, dayEndsBefore: Date.parse(dayEndsBefore), dayEndsAfter: Date.parse(dayEndsAfter) }]).toEqual([fix.id, whole]);
+        kinds.add(fix.kind);
+        checked++;
+      }
+    }
+    expect(checked).toBeGreaterThan(100);
+    expect([...kinds].sort()).toEqual(['add-helper', 'isolation-last', 'other-room', 'push-later']);
+  });
+
+  it('starts after the gap named by `after`, even when that gap is no longer a problem', () => {
+    const input = randomDay(11);
+    const plan = computeDayPlan(input);
+    const problems = problemGapIds(plan);
+    const fitting = plan.rooms.flatMap((r) => r.gaps).find((g) => !isProblem(g))!;
+    const order = plan.rooms.flatMap((r) => r.gaps.map((g) => g.toExamId));
+    const expected = problems.filter((id) => order.indexOf(id) > order.indexOf(fitting.toExamId)).slice(0, 2);
+    expect(suggestFixes(input, { after: fitting.toExamId, limit: 2 })!.gaps).toEqual(expected);
+  });
+
+  it('answers null for an `after` that is not an exam of the day, and refuses a bad limit', () => {
+    const input = randomDay(2);
+    expect(suggestFixes(input, { after: 99_999 })).toBeNull();
+    for (const limit of [0, MAX_FIX_GAPS_PER_CALL + 1, 1.5, Number.NaN]) {
+      expect(() => suggestFixes(input, { limit })).toThrow(RangeError);
+    }
+  });
+
+  it('answers an empty last page for a day with no problem gap', () => {
+    const input = { ...randomDay(4), exams: [] };
+    expect(suggestFixes(input)).toEqual({ fixes: [], gaps: [], problemGaps: 0, next: null });
+  });
+});
+
+describe('suggestGapFixes', () => {
+  it("gives a gap's fixes exactly as the day's pages give them", () => {
+    for (let seed = 1; seed <= 10; seed++) {
+      const input = randomDay(seed);
+      const fixes = allPages(input, MAX_FIX_GAPS_PER_CALL).flatMap((p) => p.fixes);
+      for (const toExamId of problemGapIds(computeDayPlan(input))) {
+        expect(suggestGapFixes(input, toExamId)).toEqual(fixes.filter((f) => f.toExamId === toExamId));
+      }
+    }
+  });
+
+  it('gives none for a gap that fits, and null for an exam not on the day', () => {
+    const input = randomDay(6);
+    const fitting = computeDayPlan(input).rooms.flatMap((r) => r.gaps).find((g) => !isProblem(g))!;
+    expect(suggestGapFixes(input, fitting.toExamId)).toEqual([]);
+    expect(suggestGapFixes(input, 99_999)).toBeNull();
+  });
+
+  it('pushes the short gap of the example day later with its cascade, and adds a helper', () => {
+    // MR 1: ACC-1 08:00–08:30, ACC-2 08:40 (10 min where one person needs 20: short by 10), ACC-3 09:15 (5 min after ACC-2).
+    const exam = (id: number, start: string, extra = {}) => ({
+      id, accession: `ACC-${id}`, roomId: 1, start: `2027-03-15T${start}:00-05:00`, durationMinutes: 30,
+      procedure: 'MR knee without contrast', coil: 'knee', precaution: 'none' as const, mobility: 'ambulatory' as const, contrast: false, version: 1, ...extra,
+    });
+    const input: DayPlanInput = {
+      date: '2027-03-15',
+      timezone: 'America/Chicago',
+      rooms: [{ id: 1, name: 'MR 1', modality: 'MR', staff: 1, airChangesPerHour: 6 }],
+      exams: [exam(1, '08:00'), exam(2, '08:40'), exam(3, '09:15')],
+    };
+    const fixes = suggestGapFixes(input, 2)!;
+    expect(fixes.map((f) => [f.id, f.title])).toEqual([
+      // 08:30 + 20 min turnover + 3 min margin = 08:53
+      ['push-later:2', 'Start ACC-2 13 min later, at 08:53'],
+      ['add-helper:2', 'Add a helper before ACC-2 (2 people)'],
+    ]);
+    // ACC-3's gap was short already: it keeps its 5 minutes (no worse), so it moves to 09:28 — not made to fit
+    expect(fixes[0]!.changes.map((c) => c.type === 'move' && c.to.start)).toEqual(['2027-03-15T08:53:00-05:00', '2027-03-15T09:28:00-05:00']);
+    expect(fixes[0]!.detail).toBe("ACC-2 moves and 1 later exam in MR 1 move too; MR 1's last exam then ends at 09:58 (was 09:45).");
+    expect(fixes[0]!.effect).toMatchObject({ verdictAfter: 'fits', newProblems: 0, dayEndsBefore: '2027-03-15T09:45:00-05:00', dayEndsAfter: '2027-03-15T09:58:00-05:00' });
+    // two people: 14 min (the product brief's check value), still short by 4
+    expect(fixes[1]!.effect).toMatchObject({ verdictAfter: 'short', shortByAfter: 4 });
+  });
+});
