@@ -56,8 +56,9 @@ export class DayPlanService {
     return this.http.get<{ changes: PlanChangeRecord[] }>(`${day(date)}/history`, this.quiet).pipe(map((body) => body.changes));
   }
 
-  fixes(date: string): Observable<Fix[]> {
-    return this.http.get<{ fixes: Fix[] }>(`${day(date)}/fixes`, this.quiet).pipe(map((body) => body.fixes));
+  /** The suggested fixes of one gap (the one before exam `toExamId`); none when it is not short or overlapping. */
+  fixes(date: string, toExamId: number): Observable<Fix[]> {
+    return this.http.get<{ fixes: Fix[] }>(`${day(date)}/fixes`, { ...this.quiet, params: { gap: toExamId } }).pipe(map((body) => body.fixes));
   }
 
   /** 422 when the fix makes other gaps short and that was not accepted. */

@@ -91,7 +91,7 @@ describe('DayPlan timeline', () => {
     const { page, fixture, backend } = await renderDay();
     marker(page, 2).click();
     await settle(fixture);
-    backend.expectOne('/api/days/2027-03-15/fixes').flush({ fixes: [] });
+    backend.expectOne('/api/days/2027-03-15/fixes?gap=2').flush({ fixes: [] });
     await settle(fixture);
     const panel = page.querySelector('tw-gap-panel')!;
     expect(text(panel.querySelector('h2'))).toBe('Turnover before ACC-2');
@@ -110,7 +110,7 @@ describe('DayPlan timeline', () => {
     const { page, fixture, backend } = await renderDay();
     marker(page, 2).click();
     await settle(fixture);
-    backend.expectOne('/api/days/2027-03-15/fixes').flush({ fixes: [fix('push-later:2', 0), { ...fix('other:9', 0), toExamId: 9 }, fix('add-helper:2', 2)] });
+    backend.expectOne('/api/days/2027-03-15/fixes?gap=2').flush({ fixes: [fix('push-later:2', 0), fix('add-helper:2', 2)] });
     await settle(fixture);
     const cards = Array.from(page.querySelectorAll('tw-fix-card'));
     expect(cards).toHaveLength(2);
@@ -122,7 +122,7 @@ describe('DayPlan timeline', () => {
     expect(first.request.body).toEqual({ fixId: 'push-later:2', acceptNewProblems: false });
     first.flush({ applied: fix('push-later:2', 0), plan: dayPlan() });
     await settle(fixture);
-    backend.expectOne('/api/days/2027-03-15/fixes').flush({ fixes: [fix('add-helper:2', 2)] });
+    backend.expectOne('/api/days/2027-03-15/fixes?gap=2').flush({ fixes: [fix('add-helper:2', 2)] });
     await settle(fixture);
 
     page.querySelector<HTMLButtonElement>('tw-fix-card button.apply')!.click();
@@ -137,7 +137,7 @@ describe('DayPlan timeline', () => {
     const { page, fixture, backend } = await renderDay();
     marker(page, 2).click();
     await settle(fixture);
-    backend.expectOne('/api/days/2027-03-15/fixes').flush({ fixes: [] });
+    backend.expectOne('/api/days/2027-03-15/fixes?gap=2').flush({ fixes: [] });
     const toggles = Array.from(page.querySelectorAll<HTMLButtonElement>('tw-gap-panel mat-button-toggle button'));
     expect(toggles.map(text)).toEqual(['Room default (1)', '1', '2', '3']);
     toggles[2].click();
@@ -146,7 +146,7 @@ describe('DayPlan timeline', () => {
     expect(put.request.body).toEqual({ staff: 2 });
     put.flush(dayPlan({ ...DAY_INPUT, staffOverrides: { 2: 2 } }));
     await settle(fixture);
-    backend.match('/api/days/2027-03-15/fixes');
+    backend.match('/api/days/2027-03-15/fixes?gap=2');
     await settle(fixture);
     const panel = page.querySelector('tw-gap-panel')!;
     expect(text(panel.querySelectorAll('.facts dd')[3])).toBe('2 (set for this gap)');
@@ -160,7 +160,7 @@ describe('DayPlan timeline', () => {
     await settle(fixture);
     backend.expectOne('/api/days/2027-03-15/plan').flush(dayPlan());
     await settle(fixture);
-    backend.match('/api/days/2027-03-15/fixes');
+    backend.match('/api/days/2027-03-15/fixes?gap=2');
   });
 
   for (const role of ['tech', 'frontdesk'] as const) {
@@ -176,7 +176,7 @@ describe('DayPlan timeline', () => {
       document.dispatchEvent(new KeyboardEvent('keydown', { key: 'z', ctrlKey: true, bubbles: true }));
       marker(page, 2).click();
       await settle(fixture);
-      backend.expectOne('/api/days/2027-03-15/fixes').flush({ fixes: [fix('push-later:2', 0)] });
+      backend.expectOne('/api/days/2027-03-15/fixes?gap=2').flush({ fixes: [fix('push-later:2', 0)] });
       await settle(fixture);
       expect(text(page.querySelector('tw-fix-card'))).toContain('Start ACC-2 10 min later');
       expect(page.querySelector('tw-fix-card button')).toBeNull();

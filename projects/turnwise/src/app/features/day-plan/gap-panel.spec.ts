@@ -29,7 +29,7 @@ describe('Gap panel', () => {
     const { page, fixture, backend } = await renderDay();
     marker(page, 2).click();
     await settle(fixture);
-    backend.expectOne('/api/days/2027-03-15/fixes').flush({ fixes: [fix('helper', 8), fix('later', 0)] });
+    backend.expectOne('/api/days/2027-03-15/fixes?gap=2').flush({ fixes: [fix('helper', 8), fix('later', 0)] });
     await settle(fixture);
     const cards = Array.from(page.querySelectorAll('tw-fix-card'));
     expect(cards.map((card) => card.getAttribute('data-fix-id'))).toEqual(['later', 'helper']);
@@ -43,7 +43,7 @@ describe('Gap panel', () => {
     const { page, fixture, backend } = await renderDay();
     marker(page, 2).click();
     await settle(fixture);
-    backend.expectOne('/api/days/2027-03-15/fixes').flush({ fixes: [] });
+    backend.expectOne('/api/days/2027-03-15/fixes?gap=2').flush({ fixes: [] });
     await settle(fixture);
     const head = page.querySelector('tw-gap-panel header.head')!;
     expect(head.querySelector('h2')).not.toBeNull();

@@ -65,8 +65,8 @@ export class GapPanel {
       switchMap(({ date, toExamId, late }) =>
         !late
           ? of<FixesState>({ status: 'loaded', fixes: [] })
-          : this.api.fixes(date).pipe(
-              map((fixes): FixesState => ({ status: 'loaded', fixes: fixes.filter((fix) => fix.toExamId === toExamId) })),
+          : this.api.fixes(date, toExamId).pipe(
+              map((fixes): FixesState => ({ status: 'loaded', fixes })),
               catchError((error: { message?: string }) => of<FixesState>({ status: 'failed', message: error.message ?? 'Fixes could not be loaded.' })),
               startWith<FixesState>({ status: 'loading' }),
             ),
