@@ -21,6 +21,7 @@ import { roomRoutes } from './routes/rooms';
 import { settingsRoutes } from './routes/settings';
 import { apiRoutes } from './routes/api';
 import { DayEvents } from './services/day-events';
+import { createWorkerPool, type WorkerPool } from './workers/pool';
 import { createFixesPool, type FixesPool } from './workers/fixes-pool';
 
 export interface AppDeps {
@@ -29,6 +30,8 @@ export interface AppDeps {
   clock?: Clock;
   /** Live-update fan-out; one per app unless a test shares one. */
   events?: DayEvents;
+  /** Worker threads for work that grows with its input (reading uploaded files); made per app if omitted. */
+  workers?: WorkerPool;
   /** Worker threads for suggested fixes; made per app if omitted. */
   fixesPool?: FixesPool;
   /** Demo mode lists the demo accounts on the sign-in page. */
@@ -50,6 +53,7 @@ export interface AppDeps {
 export function createApp(deps: AppDeps): Express {
   const clock = deps.clock ?? systemClock;
   const events = deps.events ?? new DayEvents();
+  const workers = deps.workers ?? createWorkerPool();
   const fixesPool = deps.fixesPool ?? createFixesPool();
   const production = deps.production ?? false;
   const logError = deps.logError ?? ((err: unknown) => console.error(err));

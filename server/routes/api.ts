@@ -2,6 +2,7 @@ import { Router } from 'express';
 import type { Knex } from 'knex';
 import type { Clock } from '../clock';
 import type { DayEvents } from '../services/day-events';
+import type { WorkerPool } from '../workers/pool';
 import type { FixesPool } from '../workers/fixes-pool';
 import { dayChangeRoutes } from './day-changes';
 import { dayRoutes } from './days';
@@ -16,7 +17,7 @@ import { turnoverRoutes } from './turnovers';
  * Day-plan routes: days (plan, import, history, fixes, events) and exams (moves, staffing);
  * the day itself: board, arrivals, turnovers, shift tasks and the cleaning log.
  */
-export function apiRoutes(deps: { db: Knex; clock: Clock; events: DayEvents; fixesPool: FixesPool }): Router {
+export function apiRoutes(deps: { db: Knex; clock: Clock; events: DayEvents; workers: WorkerPool; fixesPool: FixesPool }): Router {
   const router = Router();
   router.use('/days', dayRoutes(deps), dayChangeRoutes(deps));
   router.use('/exams', examRoutes(deps), examProgressRoutes(deps));

@@ -1,15 +1,23 @@
-import { Router } from 'express';
+import { Router, type RequestHandler } from 'express';
 import type { Knex } from 'knex';
 import multer from 'multer';
 import { DateTime } from 'luxon';
 import type { Clock } from '../clock';
 import type { DayEvents } from '../services/day-events';
-import { ValidationError } from '../errors';
+import { z } from 'zod';
+import { EXAM_FILE_LIMITS } from '../../shared/exam-list/file-limits';
+import { HttpError, ValidationError } from '../errors';
+import { FileLimitError } from '../services/file-limits';
+import type { WorkerPool } from '../workers/pool';
+import { parseInput } from '../validate';
 import { currentUser, requireRole, requireUser } from '../middleware/roles';
-import { loadDayPlan } from '../services/day-plan';
+import { loadCachedDayPlan } from '../services/day-plan';
 import { importExamList } from '../services/exam-import';
 
-export const MAX_UPLOAD_BYTES = 5 * 1024 * 1024;
+const dryRunQuery = z.object({
+  dryRun: z.enum(['true', 'false']).optional(),
+  dayVersion: z.coerce.number().int().min(0).optional(),
+});
 
 /** `YYYY-MM-DD` that is a real calendar day. */
 export function parseDay(value: unknown): string {
@@ -19,28 +27,52 @@ export function parseDay(value: unknown): string {
   return value;
 }
 
-export function dayRoutes(deps: { db: Knex; clock: Clock; events: DayEvents }): Router {
+export function dayRoutes(deps: { db: Knex; clock: Clock; events: DayEvents; workers: WorkerPool }): Router {
   const router = Router();
-  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 5 } });
+  const multipart = multer({
+    storage: multer.memoryStorage(),
+    limits: { fileSize: EXAM_FILE_LIMITS.maxUploadBytes, files: 1, fields: 5, parts: 6, headerPairs: 50 },
+  }).single('file');
+  // A truncated body or a broken boundary is the client's fault: 400, never a 500.
+  const upload: RequestHandler = (req, res, next) => multipart(req, res, (err?: unknown) => next(err ? uploadError(err) : undefined));
 
+  // Served from the plan cache with a strong ETag: an unchanged day answers 304 to a revalidation.
+  // `private, no-cache` (not no-store) so a browser may keep it but must ask before each use.
   router.get('/:date/plan', requireUser, async (req, res) => {
-    res.json(await loadDayPlan(deps.db, parseDay(req.params['date'])));
+    const { json, etag } = await loadCachedDayPlan(deps.db, parseDay(req.params['date']));
+    res.set({ ETag: etag, 'Cache-Control': 'private, no-cache' });
+    if (req.fresh) {
+      res.status(304).end();
+      return;
+    }
+    res.type('application/json').send(json);
   });
 
-  router.post('/:date/exams/import', requireRole('scheduler', 'charge'), upload.single('file'), async (req, res) => {
+  router.post('/:date/exams/import', requireRole('scheduler', 'charge'), upload, async (req, res) => {
     const day = parseDay(req.params['date']);
+    const query = parseInput(dryRunQuery, req.query, 'import');
     if (!req.file) throw new ValidationError('Choose a file to import (multipart field "file").');
     const user = currentUser(req);
-    const result = await importExamList(deps.db, {
+    const result = await importExamList(deps.db, deps.workers, {
       day,
       file: req.file,
       userId: user.id,
-      dryRun: req.query['dryRun'] === 'true',
+      dryRun: query.dryRun === 'true',
       now: deps.clock.now(),
+      expectedDayVersion: query.dayVersion,
     });
     if (!result.dryRun) deps.events.publish({ date: day, kind: 'plan', reason: 'import', by: user.displayName || user.username, at: deps.clock.now().toISOString() });
     res.json(result);
   });
 
   return router;
+}
+
+function uploadError(err: unknown): HttpError {
+  if (err instanceof HttpError) return err;
+  const code = (err as { code?: string }).code;
+  if (code === 'LIMIT_FILE_SIZE') {
+    return new FileLimitError(413, 'maxUploadBytes', `The file is larger than ${EXAM_FILE_LIMITS.maxUploadBytes / (1024 * 1024)} MB; a day list is far smaller.`);
+  }
+  return new HttpError(400, 'bad_upload', 'The upload could not be read: send one file as multipart/form-data in the field "file".');
 }

@@ -1,7 +1,11 @@
 import { isUtf8 } from 'node:buffer';
+import { Readable } from 'node:stream';
 import { parse as parseCsv } from 'csv-parse/sync';
-import { Workbook, ValueType, type Cell } from 'exceljs';
+import { stream as excelStream, ValueType, type Cell, type Row } from 'exceljs';
+import { EXAM_FILE_LIMITS } from '../../shared/exam-list/file-limits';
 import { UnsupportedMediaTypeError, ValidationError } from '../errors';
+import { FileLimitError } from './file-limits';
+import { checkWorkbookZip } from './workbook-zip';
 
 /** An uploaded file as multer hands it over. */
 export interface UploadedExamFile {
@@ -32,6 +36,9 @@ const UTF8_BOM = Buffer.from([0xef, 0xbb, 0xbf]);
  *   old .xls, other extensions.
  * @throws ValidationError (422) for an empty or header-only file, text that is not UTF-8, a
  *   malformed CSV (unclosed quote) or a damaged workbook.
+ * @throws FileLimitError (413/422) for a file over one of `EXAM_FILE_LIMITS` (rows, cells in a
+ *   row, characters in a cell, unpacked workbook sizes), naming the limit. Rows are counted
+ *   before a CSV is parsed and while a sheet streams, so an oversized file costs little.
  */
 export async function readExamFile(file: UploadedExamFile): Promise<string[][]> {
   const { buffer } = file;
@@ -48,6 +55,7 @@ export async function readExamFile(file: UploadedExamFile): Promise<string[][]> 
   if (startsWith(buffer, ZIP_MAGIC)) table = await readXlsx(buffer);
   else if (extension === 'xlsx' || file.mimetype === XLSX_MIMETYPE) throw damagedWorkbook();
   else table = readCsv(buffer);
+  checkCells(table);
 
   const withData = rowsWithData(table, 2);
   if (withData === 0) throw new ValidationError('The file is empty.');
@@ -63,6 +71,8 @@ function readCsv(buffer: Buffer): string[][] {
   // csv-parse reads bytes (a string would be encoded back to them), so the file goes in as it
   // came, less one byte-order mark, as decoding to text would have dropped.
   const text = startsWith(buffer, UTF8_BOM) ? buffer.subarray(UTF8_BOM.length) : buffer;
+  // Lines are counted before parsing: a megabyte of blank lines parses for a minute.
+  if (lineCount(text) > EXAM_FILE_LIMITS.maxRows) throw FileLimitError.rows();
   try {
     const records: string[][] = parseCsv(text, {
       bom: true,
@@ -83,22 +93,41 @@ function readCsv(buffer: Buffer): string[][] {
 }
 
 async function readXlsx(buffer: Buffer): Promise<string[][]> {
-  const workbook = new Workbook();
+  await checkWorkbookZip(buffer);
+  // The streaming reader sees rows one at a time, so the row limit stops a huge sheet early.
+  const reader = new excelStream.xlsx.WorkbookReader(Readable.from([buffer]), {
+    sharedStrings: 'cache',
+    styles: 'cache',
+    hyperlinks: 'cache',
+    worksheets: 'emit',
+    entries: 'emit',
+  });
+  const table: string[][] = [];
+  let sawSheet = false;
   try {
-    await workbook.xlsx.load(buffer as unknown as Parameters<typeof workbook.xlsx.load>[0]);
-  } catch {
+    for await (const sheet of reader) {
+      sawSheet = true;
+      for await (const row of sheet as AsyncIterable<Row>) {
+        if (row.number > EXAM_FILE_LIMITS.maxRows) throw FileLimitError.rows();
+        // Blank rows are not stored in a sheet; they are kept as [] so row numbers match.
+        while (table.length < row.number - 1) table.push([]);
+        table.push(rowCells(row));
+      }
+      break; // the first sheet only
+    }
+  } catch (error) {
+    if (error instanceof FileLimitError) throw error;
     throw damagedWorkbook();
   }
-  const sheet = workbook.worksheets[0];
-  if (!sheet) throw new ValidationError('The workbook has no worksheet.');
-  const table: string[][] = [];
-  for (let rowNumber = 1; rowNumber <= sheet.rowCount; rowNumber++) {
-    const row = sheet.getRow(rowNumber);
-    const cells: string[] = [];
-    for (let column = 1; column <= row.cellCount; column++) cells.push(cellText(row.getCell(column)));
-    table.push(dropTrailingEmpty(cells));
-  }
+  if (!sawSheet) throw new ValidationError('The workbook has no worksheet.');
   return table;
+}
+
+// Styled empty cells count in cellCount, so the cell limit is checked on what remains (checkCells).
+function rowCells(row: Row): string[] {
+  const cells: string[] = [];
+  for (let column = 1; column <= row.cellCount; column++) cells.push(cellText(row.getCell(column)));
+  return dropTrailingEmpty(cells);
 }
 
 /** Text of a cell as the user typed it: formulas as their text, never their result. */
@@ -135,6 +164,29 @@ function dateText(value: Date): string {
   const dayStart = Date.UTC(rounded.getUTCFullYear(), rounded.getUTCMonth(), rounded.getUTCDate());
   if (EXCEL_EPOCH_DAYS.includes(dayStart)) return time;
   return time === '00:00' ? day : `${day}T${time}`;
+}
+
+/** Cells per row and characters per cell, checked once the file is a table. */
+function checkCells(table: string[][]): void {
+  for (let i = 0; i < table.length; i++) {
+    const cells = table[i];
+    if (cells.length > EXAM_FILE_LIMITS.maxCellsPerRow) throw FileLimitError.cells(i + 1);
+    for (let c = 0; c < cells.length; c++) {
+      if (cells[c].length > EXAM_FILE_LIMITS.maxCellChars) throw FileLimitError.cellChars(i + 1, c);
+    }
+  }
+}
+
+/** Records a CSV can hold at most: its line breaks (CRLF counted once), plus a last unterminated line. */
+function lineCount(buffer: Buffer): number {
+  let lines = 0;
+  for (let i = 0; i < buffer.length; i++) {
+    const byte = buffer[i];
+    if (byte === 0x0a) lines++;
+    else if (byte === 0x0d && buffer[i + 1] !== 0x0a) lines++;
+  }
+  const last = buffer[buffer.length - 1];
+  return last === 0x0a || last === 0x0d ? lines : lines + 1;
 }
 
 function dropTrailingEmpty(cells: string[]): string[] {

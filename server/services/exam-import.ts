@@ -1,15 +1,15 @@
 import type { Knex } from 'knex';
-import { diffExamLists, parseExamTable, type ExamListRow } from '../../shared/exam-list';
+import { diffExamLists, type ExamListRow } from '../../shared/exam-list';
 import type { ImportResult } from '../../shared/api/import';
 import type { DayPlanExam } from '../../shared/turnover';
-import { ValidationError } from '../errors';
+import { HttpError, ValidationError } from '../errors';
+import type { WorkerPool } from '../workers/pool';
 import { examColumns, examsOfDay, toListed } from './exams';
-import { readExamFile, type UploadedExamFile } from './exam-file';
+import type { UploadedExamFile } from './exam-file';
 import { summaryFor } from './day-plan';
+import { dayVersion } from './day-version';
 import { listRooms } from './rooms';
 import { readSettings } from './settings';
-
-const PREVIEW_TABLE_ROWS = 1000;
 // 14 columns × 500 rows = 7,000 bindings a statement, well under SQLite's 32,766.
 const INSERT_CHUNK_ROWS = 500;
 
@@ -19,6 +19,8 @@ export interface ImportRequest {
   userId: number;
   dryRun: boolean;
   now: Date;
+  /** The day version the preview was made at; a commit refuses (409) when the day moved on since. */
+  expectedDayVersion?: number;
 }
 
 /**
@@ -26,21 +28,35 @@ export interface ImportRequest {
  * with every error; a good file replaces the day's list in one transaction, keeping the id and
  * version of exams whose accession stays so open screens and later moves still match.
  */
-export async function importExamList(db: Knex, req: ImportRequest): Promise<ImportResult> {
+export async function importExamList(db: Knex, workers: WorkerPool, req: ImportRequest): Promise<ImportResult> {
   const [settings, rooms] = await Promise.all([readSettings(db), listRooms(db)]);
-  const table = await readExamFile(req.file);
-  const parsed = parseExamTable(table, { date: req.day, timezone: settings.timezone, roomNames: rooms.map((r) => r.name) });
+  const read = await workers.readExamList({
+    bytes: req.file.buffer,
+    originalname: req.file.originalname,
+    mimetype: req.file.mimetype,
+    date: req.day,
+    timezone: settings.timezone,
+    roomNames: rooms.map((r) => r.name),
+  });
+  if (!read.ok) {
+    const { status, code, message, details, extra } = read.refusal;
+    throw new HttpError(status, code, message, details, extra);
+  }
+  const { parsed, table } = read;
   if (parsed.errors.length > 0) {
-    const n = parsed.errors.length;
+    const n = parsed.errorCount;
+    const listed = n > parsed.errors.length ? ` (the first ${parsed.errors.length} are listed)` : '';
     throw new ValidationError(
-      `The file was not imported: ${n} problem${n === 1 ? '' : 's'} to fix. Nothing on ${req.day} was changed.`,
+      `The file was not imported: ${n.toLocaleString('en-US')} problem${n === 1 ? '' : 's'} to fix${listed}. Nothing on ${req.day} was changed.`,
       parsed.errors,
-      { warnings: parsed.warnings, table: table.slice(0, PREVIEW_TABLE_ROWS) },
+      { warnings: parsed.warnings, table, errorCount: n },
     );
   }
 
   const roomIdByName = new Map(rooms.map((r) => [r.name, r.id]));
   const roomNameById = new Map(rooms.map((r) => [r.id, r.name]));
+  // Read before the list, so a change landing in between makes the commit's check fail, not pass.
+  const version = await dayVersion(db, req.day);
   const current = await examsOfDay(db, req.day);
   const diff = diffExamLists(
     current.map((row) => toListed(row, roomNameById)),
@@ -60,10 +76,15 @@ export async function importExamList(db: Knex, req: ImportRequest): Promise<Impo
     warnings: parsed.warnings,
     rows: parsed.rows,
     summary,
+    dayVersion: version,
   };
   if (req.dryRun) return result;
 
   await db.transaction(async (trx) => {
+    const now = await dayVersion(trx, req.day);
+    if (now !== version || (req.expectedDayVersion !== undefined && now !== req.expectedDayVersion)) {
+      throw dayChanged(req.day, req.expectedDayVersion ?? version, now);
+    }
     const existing = new Map(current.map((row) => [row.accession, row]));
     const changed = new Set(diff.changed.map((c) => c.accession));
     const stamp = req.now.toISOString();
@@ -90,6 +111,15 @@ export async function importExamList(db: Knex, req: ImportRequest): Promise<Impo
     });
   });
   return result;
+}
+
+function dayChanged(day: string, previewed: number, now: number): HttpError {
+  return new HttpError(
+    409,
+    'day_changed',
+    `The list for ${day} changed after your preview (a slot was moved, staffed or re-imported), so nothing was imported. Preview the file again to see what it would change now.`,
+    { previewedVersion: previewed, currentVersion: now },
+  );
 }
 
 /**

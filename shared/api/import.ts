@@ -23,12 +23,16 @@ export interface ImportResult {
   rows: ExamListRow[];
   /** Verdict counts the new list has (dry run: would have). */
   summary: PlanSummary;
+  /** The day's version the preview was computed at; send it back as `?dayVersion=` to commit. */
+  dayVersion: number;
 }
 
 /** 422 body: every error by row and column, and the file's cells so the preview can mark them. */
 export interface ImportRefusal {
   error: { code: string; message: string };
+  /** The first problems (at most 200); `errorCount` counts them all. */
   errors: ExamListIssue[];
+  errorCount?: number;
   warnings?: ExamListIssue[];
   /** The file as read (header first), at most the first 1,000 rows; absent when the file could not be read at all. */
   table?: string[][];

@@ -21,6 +21,7 @@ export {
 export { diffExamLists, type ExamListDiff, type ExamListKeyed } from './diff';
 export { columnLetter, readHeader, type ExamListHeader } from './header';
 export type { ExamListIssue, ExamListOptions, ExamListResult, ExamListRow } from './model';
+export { EXAM_FILE_LIMITS } from './file-limits';
 export { parseExamTable } from './parse-rows';
 export { examRowSchema, type ExamListCells } from './row-schema';
 export { resolveStart, type StartResolution } from './start-time';

@@ -48,7 +48,10 @@ export interface ExamListIssue {
  */
 export interface ExamListResult {
   rows: ExamListRow[];
+  /** The first problems, in file order (at most `maxErrors`). */
   errors: ExamListIssue[];
+  /** How many problems the file has in all; more than `errors.length` when the list was cut. */
+  errorCount: number;
   warnings: ExamListIssue[];
 }
 
@@ -65,4 +68,6 @@ export interface ExamListOptions {
   timezone: string;
   /** Room names as set up; matched case-insensitively. */
   roomNames: string[];
+  /** Errors listed before the rest are only counted; default `EXAM_FILE_LIMITS.maxErrorsListed`. */
+  maxErrors?: number;
 }

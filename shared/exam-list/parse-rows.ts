@@ -4,12 +4,14 @@ import { readHeader, type ExamListHeader } from './header';
 import type { ExamListIssue, ExamListOptions, ExamListResult, ExamListRow } from './model';
 import { CellProblem, examRowChecks, type Checked, type CheckedStart } from './cell-checks';
 import { cellsByColumn, strayCells, trimmedCells } from './row-cells';
+import { EXAM_FILE_LIMITS } from './file-limits';
 
 /**
  * Checks the day's exam list, given as a table of cells with the header in `table[0]`, and
  * lists every problem of every row (row numbers as in a spreadsheet: header = 1). Cells are
  * trimmed; fully blank rows are skipped; a cell starting with `=`, `+`, `-` or `@` is plain text.
- * Any error refuses the whole file; `rows` then only feeds the preview.
+ * Any error refuses the whole file; `rows` then only feeds the preview. Only the first
+ * `options.maxErrors` (default 200) errors are listed; `errorCount` counts them all.
  *
  * @throws RangeError when `options.date` is not a `YYYY-MM-DD` day or `options.timezone` is not
  *   an IANA zone: those come from the caller, not from the file.
@@ -25,12 +27,14 @@ import { cellsByColumn, strayCells, trimmedCells } from './row-cells';
 export function parseExamTable(table: string[][], options: ExamListOptions): ExamListResult {
   assertOptions(options);
   if (table.length === 0 || isBlank(table[0])) {
-    return { rows: [], errors: [{ row: 1, column: '', message: 'The first row must be the header, e.g. accession,room,start,duration_min,procedure.' }], warnings: [] };
+    return { rows: [], errors: [{ row: 1, column: '', message: 'The first row must be the header, e.g. accession,room,start,duration_min,procedure.' }], errorCount: 1, warnings: [] };
   }
   const header = readHeader(table[0]);
   const checks = examRowChecks(options);
   const rows: ExamListRow[] = [];
-  const errors: ExamListIssue[] = [...header.errors];
+  const maxErrors = options.maxErrors ?? EXAM_FILE_LIMITS.maxErrorsListed;
+  const errors: ExamListIssue[] = header.errors.slice(0, maxErrors);
+  let errorCount = header.errors.length;
   const warnings: ExamListIssue[] = [...header.warnings];
   const firstRowOfAccession = new Map<string, number>();
   let dataRows = 0;
@@ -62,7 +66,13 @@ export function parseExamTable(table: string[][], options: ExamListOptions): Exa
       firstRowOfAccession.set(accession, row);
     }
 
-    if (rowErrors.length > 0) errors.push(...sortByColumn(rowErrors, header));
+    if (rowErrors.length > 0) {
+      // A loop, not push(...spread): a row of a hundred thousand stray cells overflows the stack.
+      for (const issue of sortByColumn(rowErrors, header)) {
+        errorCount += 1;
+        if (errors.length < maxErrors) errors.push(issue);
+      }
+    }
     if (problems.any || rowErrors.length > 0 || header.missing.length > 0) return;
     const checked = start as CheckedStart;
     if (checked.warning) warnings.push({ row, column: 'start', message: checked.warning });
@@ -81,8 +91,11 @@ export function parseExamTable(table: string[][], options: ExamListOptions): Exa
     });
   });
 
-  if (dataRows === 0) errors.push({ row: 1, column: '', message: 'The file has a header but no exams.' });
-  return { rows, errors, warnings };
+  if (dataRows === 0) {
+    errorCount += 1;
+    errors.push({ row: 1, column: '', message: 'The file has a header but no exams.' });
+  }
+  return { rows, errors, errorCount, warnings: warnings.slice(0, maxErrors) };
 }
 
 function assertOptions(options: ExamListOptions): void {
