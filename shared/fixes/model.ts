@@ -31,6 +31,12 @@ export interface Fix {
 /** Most problem gaps one `GET /api/days/:date/fixes` call covers (its `limit`, and the default). */
 export const MAX_FIX_GAPS_PER_CALL = 20;
 
+/**
+ * A page ends early, after the gap that reaches this many changes in its fixes (a push on a
+ * crowded list carries its whole cascade): the answer stays a few hundred kilobytes at most.
+ */
+export const MAX_FIX_CHANGES_PER_CALL = 2000;
+
 /** `GET /api/days/:date/fixes` without `gap`: one page of the day's fixes. */
 export interface FixesPage {
   /** The fixes of the gaps covered, gap by gap in plan order. */

@@ -2,7 +2,7 @@ import type { DayPlan, PlanGap } from '../api/plan';
 import { computeDayPlan } from '../turnover/day-plan';
 import type { DayPlanInput } from '../turnover/day-plan-input';
 import { withChanges } from './apply-changes';
-import { MAX_FIX_GAPS_PER_CALL, type Fix } from './model';
+import { MAX_FIX_CHANGES_PER_CALL, MAX_FIX_GAPS_PER_CALL, type Fix } from './model';
 import { suggestFixes, suggestGapFixes } from './suggest';
 import { randomDay } from './testing/random-day';
 
@@ -80,6 +80,25 @@ describe('suggestFixes', () => {
     }
     expect(checked).toBeGreaterThan(100);
     expect([...kinds].sort()).toEqual(['add-helper', 'isolation-last', 'other-room', 'push-later']);
+  });
+
+  it('ends a page early once its fixes reach the changes a call may carry, and goes on from there', () => {
+    // an invented crowded room: 400 ten-minute exams two minutes apart, so each push cascades to the end
+    const input: DayPlanInput = {
+      date: '2027-03-15',
+      timezone: 'America/Chicago',
+      rooms: [{ id: 1, name: 'MR 1', modality: 'MR', staff: 1, airChangesPerHour: 6, opensAt: '00:00' }],
+      exams: Array.from({ length: 400 }, (_, i) => ({
+        id: i + 1, accession: `CRW-${i + 1}`, roomId: 1, start: new Date(Date.UTC(2027, 2, 15, 6, 2 * i)).toISOString().replace('.000Z', 'Z'),
+        durationMinutes: 10, procedure: 'MR invented procedure', precaution: 'none' as const, mobility: 'ambulatory' as const, contrast: false, version: 1,
+      })),
+    };
+    const first = suggestFixes(input)!;
+    const changesOf = (fixes: Fix[]) => fixes.reduce((n, f) => n + f.changes.length, 0);
+    expect(first.gaps.length).toBeLessThan(MAX_FIX_GAPS_PER_CALL);
+    expect(changesOf(first.fixes)).toBeGreaterThanOrEqual(MAX_FIX_CHANGES_PER_CALL);
+    expect(changesOf(first.fixes.filter((f) => f.toExamId !== first.next))).toBeLessThan(MAX_FIX_CHANGES_PER_CALL);
+    expect(suggestFixes(input, { after: first.next! })!.gaps[0]).toBe(first.gaps.at(-1)! + 1);
   });
 
   it('starts after the gap named by `after`, even when that gap is no longer a problem', () => {

@@ -4,7 +4,7 @@ import type { DayPlanSlot } from '../turnover/day-plan-output';
 import { turnoverFor } from '../turnover/day-plan-cache';
 import { protocolFor } from '../turnover/protocols';
 import { fixDay, summaryWith, type FixDay } from './fix-day';
-import { MAX_FIX_GAPS_PER_CALL, type Fix, type FixesPage, type FixKind } from './model';
+import { MAX_FIX_CHANGES_PER_CALL, MAX_FIX_GAPS_PER_CALL, type Fix, type FixesPage, type FixKind } from './model';
 import { isProblemVerdict, type JudgedGap, type JudgedRoom } from './room-gaps';
 
 const MINUTE = 60_000;
@@ -40,7 +40,8 @@ export interface SuggestFixesOptions {
 
 /**
  * One page of the day's fixes: those of the next `limit` problem gaps in plan order (rooms as
- * listed, then by start), from the gap after exam `after`. The work per call is bounded by the
+ * listed, then by start), from the gap after exam `after`; fewer when their fixes reach
+ * {@link MAX_FIX_CHANGES_PER_CALL} changes (never none). The work per call is bounded by the
  * page, whatever the size of the day.
  *
  * @returns null when `after` is not an exam of the day
@@ -65,18 +66,22 @@ export function suggestFixes(input: DayPlanInput, options: SuggestFixesOptions =
     gapIndex = day.judged(roomId).gaps.findIndex((g) => g.toExamId === options.after) + 1;
   }
   const page: FixesPage = { fixes: [], gaps: [], problemGaps: day.summary.short + day.summary.overlap, next: null };
+  let changes = 0;
   for (; roomIndex < day.rooms.length; roomIndex++, gapIndex = 0) {
     const room = day.judged(day.rooms[roomIndex]!.id);
     for (; gapIndex < room.gaps.length; gapIndex++) {
       const gap = room.gaps[gapIndex]!;
       if (!isProblemVerdict(gap.verdict)) continue;
-      if (page.gaps.length === limit) {
+      if (page.gaps.length === limit || changes >= MAX_FIX_CHANGES_PER_CALL) {
         // one more problem gap exists: the page ends at the last one covered
         page.next = page.gaps.at(-1)!;
         return page;
       }
       page.gaps.push(gap.toExamId);
-      page.fixes.push(...fixesOfGap(day, room, gapIndex));
+      for (const fix of fixesOfGap(day, room, gapIndex)) {
+        page.fixes.push(fix);
+        changes += fix.changes.length;
+      }
     }
   }
   return page;
