@@ -1,5 +1,6 @@
 import { benchBundle } from './bundle.bench';
 import { benchEngine } from './engine.bench';
+import { benchFixes } from './fixes.bench';
 import { benchImport } from './import.bench';
 import { benchTimeline } from './timeline.bench';
 
@@ -7,7 +8,7 @@ import { benchTimeline } from './timeline.bench';
 async function main(): Promise<void> {
   console.log(`Turnwise benchmarks — Node ${process.version}, ${new Date().toISOString()}`);
   // The bundle bench goes first: it rebuilds a stale client, which the timeline bench then drives.
-  for (const bench of [benchBundle, benchEngine, benchImport, benchTimeline]) {
+  for (const bench of [benchBundle, benchEngine, benchFixes, benchImport, benchTimeline]) {
     for (const line of await bench()) console.log(line);
   }
 }
