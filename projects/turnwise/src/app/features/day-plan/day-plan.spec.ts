@@ -59,7 +59,7 @@ describe('DayPlan timeline', () => {
   it('labels each exam block with room, times, accession, procedure and precaution', async () => {
     const { page } = await renderDay();
     expect(block(page, 2).getAttribute('aria-label')).toBe(
-      'MR 1, 08:45–09:15, ACC-2, MR brain with contrast, contact precautions, head coil, contrast',
+      'MR 1, ACC-2, MR brain with contrast, 08:45–09:15, contact precautions, head coil, contrast',
     );
     expect(block(page, 2).getAttribute('tabindex')).toBe('0');
   });

@@ -32,15 +32,18 @@ import type { BlockView } from './lane-view';
   },
   template: `
     @let v = view();
-    <div class="accession">{{ v.accession }}</div>
+    <!-- In the label's order (time after procedure, since a narrow block cuts the time), so what is
+         seen is always a run of the label's words; the stylesheet still shows the time second. The
+         spaces (&ngsp;) keep the lines apart as words when the text is read as one string. -->
+    <div class="accession">{{ v.accession }}</div>&ngsp;
+    <div class="procedure">{{ v.exam.procedure }}</div>&ngsp;
     @if (v.time) {
-      <div class="time">{{ v.time }}</div>
+      <div class="time">{{ v.time }}</div>&ngsp;
     }
-    <div class="procedure">{{ v.exam.procedure }}</div>
     @if (v.flags.length) {
       <ul class="flags" aria-hidden="true">
         @for (flag of v.flags; track flag.kind) {
-          <li [class]="flag.kind"><mat-icon [svgIcon]="flag.icon" />@if (!v.compact) {<span>{{ flag.text }}</span>}</li>
+          <li [class]="flag.kind"><mat-icon [svgIcon]="flag.icon" />@if (!v.compact) {<span>{{ flag.text }}</span>}</li>&ngsp;
         }
       </ul>
     }

@@ -44,6 +44,18 @@ describe('blockAccession', () => {
     expect('TWD-20261201-026'.endsWith(shown.slice(1))).toBe(true);
     expect(shown.length).toBeLessThan('TWD-20261201-026'.length);
   });
+
+  it('cuts where a part of the accession begins, never inside one', () => {
+    // 70 px fits 6 characters: "…1-026" would show a stray piece of the date.
+    expect(blockAccession('TWD-20261201-026', 70)).toBe('…026');
+    // 120 px fits 13: "…0261201-026" would cut the date.
+    expect(blockAccession('TWD-20261201-026', 120)).toBe('…026');
+    expect(blockAccession('TWD-20261201-026', 130)).toBe('…20261201-026');
+  });
+
+  it('cuts inside a part only when no whole part fits', () => {
+    expect(blockAccession('ACCESSION123456', 70)).toBe('…23456');
+  });
 });
 
 describe('laneView', () => {
@@ -59,7 +71,7 @@ describe('laneView', () => {
       [2, 400, 120, 2],
       [3, 720, 120, 3],
     ]);
-    expect(slots[1].block.label).toBe('MR 1, 08:40–09:10, ACC-2, MR knee without contrast, knee coil');
+    expect(slots[1].block.label).toBe('MR 1, ACC-2, MR knee without contrast, 08:40–09:10, knee coil');
   });
 
   it('dims, with only problem gaps asked for, the fitting gaps and the exams touching no problem', () => {

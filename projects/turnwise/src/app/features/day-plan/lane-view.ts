@@ -54,12 +54,16 @@ export function blockTime(start: string, end: string, width: number): string {
 
 /**
  * The accession as a narrow block can show it: whole when it fits, else its end after an
- * ellipsis, since the end is what tells one accession of the day from the next.
+ * ellipsis, since the end is what tells one accession of the day from the next. The end is cut
+ * where a new part begins ("…-026", not "…201-026") when one fits, so what is shown is made of
+ * whole parts of the accession that the block's label names (and a voice command can say).
  */
 export function blockAccession(accession: string, width: number): string {
   const chars = Math.floor((width - BLOCK_INSET_PX) / ACCESSION_CHAR_PX);
   if (accession.length <= chars || chars < 4) return accession;
-  return `…${accession.slice(accession.length - (chars - 1))}`;
+  const tail = accession.slice(accession.length - (chars - 1));
+  const boundary = tail.search(/(?<=[^A-Za-z0-9])|(?<=[A-Za-z])(?=[0-9])|(?<=[0-9])(?=[A-Za-z])/);
+  return `…${boundary > 0 ? tail.slice(boundary) : tail}`;
 }
 
 /**
@@ -89,8 +93,10 @@ export function laneView(room: PlanRoom, scale: TimelineScale, onlyProblems: boo
 function blockView(roomName: string, exam: PlanExam, scale: TimelineScale, dimmed: boolean): BlockView {
   const width = Math.max(4, exam.durationMinutes * scale.pxPerMinute);
   const flags = examFlags(exam);
-  // "MR 2, 09:30–10:15, ACC-123, MR brain with contrast, contact precautions"
-  const parts = [roomName, `${clockOf(exam.start)}–${clockOf(exam.end)}`, exam.accession, exam.procedure, ...flags.map((flag) => flag.text)];
+  // "MR 2, ACC-123, MR brain with contrast, 09:30–10:15, contact precautions": after the room, the
+  // words the block shows, whole and in its markup's order, so that any cut of them a narrow block
+  // shows is a run of the label's words, and a voice command naming what is seen finds the block.
+  const parts = [roomName, exam.accession, exam.procedure, `${clockOf(exam.start)}–${clockOf(exam.end)}`, ...flags.map((flag) => flag.text)];
   if (exam.outsideHours) parts.push('outside opening hours');
   return {
     exam,
