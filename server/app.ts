@@ -146,7 +146,7 @@ export function createApp(deps: AppDeps): Express {
   );
   api.use('/rooms', roomRoutes({ db: deps.db, clock, events }));
   api.use('/settings', settingsRoutes({ db: deps.db }));
-  api.use(apiRoutes({ db: deps.db, clock, events, fixesPool }));
+  api.use(apiRoutes({ db: deps.db, clock, events, workers, fixesPool }));
   api.use(() => {
     throw new NotFoundError('No such API route.');
   });
@@ -159,7 +159,8 @@ export function createApp(deps: AppDeps): Express {
   }
 
   app.use(errorHandler(logError));
-  // Whoever ends the app (main.ts on a signal, a test's afterAll) closes its fixes worker threads.
+  // Whoever ends the app (main.ts on a signal, a test's afterAll) closes its worker threads.
+  app.locals['workers'] = workers;
   app.locals['fixesPool'] = fixesPool;
   return app;
 }
