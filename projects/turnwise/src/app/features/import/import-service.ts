@@ -27,12 +27,13 @@ export type ImportProgress =
 export class ImportService {
   private readonly http = inject(HttpClient);
 
-  send(date: string, file: File, options: { dryRun: boolean }): Observable<ImportProgress> {
+  /** A commit carries the `dayVersion` of its preview; the server refuses it (409 `day_changed`) if the day moved on. */
+  send(date: string, file: File, options: { dryRun: boolean; dayVersion?: number }): Observable<ImportProgress> {
     const body = new FormData();
     body.append('file', file, file.name);
     return this.http
       .post<ImportResult>(`/api/days/${encodeURIComponent(date)}/exams/import`, body, {
-        params: options.dryRun ? { dryRun: 'true' } : {},
+        params: options.dryRun ? { dryRun: 'true' } : options.dayVersion === undefined ? {} : { dayVersion: options.dayVersion },
         reportProgress: true,
         observe: 'events',
         context: showsOwnErrors(),

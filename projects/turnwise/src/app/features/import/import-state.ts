@@ -4,7 +4,8 @@ import type { ImportRefusal, ImportResult } from '@shared/api/import';
 export type ImportState =
   | { step: 'choose' }
   | { step: 'uploading'; purpose: 'preview' | 'import'; percent: number | null }
-  | { step: 'preview'; result: ImportResult }
+  /** `redone`: the commit found the day changed since the last preview, so this one replaced it. */
+  | { step: 'preview'; result: ImportResult; redone?: boolean }
   | { step: 'refused'; refusal: ImportRefusal }
   | { step: 'failed'; purpose: 'preview' | 'import'; message: string }
   | { step: 'imported'; result: ImportResult };

@@ -31,6 +31,7 @@ const preview: ImportResult = {
     { row: 3, accession: 'ACC-4', room: 'MR 2', start: '2027-03-15T07:05:00-05:00', durationMinutes: 45, procedure: 'MR brain with contrast', coil: 'head', precaution: 'airborne', mobility: 'stretcher', contrast: true, notes: null },
   ],
   summary: { fits: 1, snug: 0, short: 1, overlap: 0, minutesShort: 6 },
+  dayVersion: 7,
 };
 
 async function render() {
@@ -106,10 +107,29 @@ describe('Import', () => {
     const request = setup.backend.expectOne((r) => r.url === URL);
     expect(request.request.method).toBe('POST');
     expect(request.request.params.has('dryRun')).toBe(false);
+    expect(request.request.params.get('dayVersion')).toBe('7');
     request.flush({ ...preview, dryRun: false });
     await settle(setup.fixture);
     expect(text(setup.page.querySelector('.done h2'))).toBe('Imported 2 exams for Monday 15 March 2027');
     expect(setup.page.querySelector('.done a')?.getAttribute('href')).toBe('/day?date=2027-03-15');
+  });
+
+  it('when the day changed since the preview (409 day_changed), previews again and says why', async () => {
+    const setup = await render();
+    chooseFile(setup).flush(preview);
+    await settle(setup.fixture);
+    setup.page.querySelector<HTMLButtonElement>('button.commit')!.click();
+    setup.backend
+      .expectOne((r) => r.url === URL)
+      .flush({ error: { code: 'day_changed', message: 'The list changed after your preview.' } }, { status: 409, statusText: 'Conflict' });
+    await settle(setup.fixture);
+    const again = setup.backend.expectOne((r) => r.url === URL);
+    expect(again.request.params.get('dryRun')).toBe('true');
+    again.flush({ ...preview, dayVersion: 8, changed: [{ accession: 'ACC-1', fields: ['start'] }] });
+    await settle(setup.fixture);
+    expect(text(setup.page.querySelector('.redone'))).toContain('The day list changed after your last preview');
+    expect(text(setup.page.querySelector('button.commit'))).toContain('Replace the day list');
+    expect(setup.page.querySelector('.done')).toBeNull();
   });
 
   it('says a first import adds to an empty day, not that it replaces', async () => {

@@ -71,7 +71,8 @@ export class Import {
   }
 
   protected commit(): void {
-    this.send(false);
+    const current = this.state();
+    this.send(false, current.step === 'preview' ? current.result.dayVersion : undefined);
   }
 
   protected startOver(): void {
@@ -80,22 +81,26 @@ export class Import {
     this.state.set({ step: 'choose' });
   }
 
-  private send(dryRun: boolean): void {
+  private send(dryRun: boolean, dayVersion?: number, redone = false): void {
     const day = this.day();
     const file = this.file();
     if (!day || !file) return;
     const purpose = dryRun ? 'preview' : 'import';
     this.upload?.unsubscribe();
     this.state.set({ step: 'uploading', purpose, percent: 0 });
-    this.upload = this.imports.send(day, file, { dryRun }).subscribe({
+    this.upload = this.imports.send(day, file, { dryRun, dayVersion }).subscribe({
       next: (progress) =>
         this.state.set(
           progress.kind === 'uploading'
             ? { step: 'uploading', purpose, percent: progress.percent }
-            : { step: dryRun ? 'preview' : 'imported', result: progress.result },
+            : dryRun
+              ? { step: 'preview', result: progress.result, redone }
+              : { step: 'imported', result: progress.result },
         ),
       error: (error: unknown) => {
-        if (error instanceof ImportRefused) this.state.set({ step: 'refused', refusal: error.refusal });
+        // Someone changed the day since the preview: show what the file would change now.
+        if (isApiError(error) && error.code === 'day_changed') this.send(true, undefined, true);
+        else if (error instanceof ImportRefused) this.state.set({ step: 'refused', refusal: error.refusal });
         else if (isApiError(error)) this.state.set({ step: 'failed', purpose, message: error.message });
         else this.state.set({ step: 'failed', purpose, message: 'The file could not be sent. Try again.' });
       },
