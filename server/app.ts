@@ -7,7 +7,6 @@ import compression from 'compression';
 import helmet from 'helmet';
 import { Passport } from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
-import { ConnectSessionKnexStore } from 'connect-session-knex';
 import type { Knex } from 'knex';
 import { pinoHttp } from 'pino-http';
 import type { Clock } from './clock';
@@ -21,6 +20,7 @@ import { roomRoutes } from './routes/rooms';
 import { settingsRoutes } from './routes/settings';
 import { apiRoutes } from './routes/api';
 import { DayEvents } from './services/day-events';
+import { SessionStore } from './services/session-store';
 import { createWorkerPool, type WorkerPool } from './workers/pool';
 import { createFixesPool, type FixesPool } from './workers/fixes-pool';
 
@@ -117,7 +117,7 @@ export function createApp(deps: AppDeps): Express {
     session({
       name: SESSION_COOKIE,
       secret: deps.sessionSecret,
-      store: new ConnectSessionKnexStore({ knex: deps.db, createTable: false, cleanupInterval: production ? 60_000 : 0 }),
+      store: new SessionStore({ knex: deps.db, createTable: false, cleanupInterval: production ? 60_000 : 0 }),
       resave: false,
       saveUninitialized: false,
       rolling: true,

@@ -2,10 +2,9 @@ import type { Knex } from 'knex';
 import { computeDayPlan, computeDaySummary, type DayPlanExam, type DayPlanInput } from '../../shared/turnover';
 import type { DayPlan, PlanSummary } from '../../shared/api/plan';
 import type { Room } from '../../shared/api/rooms';
-import type { SiteSettings } from '../../shared/api/settings';
-import { dayVersion } from './day-version';
+import { planVersions } from './day-version';
 import { examsOfDay, toPlanExam } from './exams';
-import { cachedPlan, setupKey, type CachedPlan } from './plan-cache';
+import { cachedPlan, type CachedPlan } from './plan-cache';
 import { listRooms } from './rooms';
 import { readSettings } from './settings';
 
@@ -19,23 +18,25 @@ export async function loadDayPlan(db: Knex, day: string): Promise<DayPlan> {
  * a busy morning's many reads of an unchanged day cost three small queries each.
  */
 export async function loadCachedDayPlan(db: Knex, day: string): Promise<CachedPlan> {
-  // The version is read before the exams, so a plan is never kept under a newer version than its data.
-  const version = await dayVersion(db, day);
-  const [settings, rooms] = await Promise.all([readSettings(db), listRooms(db)]);
-  const key = `${day}:${version}:${setupKey(rooms, settings)}`;
+  // Versions are read before the data, so a plan is never kept under newer versions than its data.
+  const versions = await planVersions(db, day);
+  const key = `${day}:${versions.day}:${versions.setup}`;
   return cachedPlan(
     db,
     key,
-    async () => computeDayPlan(await loadDayPlanInput(db, day, { settings, rooms })),
-    async () => (await dayVersion(db, day)) === version,
+    async () => computeDayPlan(await loadDayPlanInput(db, day)),
+    async () => {
+      const now = await planVersions(db, day);
+      return now.day === versions.day && now.setup === versions.setup;
+    },
   );
 }
 
 /** What a day's plan is computed from, as stored. */
-export async function loadDayPlanInput(db: Knex, day: string, setup?: { settings: SiteSettings; rooms: Room[] }): Promise<DayPlanInput> {
+export async function loadDayPlanInput(db: Knex, day: string): Promise<DayPlanInput> {
   const [settings, rooms, exams, staffing] = await Promise.all([
-    setup?.settings ?? readSettings(db),
-    setup?.rooms ?? listRooms(db),
+    readSettings(db),
+    listRooms(db),
     examsOfDay(db, day),
     db('gap_staffing').join('exams', 'exams.id', 'gap_staffing.to_exam_id').where('exams.day', day).select('to_exam_id', 'staff'),
   ]);

@@ -16,7 +16,7 @@ const caches = new WeakMap<Knex, Map<string, CachedPlan>>();
 
 /**
  * Looks a day's plan up by the key of everything it is computed from (the day, its version and
- * the content of the rooms and settings), computing and keeping it on a miss.
+ * the setup's version), computing and keeping it on a miss.
  *
  * @example
  * const { json, etag } = await cachedPlan(db, key, () => computeDayPlan(input));
@@ -39,9 +39,4 @@ export async function cachedPlan(db: Knex, key: string, compute: () => Promise<D
   if (cache.size >= MAX_DAYS) cache.delete(cache.keys().next().value!);
   cache.set(key, entry);
   return entry;
-}
-
-/** Content key of the rooms and settings a plan is computed from. */
-export function setupKey(rooms: unknown, settings: unknown): string {
-  return createHash('sha1').update(JSON.stringify([rooms, settings])).digest('base64url');
 }

@@ -75,6 +75,16 @@ describe('day versions: the plan cache, its ETag, and an import bound to its pre
     expect(await required()).toBe(14);
   });
 
+  it('a new plan follows a settings change, even one written straight to the database', async () => {
+    const first = await charge.get(`/api/days/${DAY}/plan`);
+    await h.db('settings').insert({ key: 'snugMarginMinutes', value: '30' }).onConflict('key').merge();
+    const after = await charge.get(`/api/days/${DAY}/plan`);
+    expect(after.headers['etag']).not.toBe(first.headers['etag']);
+    const m2 = await examId('M-2');
+    const gap = after.body.rooms.flatMap((r: { gaps: { toExamId: number; verdict: string }[] }) => r.gaps).find((g: { toExamId: number }) => g.toExamId === m2.id);
+    expect(gap.verdict).not.toBe('fits');
+  });
+
   it('an import commit refuses (409 day_changed) when a slot moved after its preview, and keeps the move', async () => {
     const file = list(row('M-1', 'MR 1', '08:00'), row('M-2', 'MR 1', '08:40'), row('M-3', 'MR 1', '11:00'));
     const preview = await scheduler.upload(importUrl('?dryRun=true'), file, 'day.csv');
