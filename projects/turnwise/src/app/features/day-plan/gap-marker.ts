@@ -20,6 +20,7 @@ import type { GapView } from './gap-view';
     '[class.dimmed]': 'view().dimmed',
     '[class.opening]': 'view().opening',
     '[class.quiet]': 'view().quiet',
+    '[class.raised]': 'view().raised',
   },
   template: `
     @let v = view();

@@ -23,6 +23,8 @@ export interface GapView {
   quiet: boolean;
   icon: string;
   marker: { left: number; width: number };
+  /** The marker is wider than its gap (or the gap is an overlap): drawn above the exams it overlaps. */
+  raised: boolean;
   /** The word in the marker ("short", "opening"), null when the marker is too narrow for it. */
   word: string | null;
   /** "short by 10 min" inside the marker when it is wide enough. */
@@ -38,8 +40,11 @@ export interface GapView {
 /** Room the marker needs for its word, and for "short by N min" after it. */
 const WORD_PX = 64;
 const SHORT_BY_PX = 150;
-/** A gap narrower than this still gets a marker wide enough to see and click. */
-const MIN_MARKER_PX = 18;
+/**
+ * A gap narrower than this still gets a marker wide enough to see and click: the minimum pointer
+ * target of WCAG 2.2 success criterion 2.5.8 (Target Size (Minimum), 24 by 24 CSS pixels).
+ */
+export const MIN_MARKER_PX = 24;
 const MIN_OPENING_PX = 12;
 /** A wet/dry or air-hold part narrower than its pattern's repeat would show as a blank: drawn at least this wide. */
 export const MIN_WAIT_PIECE_PX = 7;
@@ -58,9 +63,12 @@ export function gapView(gap: PlanGap, toAccession: string, fromIso: string, scal
   const late = gap.verdict === 'short' || gap.verdict === 'overlap';
   const quiet = opening && !late;
   const freePx = gap.availableMinutes * ppm;
+  const width = Math.max(MIN_MARKER_PX, freePx);
+  // A marker wider than its gap is centred on it and drawn over the exams' edges (see `raised`),
+  // so the whole target takes the pointer and neither exam loses more than a sliver.
   const marker = quiet
     ? { left, width: Math.max(MIN_OPENING_PX, Math.min(freePx, gap.requiredMinutes * ppm)) }
-    : { left: freePx < 0 ? left + freePx : left, width: Math.max(MIN_MARKER_PX, freePx) };
+    : { left: freePx < 0 ? left + freePx : left + (freePx - width) / 2, width };
   return {
     gap,
     toAccession,
@@ -68,6 +76,7 @@ export function gapView(gap: PlanGap, toAccession: string, fromIso: string, scal
     quiet,
     icon: VERDICT_DISPLAY[gap.verdict].icon,
     marker,
+    raised: !quiet && marker.width > freePx,
     word: marker.width >= WORD_PX ? (quiet ? 'opening' : gap.verdict) : null,
     shortBy: late && marker.width >= SHORT_BY_PX ? `short by ${gap.shortByMinutes} min` : null,
     badge: late ? badgeText(gap, ppm) : null,

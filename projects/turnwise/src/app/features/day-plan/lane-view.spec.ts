@@ -1,5 +1,5 @@
 import { blockAccession, blockTime, clockOf, laneView } from './lane-view';
-import { MIN_WAIT_PIECE_PX, gapView } from './gap-view';
+import { MIN_MARKER_PX, MIN_WAIT_PIECE_PX, gapView } from './gap-view';
 import { exampleExam, exampleGap, exampleRoom, exampleStep } from './testing/example-plan';
 import type { TimelineScale } from './timeline-scale';
 
@@ -88,6 +88,16 @@ describe('gapView', () => {
     expect(gapView(gap, 'ACC-2', FROM, scaleAt(1)).badge).toBe('−15');
     expect(gapView(exampleGap(1, 2, 'overlap', { availableMinutes: -5, shortByMinutes: 25 }), 'ACC-2', FROM, scaleAt(4)).badge).toBe('overlap, short by 25 min');
     expect(gapView(exampleGap(1, 2, 'snug'), 'ACC-2', FROM, scaleAt(4)).badge).toBeNull();
+  });
+
+  it('gives a gap narrower than a pointer target a marker of the minimum target size, centred over it and raised above the exams', () => {
+    // 5 min at 2 px a minute is 10 px of free time: the marker spills 7 px over each exam.
+    const narrow = gapView(exampleGap(1, 2, 'snug', { availableMinutes: 5 }), 'ACC-2', FROM, scaleAt(2));
+    const gapStart = narrow.band.left;
+    expect(narrow.marker).toEqual({ left: gapStart - 7, width: MIN_MARKER_PX });
+    expect(narrow.raised).toBe(true);
+    const wide = gapView(exampleGap(1, 2, 'fits', { availableMinutes: 30 }), 'ACC-2', FROM, scaleAt(2));
+    expect([wide.marker.left, wide.marker.width, wide.raised]).toEqual([gapStart, 60, false]);
   });
 
   it('draws a fitting opening thin and grey over its steps only, not over the whole free time', () => {
