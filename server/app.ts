@@ -160,7 +160,12 @@ export function createApp(deps: AppDeps): Express {
 
   app.use(errorHandler(logError));
   // Whoever ends the app (main.ts on a signal, a test's afterAll) closes its worker threads.
-  app.locals['workers'] = workers;
-  app.locals['fixesPool'] = fixesPool;
+  app.locals['close'] = () => Promise.all([workers.close(), fixesPool.close()]).then(() => undefined);
   return app;
+}
+
+/** Ends what an app started besides its routes (its worker threads); the caller closes the server and database. */
+export function closeApp(app: Express): Promise<void> {
+  const close = app.locals['close'] as (() => Promise<void>) | undefined;
+  return close ? close() : Promise.resolve();
 }

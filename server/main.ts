@@ -1,10 +1,8 @@
-import { createApp } from './app';
+import { closeApp, createApp } from './app';
 import { readConfig } from './config';
 import { createDb, migrateToLatest } from './db';
 import { seedDemo, seedReferenceData } from './seeding';
 import { systemClock } from './clock';
-import type { WorkerPool } from './workers/pool';
-import type { FixesPool } from './workers/fixes-pool';
 
 async function main(): Promise<void> {
   const config = readConfig();
@@ -29,9 +27,7 @@ async function main(): Promise<void> {
   const server = app.listen(config.port, () => {
     console.log(`Turnwise listening on http://localhost:${config.port} (${config.demo ? 'demo mode' : 'production'}; database ${config.databaseFile})`);
   });
-  const workers = app.locals['workers'] as WorkerPool;
-  const fixesPool = app.locals['fixesPool'] as FixesPool;
-  const stop = () => server.close(() => Promise.all([workers.close(), fixesPool.close(), db.destroy()]).then(() => process.exit(0)));
+  const stop = () => server.close(() => Promise.all([closeApp(app), db.destroy()]).then(() => process.exit(0)));
   process.on('SIGINT', stop);
   process.on('SIGTERM', stop);
 }

@@ -16,10 +16,7 @@ describe('concurrent moves of one slot', () => {
     const csv = toCsv([EXAM_LIST_HEADER, row('M-1', '08:00'), row('M-2', '09:00')]);
     expect((await scheduler.upload(`/api/days/${DAY}/exams/import`, csv, 'day.csv')).status).toBe(200);
   }, 30_000);
-  afterAll(async () => {
-    await (h.app.locals['workers'] as { close(): Promise<void> }).close();
-    await h.close();
-  }, 30_000);
+  afterAll(() => h.close(), 30_000);
 
   it('exactly one of many moves made from the same version wins; the rest get 409 and change nothing', async () => {
     const exam = (await h.db('exams').where({ day: DAY, accession: 'M-2' }).first()) as { id: number; version: number };

@@ -18,10 +18,7 @@ describe('day versions: the plan cache, its ETag, and an import bound to its pre
     charge = await signedIn(h.app, 'charge');
     expect((await scheduler.upload(importUrl(), list(row('M-1', 'MR 1', '08:00'), row('M-2', 'MR 1', '08:40')), 'day.csv')).status).toBe(200);
   }, 30_000);
-  afterEach(async () => {
-    await (h.app.locals['workers'] as { close(): Promise<void> }).close();
-    await h.close();
-  }, 30_000);
+  afterEach(() => h.close(), 30_000);
 
   const examId = async (accession: string) => (await h.db('exams').where({ day: DAY, accession }).first()) as { id: number; version: number };
 

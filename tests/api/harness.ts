@@ -5,7 +5,7 @@ import type { Express } from 'express';
 import type { Knex } from 'knex';
 import request from 'supertest';
 import type { CookieAccessInfo, CookieJar } from 'cookiejar';
-import { createApp, type AppDeps } from '../../server/app';
+import { closeApp, createApp, type AppDeps } from '../../server/app';
 import { fixedClock } from '../../server/clock';
 import { createDb, migrateToLatest } from '../../server/db';
 import { seedDemo, seedReferenceData } from '../../server/seeding';
@@ -24,15 +24,17 @@ export interface Harness {
   close(): Promise<void>;
 }
 
-/** A real SQLite file in a temp folder, migrated to latest and seeded with the demo centre. */
+/**
+ * A real SQLite file in a temp folder, migrated to latest and seeded with the demo centre.
+ * Migrating and seeding run once per test process and clock (into a template file); each harness
+ * starts from a copy, so a suite's setup stays quick on a busy machine.
+ */
 export async function startHarness(options: Partial<AppDeps> & { now?: string; seedDay?: boolean } = {}): Promise<Harness> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'turnwise-test-'));
   const file = path.join(dir, 'test.sqlite');
   const clock = fixedClock(options.now ?? '2027-03-10T14:00:00Z');
+  fs.copyFileSync(await templateFile(clock.now(), options.seedDay ?? false), file);
   let db = createDb(file);
-  await migrateToLatest(db);
-  await seedReferenceData(db);
-  await seedDemo(db, clock.now(), { day: options.seedDay ?? false });
   const build = () => createApp({ db, sessionSecret: 'test-secret', clock, demo: true, logError: () => {}, ...options });
   const harness: Harness = {
     db,
@@ -40,17 +42,47 @@ export async function startHarness(options: Partial<AppDeps> & { now?: string; s
     file,
     clock,
     async restart() {
+      await closeApp(harness.app);
       await db.destroy();
       db = createDb(file);
       harness.db = db;
       harness.app = build();
     },
     async close() {
+      await closeApp(harness.app);
       await db.destroy();
       fs.rmSync(dir, { recursive: true, force: true });
     },
   };
   return harness;
+}
+
+const templates = new Map<string, Promise<string>>();
+
+/** A migrated, seeded database file for this clock, made once per test process. */
+function templateFile(now: Date, seedDay: boolean): Promise<string> {
+  const key = `${now.toISOString()}|${seedDay}`;
+  let made = templates.get(key);
+  if (!made) {
+    made = (async () => {
+      const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'turnwise-template-'));
+      process.once('exit', () => fs.rmSync(dir, { recursive: true, force: true }));
+      const file = path.join(dir, 'template.sqlite');
+      const db = createDb(file);
+      try {
+        await migrateToLatest(db);
+        await seedReferenceData(db);
+        await seedDemo(db, now, { day: seedDay });
+        // Everything into the main file, so one file copy is the whole database.
+        await db.raw('pragma wal_checkpoint(TRUNCATE)');
+      } finally {
+        await db.destroy();
+      }
+      return file;
+    })();
+    templates.set(key, made);
+  }
+  return made;
 }
 
 /** What the agent's jar sends with a sign-in call: supertest's host, the auth path, plain HTTP. */

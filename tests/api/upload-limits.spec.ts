@@ -25,10 +25,7 @@ describe('upload limits: no file can crash or freeze the server', () => {
     expect((await scheduler.upload(importUrl(), exampleCsv(DAY), 'day.csv')).status).toBe(200);
     before = await dayExams();
   }, 30_000);
-  afterAll(async () => {
-    await (h.app.locals['workers'] as { close(): Promise<void> }).close();
-    await h.close();
-  }, 30_000);
+  afterAll(() => h.close(), 30_000);
 
   async function dayExams() {
     return (await h.db('exams').where({ day: DAY }).orderBy('id')).map((e) => ({ ...e }));

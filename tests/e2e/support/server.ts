@@ -3,7 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import type { AddressInfo } from 'node:net';
 import type { Knex } from 'knex';
-import { createApp } from '../../../server/app';
+import { closeApp, createApp } from '../../../server/app';
 import { fixedClock, systemClock } from '../../../server/clock';
 import { createDb, migrateToLatest } from '../../../server/db';
 import { seedDemo, seedReferenceData } from '../../../server/seeding';
@@ -67,6 +67,7 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
       // Chromium keeps idle keep-alive sockets open, which would hold server.close() forever.
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
+      await closeApp(app);
       await db.destroy();
       fs.rmSync(dir, { recursive: true, force: true });
     },
