@@ -11,6 +11,8 @@ const DAY = '2027-03-10';
 const SECONDS = 5;
 const STREAMS = 200;
 const MOVES = 5;
+// 40 exams give a plan body of about 85 kB, the size of a full demo day.
+const EXAMS_PER_ROOM = 10;
 
 /**
  * The day plan served by Turnwise against a bare Express 5 app serving the same body, side by
@@ -105,12 +107,12 @@ async function signIn(base: string): Promise<Session> {
   return { cookie: cookie(), token: decodeURIComponent(jar.get('XSRF-TOKEN') ?? '') };
 }
 
-/** An invented busy day: the four demo rooms, 30 exams each, some gaps tight. */
+/** An invented busy day: the four demo rooms, ten exams each, some gaps tight. */
 async function importBusyDay(base: string, session: Session): Promise<void> {
   const rooms = ['MR 1', 'MR 2', 'MR 3', 'CT 1'];
   const table = [EXAM_LIST_HEADER];
   rooms.forEach((room, r) => {
-    for (let i = 0; i < 30; i++) {
+    for (let i = 0; i < EXAMS_PER_ROOM; i++) {
       const minute = 7 * 60 + i * (room === 'CT 1' ? 20 : 28) + (i % 3);
       const hhmm = `${String(Math.floor(minute / 60)).padStart(2, '0')}:${String(minute % 60).padStart(2, '0')}`;
       table.push([`BENCH-${r}-${i}`, room, hhmm, room === 'CT 1' ? '10' : '20', 'Invented procedure', 'knee', i === 7 ? 'contact' : 'none', 'ambulatory', 'no', '']);
