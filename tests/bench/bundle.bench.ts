@@ -1,35 +1,15 @@
-import { execSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import zlib from 'node:zlib';
 import { CLIENT_DIR } from '../e2e/support/server';
+import { ensureClientBuild } from '../../server/client-build';
 
-const ROOT = path.resolve(__dirname, '..', '..');
-/** What the client build reads; a build older than any of these would measure yesterday's code. */
-const BUILD_INPUTS = ['projects/turnwise/src', 'shared', 'angular.json', 'package-lock.json'];
 /**
  * Initial JS of a blank Angular 21 + Material app whose signed-in part is a lazy route, built with
  * this project's production options (issue 8's measurement; the project's own baseline, no source).
  */
 const BLANK_APP_BYTES = 283_000;
 const TARGET_FACTOR = 1.15;
-
-function newestChange(entry: string): number {
-  const stat = fs.statSync(entry);
-  if (!stat.isDirectory()) return stat.mtimeMs;
-  return Math.max(stat.mtimeMs, ...fs.readdirSync(entry).map((name) => newestChange(path.join(entry, name))));
-}
-
-/** Builds the client when there is no build or a source changed since the last one. */
-function ensureFreshBuild(): string {
-  const index = path.join(CLIENT_DIR, 'index.html');
-  if (fs.existsSync(index)) {
-    const built = fs.statSync(index).mtimeMs;
-    if (BUILD_INPUTS.every((input) => newestChange(path.join(ROOT, input)) <= built)) return 'existing build';
-  }
-  execSync('npm run build', { cwd: ROOT, stdio: 'inherit' });
-  return 'fresh build';
-}
 
 type Reader = (file: string) => string;
 
@@ -104,7 +84,7 @@ export function measureSignIn(dir: string = CLIENT_DIR): SignInBytes {
  * index.html loads, and the figure the target is about) and, with them, the sign-in page's own lazy chunks.
  */
 export async function benchBundle(): Promise<string[]> {
-  const build = ensureFreshBuild();
+  const build = ensureClientBuild(CLIENT_DIR, () => {});
   const { initial, withRoute } = measureSignIn();
   const target = BLANK_APP_BYTES * TARGET_FACTOR;
   return [
