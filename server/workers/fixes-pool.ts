@@ -1,8 +1,7 @@
-import path from 'node:path';
-import Piscina from 'piscina';
 import type { Fix } from '../../shared/fixes';
 import { HttpError } from '../errors';
 import type { FixesPageTask, GapFixesTask } from './fixes-task';
+import { createThreadPool, poolFailure } from './thread-pool';
 
 export interface FixesPoolOptions {
   /** Threads at most; default 1, leaving the other core of a small server to the event loop. */
@@ -33,33 +32,28 @@ export interface FixesPool {
  * await pool.close();
  */
 export function createFixesPool(options: FixesPoolOptions = {}): FixesPool {
-  const pool = new Piscina({
-    filename: path.join(__dirname, 'fixes-worker.cjs'),
-    minThreads: 0,
-    maxThreads: options.maxThreads ?? 1,
-    idleTimeout: 30_000,
+  const pool = createThreadPool({
+    entry: 'fixes-worker.cjs',
+    maxThreads: options.maxThreads,
     maxQueue: options.maxQueue ?? 16,
-    resourceLimits: { maxOldGenerationSizeMb: 256, maxYoungGenerationSizeMb: 32 },
+    maxHeapMb: 256,
+    idleTimeoutMs: 30_000,
   });
   const timeoutMs = options.timeoutMs ?? 30_000;
   const run = async <T>(task: object, name: string): Promise<T> => {
     try {
-      return (await pool.run(task, { name, signal: AbortSignal.timeout(timeoutMs) })) as T;
+      return await pool.run<T>(name, task, timeoutMs);
     } catch (error) {
-      throw refusalFor(error);
+      throw poolFailure(error) === null ? error : busy();
     }
   };
   return {
     page: (task) => run(task, 'fixesPageTask'),
     gap: (task) => run(task, 'gapFixesTask'),
-    close: () => pool.destroy(),
+    close: () => pool.close(),
   };
 }
 
-function refusalFor(error: unknown): unknown {
-  const { name, message } = error as { name?: string; message?: string };
-  if (name === 'AbortError' || message === 'Task queue is at limit') {
-    return new HttpError(503, 'busy', 'The server is busy working out suggestions. Try again in a moment.');
-  }
-  return error;
+function busy(): HttpError {
+  return new HttpError(503, 'busy', 'The server is busy working out suggestions. Try again in a moment.');
 }

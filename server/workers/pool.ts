@@ -1,28 +1,25 @@
-import path from 'node:path';
-import Piscina from 'piscina';
+import { EXAM_FILE_LIMITS } from '../../shared/exam-list/file-limits';
 import { HttpError } from '../errors';
 import { FileLimitError } from '../services/file-limits';
 import type { ExamListTask, ExamListTaskResult } from './exam-list-task';
-import { EXAM_FILE_LIMITS } from '../../shared/exam-list/file-limits';
+import { createThreadPool, poolFailure } from './thread-pool';
 
 export interface WorkerPoolOptions {
-  /** Threads at most; default 1, leaving the other core of a small server to the event loop. */
   maxThreads?: number;
-  /** Tasks waiting for a thread before new ones are turned away with 503. */
+  /** Files waiting for a thread before new ones are turned away with 503; default 8. */
   maxQueue?: number;
   /** Heap of one worker; a file that needs more ends that worker only, never the server. */
   maxHeapMb?: number;
 }
 
-/** Work that grows with its input and so runs in worker threads, never on the event loop. */
+/** Reading uploaded files, which grows with the file, in worker threads, never on the event loop. */
 export interface WorkerPool {
   readExamList(task: ExamListTask): Promise<ExamListTaskResult>;
   close(): Promise<void>;
 }
 
 /**
- * A pool of worker threads with bounded memory, time and queue. Threads start on demand and
- * end after a second idle, so an idle server (or a finished test) holds none.
+ * The upload pool: bounded memory, time and queue; threads end after a second idle.
  *
  * @example
  * const pool = createWorkerPool();
@@ -30,32 +27,34 @@ export interface WorkerPool {
  * await pool.close();
  */
 export function createWorkerPool(options: WorkerPoolOptions = {}): WorkerPool {
-  const pool = new Piscina({
-    filename: path.join(__dirname, 'worker.cjs'),
-    minThreads: 0,
-    maxThreads: options.maxThreads ?? 1,
-    idleTimeout: 1000,
+  const pool = createThreadPool({
+    entry: 'worker.cjs',
+    maxThreads: options.maxThreads,
     maxQueue: options.maxQueue ?? 8,
-    resourceLimits: { maxOldGenerationSizeMb: options.maxHeapMb ?? 384, maxYoungGenerationSizeMb: 32 },
+    maxHeapMb: options.maxHeapMb ?? 384,
+    idleTimeoutMs: 1000,
   });
   return {
     async readExamList(task) {
       try {
-        return await pool.run(task, { name: 'readExamListTask', signal: AbortSignal.timeout(EXAM_FILE_LIMITS.maxReadSeconds * 1000) });
+        return await pool.run<ExamListTaskResult>('readExamListTask', task, EXAM_FILE_LIMITS.maxReadSeconds * 1000);
       } catch (error) {
         throw refusalFor(error);
       }
     },
-    close: () => pool.destroy(),
+    close: () => pool.close(),
   };
 }
 
 function refusalFor(error: unknown): unknown {
-  const { name, code, message } = error as { name?: string; code?: string; message?: string };
-  if (name === 'AbortError') return FileLimitError.slow();
-  if (code === 'ERR_WORKER_OUT_OF_MEMORY') return FileLimitError.memory();
-  if (message === 'Task queue is at limit') {
-    return new HttpError(503, 'busy', 'The server is reading other files right now. Try again in a moment.');
+  switch (poolFailure(error)) {
+    case 'timeout':
+      return FileLimitError.slow();
+    case 'memory':
+      return FileLimitError.memory();
+    case 'queue-full':
+      return new HttpError(503, 'busy', 'The server is reading other files right now. Try again in a moment.');
+    default:
+      return error;
   }
-  return error;
 }

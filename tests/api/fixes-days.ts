@@ -1,20 +1,11 @@
 import type { DayPlanExam, DayPlanInput, DayPlanRoom } from '../../shared/turnover';
 import { MOBILITIES, PRECAUTIONS } from '../../shared/turnover';
+import { seededRandom } from '../../shared/turnover/testing/seeded-random';
 
 const DATE = '2027-03-15';
 const ZONE = 'America/Chicago';
 
-/** Deterministic pseudo-random numbers (mulberry32), so every run plans the same invented day. */
-function random(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+const random = seededRandom;
 
 /** `minute` minutes after 06:00 UTC on `date` (01:00 in Chicago in summer time), ISO with `Z`. */
 const at = (date: string, minute: number) => new Date(Date.parse(`${date}T06:00:00Z`) + minute * 60_000).toISOString().replace('.000Z', 'Z');

@@ -1,5 +1,6 @@
 import type { DayPlanExam, DayPlanRoom } from '../../shared/turnover';
 import { computeDayPlan, MOBILITIES, PRECAUTIONS } from '../../shared/turnover';
+import { seededRandom } from '../../shared/turnover/testing/seeded-random';
 
 const ROOMS = 100;
 const EXAMS = 10_000;
@@ -7,17 +8,7 @@ const WARM_UP_RUNS = 2;
 const WARM_RUNS = 15;
 const TARGET_MS = 50;
 
-/** Deterministic pseudo-random numbers (mulberry32), so every run plans the same invented day. */
-function random(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+const random = seededRandom;
 
 /** An invented stress day: 100 rooms (MR, CT, US), 100 short exams each with random gaps (0–25 min). */
 export function syntheticDay(): { rooms: DayPlanRoom[]; exams: DayPlanExam[] } {

@@ -1,17 +1,8 @@
 import type { DayPlanExam, DayPlanInput, DayPlanRoom } from '../../turnover/day-plan-input';
 import { MOBILITIES, PRECAUTIONS } from '../../turnover/model';
+import { seededRandom } from '../../turnover/testing/seeded-random';
 
-/** Deterministic pseudo-random numbers (mulberry32): the same seed invents the same day. */
-function random(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+const random = seededRandom;
 
 /**
  * An invented, crowded small day for property checks (no real rooms or exams): 3–5 rooms of

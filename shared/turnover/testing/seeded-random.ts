@@ -1,0 +1,18 @@
+/**
+ * Deterministic pseudo-random numbers in [0, 1) (mulberry32): the same seed gives the same
+ * sequence, so tests and benchmarks invent the same day on every run.
+ *
+ * @example
+ * const next = seededRandom(20270315);
+ * next(); // always the same first number for this seed
+ */
+export function seededRandom(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
