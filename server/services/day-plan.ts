@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { computeDayPlan, computeDaySummary, type DayPlanExam, type DayPlanInput } from '../../shared/turnover';
-import type { DayPlan, PlanSummary } from '../../shared/api/plan';
+import type { PlannedDay, PlanSummary } from '../../shared/api/plan';
 import type { Room } from '../../shared/api/rooms';
 import { planVersions } from './day-version';
 import { examsOfDay, toPlanExam } from './exams';
@@ -8,9 +8,10 @@ import { cachedPlan, type CachedPlan } from './plan-cache';
 import { listRooms } from './rooms';
 import { readSettings } from './settings';
 
-/** The day's plan from what is stored: rooms, settings, the day list and staffing. */
-export async function loadDayPlan(db: Knex, day: string): Promise<DayPlan> {
-  return (await loadCachedDayPlan(db, day)).plan;
+/** The day's plan from what is stored (rooms, settings, the day list and staffing), with that input. */
+export async function loadDayPlan(db: Knex, day: string): Promise<PlannedDay> {
+  // loadCachedDayPlan only ever keeps a planned day (see its compute below).
+  return (await loadCachedDayPlan(db, day)).plan as PlannedDay;
 }
 
 /**
@@ -24,7 +25,11 @@ export async function loadCachedDayPlan(db: Knex, day: string): Promise<CachedPl
   return cachedPlan(
     db,
     key,
-    async () => computeDayPlan(await loadDayPlanInput(db, day)),
+    async (): Promise<PlannedDay> => {
+      const input = await loadDayPlanInput(db, day);
+      // The input travels with the plan (and its ETag), so the client previews moves from exactly it.
+      return { ...computeDayPlan(input), input };
+    },
     async () => {
       const now = await planVersions(db, day);
       return now.day === versions.day && now.setup === versions.setup;

@@ -2,6 +2,7 @@
  * `GET /api/days/:date/plan` and `PATCH /api/exams/:id` response types (the public contract).
  * Every time is ISO 8601 with the site's offset, e.g. `2027-03-15T07:00:00-05:00`.
  */
+import type { DayPlanInput } from '../turnover/day-plan-input';
 import type { Mobility, Precaution, Verdict } from '../turnover/model';
 
 export type { Mobility, Precaution, Verdict };
@@ -82,4 +83,13 @@ export interface DayPlan {
   timezone: string;
   rooms: PlanRoom[];
   summary: PlanSummary;
+}
+
+/**
+ * A day's plan as the API answers it (`GET /api/days/:date/plan` and every change): the plan and
+ * the very input the server computed it from, so a client's live preview runs the same engine
+ * on the same input and can never disagree with the server.
+ */
+export interface PlannedDay extends DayPlan {
+  input: DayPlanInput;
 }
