@@ -1,4 +1,4 @@
-import { ROLES, Role, homeFor, screen, screensFor } from './roles';
+import { ROLES, Role, homeFor, may, screen, screensFor } from './roles';
 
 // Expected access comes from the project brief's screen list (our product rule, not a published source).
 const EXPECTED: Record<Role, string[]> = {
@@ -34,5 +34,22 @@ describe('homeFor', () => {
 describe('screen', () => {
   it('throws on an unknown path so a route cannot lose its guard', () => {
     expect(() => screen('day-plan')).toThrow('No screen "day-plan"');
+  });
+});
+
+describe('may', () => {
+  it('lets the roles that may move slots move them, and no one signed out', () => {
+    expect(ROLES.filter((role) => may(role, 'moveSlots'))).toEqual(expect.arrayContaining(['scheduler', 'charge', 'admin']));
+    expect(may('tech', 'moveSlots')).toBe(false);
+    expect(may('frontdesk', 'moveSlots')).toBe(false);
+    expect(may(null, 'moveSlots')).toBe(false);
+  });
+
+  it('keeps staffing to the charge technologist and admin', () => {
+    expect(ROLES.filter((role) => may(role, 'changeStaffing')).sort()).toEqual(['admin', 'charge']);
+  });
+
+  it('offers import exactly to the roles that see the Import screen', () => {
+    expect(ROLES.filter((role) => may(role, 'importDayList'))).toEqual(ROLES.filter((role) => screen('import').roles.includes(role)));
   });
 });

@@ -61,3 +61,33 @@ export function homeFor(role: Role): string {
       return '/day';
   }
 }
+
+/**
+ * What a role may do beyond seeing a screen. Components ask {@link may} and never keep their own
+ * role lists; the server checks the same on every route (admin may do everything).
+ */
+export const ABILITIES = {
+  /** Drag and keyboard moves, undo and redo, single-exam edits. */
+  moveSlots: ['scheduler', 'charge', 'admin'],
+  /** People on a turnover or a room; accept a suggested fix. */
+  changeStaffing: ['charge', 'admin'],
+  /** Replace a day's list from a file. */
+  importDayList: screen('import').roles,
+  /** Tick steps, record an exam's end, close a turnover, log cleaning. */
+  workTurnovers: ['tech', 'charge', 'admin'],
+  /** Mark a patient arrived. */
+  markArrivals: ['frontdesk', 'charge', 'tech', 'admin'],
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Ability = keyof typeof ABILITIES;
+
+/**
+ * Whether a signed-in role may do it; false for no user.
+ *
+ * @example
+ * may('scheduler', 'moveSlots'); // true
+ * may('tech', 'moveSlots'); // false
+ */
+export function may(role: Role | null | undefined, ability: Ability): boolean {
+  return !!role && (ABILITIES[ability] as readonly Role[]).includes(role);
+}

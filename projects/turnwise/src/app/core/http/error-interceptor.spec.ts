@@ -89,6 +89,29 @@ describe('errorInterceptor', () => {
     expect(setup.notice.show).not.toHaveBeenCalled();
   });
 
+  it('hands over the refusal\'s details, so no caller reads the English message to decide', async () => {
+    const setup = setUp();
+    const error = await fail(
+      setup,
+      '/api/turnovers/4/steps',
+      { error: { code: 'surface_wet', message: 'The table is still wet.', details: { wet: ['table'] } } },
+      422,
+      { ownErrors: true },
+    );
+    expect(error).toEqual({ status: 422, code: 'surface_wet', message: 'The table is still wet.', details: { wet: ['table'] } });
+  });
+
+  it('keeps an import refusal\'s per-row errors and table as details, through the one HttpClient', async () => {
+    const setup = setUp();
+    const refusal = {
+      error: { code: 'validation_failed', message: 'The file has 1 error.' },
+      errors: [{ row: 2, column: 'duration_min', message: 'must be a whole number' }],
+      table: [['accession', 'duration_min'], ['A1', 'x']],
+    };
+    const error = await fail(setup, '/api/days/2027-03-14/exams/import', refusal, 422, { ownErrors: true });
+    expect(error.details).toEqual({ errors: refusal.errors, table: refusal.table });
+  });
+
   it('keeps a short plain-text body, as a rate limiter might send', async () => {
     const setup = setUp();
     const error = await fail(setup, '/api/rooms', 'Too many attempts, wait a minute.', 429);

@@ -39,12 +39,20 @@ export const errorInterceptor: HttpInterceptorFn = (request, next) => {
   );
 };
 
-/** Reads the server's `{error: {code, message}}`, falling back to something a person can act on. */
+/**
+ * Reads the server's `{error: {code, message, details?}}` into one {@link ApiError}, details
+ * included: a refusal's `error.details`, or the body's other top-level fields (the import's
+ * `errors`, `table`, `warnings`), so no caller ever needs the raw response.
+ */
 export function toApiError(response: HttpErrorResponse): ApiError {
   const body: unknown = response.error;
-  const serverError = typeof body === 'object' && body !== null ? (body as { error?: unknown }).error : undefined;
-  if (isCodeAndMessage(serverError)) {
-    return { status: response.status, code: serverError.code, message: serverError.message };
+  if (typeof body === 'object' && body !== null) {
+    const { error: serverError, ...rest } = body as { error?: unknown } & Record<string, unknown>;
+    if (isCodeAndMessage(serverError)) {
+      const details = serverError.details ?? (Object.keys(rest).length > 0 ? rest : undefined);
+      const apiError: ApiError = { status: response.status, code: serverError.code, message: serverError.message };
+      return details === undefined ? apiError : { ...apiError, details };
+    }
   }
   if (response.status === 0) {
     return { status: 0, code: 'unreachable', message: 'Turnwise cannot reach its server. Check the connection and try again.' };
@@ -58,7 +66,7 @@ export function toApiError(response: HttpErrorResponse): ApiError {
   };
 }
 
-function isCodeAndMessage(value: unknown): value is { code: string; message: string } {
+function isCodeAndMessage(value: unknown): value is { code: string; message: string; details?: unknown } {
   if (typeof value !== 'object' || value === null) return false;
   const candidate = value as { code?: unknown; message?: unknown };
   return typeof candidate.code === 'string' && typeof candidate.message === 'string';

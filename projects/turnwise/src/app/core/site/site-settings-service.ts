@@ -1,9 +1,10 @@
 import { HttpClient } from '@angular/common/http';
-import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
+import { Injectable, computed, inject, signal } from '@angular/core';
 import { DateTime } from 'luxon';
 import { firstValueFrom } from 'rxjs';
 
 import type { SiteSettings } from '@shared/api/settings';
+import { Clock } from '../time/clock';
 
 /**
  * The site's settings (`GET /api/settings`), fetched once. Screens need the site's zone to know
@@ -15,22 +16,19 @@ export class SiteSettingsService {
   private readonly current = signal<SiteSettings | null>(null);
   private loading: Promise<SiteSettings | null> | null = null;
   // Re-read each minute so a screen left open (a wall display) moves on to the next day at midnight.
-  private readonly minute = signal(Date.now());
+  private readonly minute = inject(Clock).minute;
 
   /** The settings, or null until loaded. */
   readonly settings = this.current.asReadonly();
 
   /** Today (`YYYY-MM-DD`) in the site's zone, or null until the settings are loaded. */
   readonly today = computed(() => {
-    this.minute();
     const settings = this.current();
-    return settings ? todayIn(settings.timezone) : null;
+    return settings ? todayIn(settings.timezone, this.minute()) : null;
   });
 
   constructor() {
     void this.load();
-    const timer = setInterval(() => this.minute.set(Date.now()), 60_000);
-    inject(DestroyRef).onDestroy(() => clearInterval(timer));
   }
 
   /** Fetches the settings once. If they cannot be read, today falls back to the browser's zone. */
@@ -49,7 +47,8 @@ export class SiteSettingsService {
   }
 }
 
-/** `YYYY-MM-DD` of now in an IANA zone. */
-export function todayIn(timezone: string): string {
-  return DateTime.now().setZone(timezone).toISODate() ?? DateTime.now().toISODate()!;
+/** `YYYY-MM-DD` of a moment (default now) in an IANA zone. */
+export function todayIn(timezone: string, atMs = Date.now()): string {
+  const at = DateTime.fromMillis(atMs);
+  return at.setZone(timezone).toISODate() ?? at.toISODate()!;
 }

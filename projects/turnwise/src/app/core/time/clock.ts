@@ -1,13 +1,20 @@
-import { Injectable, Signal } from '@angular/core';
+import { Injectable, Signal, computed } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { interval, map } from 'rxjs';
 
 /**
- * The browser's time, ticking once a second, for countdowns. One timer for the whole app;
- * tests provide a stand-in whose `now` they set.
+ * The app's one "now": the browser's time, ticking once a second, for countdowns; `minute` for
+ * views that move by the minute (the timeline's now line, which day is today), so they are not
+ * recomputed every second. One timer for the whole app; tests provide `fakeClock` instead.
  */
 @Injectable({ providedIn: 'root' })
 export class Clock {
   /** Milliseconds since the epoch. */
   readonly now: Signal<number> = toSignal(interval(1000).pipe(map(() => Date.now())), { initialValue: Date.now() });
+  /** The start of the current minute, in ms since the epoch; changes once a minute. */
+  readonly minute: Signal<number> = computed(() => startOfMinute(this.now()));
+}
+
+export function startOfMinute(ms: number): number {
+  return Math.floor(ms / 60_000) * 60_000;
 }

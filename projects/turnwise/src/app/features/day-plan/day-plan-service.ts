@@ -3,7 +3,7 @@ import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 
 import type { PlanChangeRecord } from '@shared/api/changes';
-import type { DayPlan } from '@shared/api/plan';
+import type { PlannedDay } from '@shared/api/plan';
 import type { Room } from '@shared/api/rooms';
 import type { Fix } from '@shared/fixes/model';
 import { showsOwnErrors } from '../../core/http/shows-own-errors';
@@ -21,34 +21,30 @@ export class DayPlanService {
   private readonly quiet = { context: showsOwnErrors() };
 
   /** `GET /api/days/:date/plan`; fails with an ApiError. */
-  plan(date: string): Observable<DayPlan> {
-    return this.http.get<DayPlan>(`${day(date)}/plan`, this.quiet);
-  }
-
-  rooms(): Observable<Room[]> {
-    return this.http.get<{ rooms: Room[] }>('/api/rooms', this.quiet).pipe(map((body) => body.rooms));
+  plan(date: string): Observable<PlannedDay> {
+    return this.http.get<PlannedDay>(`${day(date)}/plan`, this.quiet);
   }
 
   /** Moves a slot (`start` ISO with offset); 409 when `version` is stale, 422 when the move is refused. */
-  move(examId: number, body: { start: string; roomId: number; version: number; reason: MoveReason }): Observable<DayPlan> {
-    return this.http.patch<DayPlan>(`/api/exams/${examId}`, body, this.quiet);
+  move(examId: number, body: { start: string; roomId: number; version: number; reason: MoveReason }): Observable<PlannedDay> {
+    return this.http.patch<PlannedDay>(`/api/exams/${examId}`, body, this.quiet);
   }
 
   /** People on the turnover before `toExamId`; null goes back to the room's usual staff. */
-  gapStaffing(toExamId: number, staff: number | null): Observable<DayPlan> {
-    return this.http.put<DayPlan>(`/api/exams/${toExamId}/staffing`, { staff }, this.quiet);
+  gapStaffing(toExamId: number, staff: number | null): Observable<PlannedDay> {
+    return this.http.put<PlannedDay>(`/api/exams/${toExamId}/staffing`, { staff }, this.quiet);
   }
 
   roomStaffing(roomId: number, staff: number): Observable<Room[]> {
     return this.http.patch<{ rooms: Room[] }>(`/api/rooms/${roomId}/staffing`, { staff }, this.quiet).pipe(map((body) => body.rooms));
   }
 
-  undo(date: string): Observable<DayPlan> {
-    return this.http.post<DayPlan>(`${day(date)}/undo`, {}, this.quiet);
+  undo(date: string): Observable<PlannedDay> {
+    return this.http.post<PlannedDay>(`${day(date)}/undo`, {}, this.quiet);
   }
 
-  redo(date: string): Observable<DayPlan> {
-    return this.http.post<DayPlan>(`${day(date)}/redo`, {}, this.quiet);
+  redo(date: string): Observable<PlannedDay> {
+    return this.http.post<PlannedDay>(`${day(date)}/redo`, {}, this.quiet);
   }
 
   /** The day's changes, newest first. */
@@ -62,9 +58,9 @@ export class DayPlanService {
   }
 
   /** 422 when the fix makes other gaps short and that was not accepted. */
-  applyFix(date: string, fixId: string, acceptNewProblems: boolean): Observable<DayPlan> {
+  applyFix(date: string, fixId: string, acceptNewProblems: boolean): Observable<PlannedDay> {
     return this.http
-      .post<{ applied: Fix; plan: DayPlan }>(`${day(date)}/fixes/apply`, { fixId, acceptNewProblems }, this.quiet)
+      .post<{ applied: Fix; plan: PlannedDay }>(`${day(date)}/fixes/apply`, { fixId, acceptNewProblems }, this.quiet)
       .pipe(map((body) => body.plan));
   }
 }

@@ -1,16 +1,14 @@
 import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
-import { Observable, Subject, Subscription, catchError, firstValueFrom, map, of, switchMap } from 'rxjs';
+import { Observable, Subscription, map } from 'rxjs';
 
 import type { ApiError } from '@shared/api/errors';
-import { isApiError } from '@shared/api/errors';
-import type { DayPlan, PlanExam } from '@shared/api/plan';
-import type { Room } from '@shared/api/rooms';
+import type { PlanExam, PlannedDay } from '@shared/api/plan';
 import type { Fix } from '@shared/fixes/model';
 import { AuthService } from '../../core/auth/auth-service';
-import { SiteSettingsService } from '../../shared/ui/site-settings-service';
-import { DayEvents } from '../../shared/ui/day-events';
+import { DayEvents } from '../../core/live/day-events';
+import { action } from '../../core/state/action';
+import { serverState } from '../../core/state/server-state';
 import { DayPlanService, MoveReason } from './day-plan-service';
-import { dayPlanInputOf } from './plan-preview';
 
 /** A message about the last change, shown in the banner above the timeline. */
 export interface Notice {
@@ -23,93 +21,86 @@ export type LiveState = 'connecting' | 'live' | 'offline';
 /** How long "Updated by …" stays up after someone else changed the day. */
 const UPDATED_BY_MS = 6000;
 
+/** Refusals that only say there was nothing to do: told as information, not as an error. */
+const NOTHING_TO_DO: readonly string[] = ['nothing_to_undo', 'nothing_to_redo'];
+/** Refusals that mean the day changed under the user: the screen shows what is there now. */
+const DAY_MOVED_ON: readonly string[] = ['stale_version', 'changed_since', 'fix_stale', 'day_changed'];
+
 /**
- * The day on screen and every change to it. Each change answers the day's new plan, which
- * replaces the one shown; changes made elsewhere arrive on the event stream and are refetched.
- * One per Day plan screen (provided by the component), so leaving the screen closes the stream.
+ * The day on screen (a {@link serverState}) and every change to it (one {@link action}: a change
+ * answers the day's new plan, which replaces the one shown). Changes made elsewhere arrive on the
+ * day's event stream and are refetched. One per Day plan screen (provided by the component), so
+ * leaving the screen closes the stream.
  */
 @Injectable()
 export class DayPlanStore {
   private readonly api = inject(DayPlanService);
   private readonly events = inject(DayEvents);
-  private readonly settings = inject(SiteSettingsService).settings;
   private readonly user = inject(AuthService).user;
 
-  readonly date = signal<string | null>(null);
-  readonly status = signal<'loading' | 'loaded' | 'failed'>('loading');
-  readonly plan = signal<DayPlan | null>(null);
-  readonly error = signal<ApiError | null>(null);
-  readonly rooms = signal<Room[]>([]);
+  private readonly day = serverState((date: string) => this.api.plan(date), 'The day plan could not be shown. Try again.');
+  private readonly change = action((request: Observable<PlannedDay | null>) => request, 'That change could not be made. Try again.');
+
+  readonly date = this.day.key;
+  readonly plan = this.day.value;
+  readonly status = computed(() => (this.day.status() === 'idle' ? 'loading' : this.day.status()));
+  readonly error = this.day.error;
+  /** Bumped whenever a new plan arrives, so panels showing fixes or history refetch. */
+  readonly revision = this.day.revision;
   /** A change is on its way to the server; the screen holds further changes until it answers. */
-  readonly busy = signal(false);
+  readonly busy = this.change.pending;
   readonly notice = signal<Notice | null>(null);
   readonly live = signal<LiveState>('connecting');
   readonly updatedBy = signal<string | null>(null);
-  /** Bumped whenever a new plan arrives, so panels showing fixes or history refetch. */
-  readonly revision = signal(0);
+  /** The engine input for live previews while dragging: the server's own, sent with the plan. */
+  readonly previewInput = computed(() => this.plan()?.input ?? null);
 
-  /** The engine input for live previews while dragging. */
-  readonly previewInput = computed(() => {
-    const plan = this.plan();
-    return plan ? dayPlanInputOf(plan, this.rooms(), this.settings()?.snugMarginMinutes ?? 3) : null;
-  });
-
-  private readonly reloads = new Subject<void>();
   private stream: Subscription | null = null;
   private updatedByTimer: ReturnType<typeof setTimeout> | undefined;
 
   constructor() {
-    const reloading = this.reloads
-      .pipe(switchMap(() => this.fetch(this.date())))
-      .subscribe((result) => (isApiError(result) ? this.fail(result) : this.accept(result)));
     inject(DestroyRef).onDestroy(() => {
-      reloading.unsubscribe();
       this.stream?.unsubscribe();
       clearTimeout(this.updatedByTimer);
     });
-    this.loadRooms();
   }
 
   /** Shows another day: drops the old plan and listens to the new day's changes. */
   open(date: string): void {
     if (date === this.date()) return;
-    this.date.set(date);
-    this.plan.set(null);
-    this.status.set('loading');
     this.notice.set(null);
-    this.reloads.next();
+    this.day.show(date);
     this.listen(date);
   }
 
   /** Fetches the day again, keeping the current plan on screen until the new one arrives. */
   reload(): void {
-    if (!this.plan()) this.status.set('loading');
-    this.reloads.next();
+    this.day.reload();
   }
 
   move(exam: PlanExam, roomId: number, start: string, reason: MoveReason): Promise<boolean> {
-    return this.change(this.api.move(exam.id, { start, roomId, version: exam.version, reason }));
+    return this.apply(this.api.move(exam.id, { start, roomId, version: exam.version, reason }));
   }
 
   undo(): Promise<boolean> {
-    return this.change(this.api.undo(this.date()!));
+    return this.apply(this.api.undo(this.date()!));
   }
 
   redo(): Promise<boolean> {
-    return this.change(this.api.redo(this.date()!));
+    return this.apply(this.api.redo(this.date()!));
   }
 
   gapStaffing(toExamId: number, staff: number | null): Promise<boolean> {
-    return this.change(this.api.gapStaffing(toExamId, staff));
+    return this.apply(this.api.gapStaffing(toExamId, staff));
   }
 
   applyFix(fix: Fix, acceptNewProblems: boolean): Promise<boolean> {
-    return this.change(this.api.applyFix(this.date()!, fix.id, acceptNewProblems));
+    return this.apply(this.api.applyFix(this.date()!, fix.id, acceptNewProblems));
   }
 
-  /** The room's usual staff; answers rooms, so the plan is fetched again to show its effect. */
+  /** The room's usual staff; answers rooms, so the plan (and its input) is fetched again. */
   async roomStaffing(roomId: number, staff: number): Promise<boolean> {
-    const ok = await this.change(this.api.roomStaffing(roomId, staff).pipe(map((rooms) => (this.rooms.set(rooms), null))));
+    const ok = await this.apply(this.api.roomStaffing(roomId, staff).pipe(map(() => null)));
     if (ok) this.reload();
     return ok;
   }
@@ -118,41 +109,22 @@ export class DayPlanStore {
     this.notice.set(null);
   }
 
-  private async change(request: Observable<DayPlan | null>): Promise<boolean> {
-    this.busy.set(true);
-    try {
-      const plan = await firstValueFrom(request);
-      if (plan) this.accept(plan);
-      this.notice.set(null);
-      return true;
-    } catch (error) {
-      const apiError = isApiError(error) ? error : { status: 0, code: 'unexpected', message: 'That change could not be made. Try again.' };
-      this.notice.set({ tone: apiError.status === 409 && /nothing to/i.test(apiError.message) ? 'info' : 'error', text: apiError.message });
-      // Stale: someone changed the day first, so show what is really there now.
-      if (apiError.status === 409) this.reload();
+  private async apply(request: Observable<PlannedDay | null>): Promise<boolean> {
+    const result = await this.change.run(request);
+    if (result.status === 'failed') {
+      this.refused(result.error);
       return false;
-    } finally {
-      this.busy.set(false);
     }
+    // An answer for a day no longer shown (the user moved on meanwhile) is dropped.
+    if (result.value && result.value.date === this.date()) this.day.set(result.value);
+    this.notice.set(null);
+    return true;
   }
 
-  private fetch(date: string | null): Observable<DayPlan | ApiError> {
-    if (!date) return of();
-    return this.api.plan(date).pipe(catchError((error: unknown) => of(asApiError(error))));
-  }
-
-  private accept(plan: DayPlan): void {
-    if (plan.date !== this.date()) return;
-    this.plan.set(plan);
-    this.error.set(null);
-    this.status.set('loaded');
-    this.revision.update((n) => n + 1);
-  }
-
-  private fail(error: ApiError): void {
-    // A failed refresh keeps the day on screen; only a day never shown turns into the error state.
-    if (this.plan()) this.notice.set({ tone: 'error', text: error.message });
-    else (this.error.set(error), this.status.set('failed'));
+  private refused(error: ApiError): void {
+    this.notice.set({ tone: NOTHING_TO_DO.includes(error.code) ? 'info' : 'error', text: error.message });
+    // Someone changed the day first, so show what is really there now.
+    if (DAY_MOVED_ON.includes(error.code) || NOTHING_TO_DO.includes(error.code)) this.reload();
   }
 
   private listen(date: string): void {
@@ -170,9 +142,8 @@ export class DayPlanStore {
         return;
       }
       this.live.set('live');
-      const notice = message.event;
-      if (!notice || notice.reason === 'staffing') this.loadRooms();
       this.reload();
+      const notice = message.event;
       const me = this.user();
       if (notice?.by && notice.by !== (me?.displayName || me?.username)) this.showUpdatedBy(notice.by);
     });
@@ -183,13 +154,4 @@ export class DayPlanStore {
     this.updatedBy.set(by);
     this.updatedByTimer = setTimeout(() => this.updatedBy.set(null), UPDATED_BY_MS);
   }
-
-  private loadRooms(): void {
-    // Rooms only feed the drag preview; without them the preview stays off and the plan still shows.
-    this.api.rooms().pipe(catchError(() => of(null))).subscribe((rooms) => rooms && this.rooms.set(rooms));
-  }
-}
-
-function asApiError(error: unknown): ApiError {
-  return isApiError(error) ? error : { status: 0, code: 'unexpected', message: 'The day plan could not be shown. Try again.' };
 }

@@ -191,7 +191,7 @@ describe('DayPlan timeline', () => {
     await settle(fixture);
     document.body.dispatchEvent(new KeyboardEvent('keydown', { key: 'Z', ctrlKey: true, shiftKey: true, bubbles: true }));
     backend.expectOne({ method: 'POST', url: '/api/days/2027-03-15/redo' }).flush(
-      { error: { code: 'conflict', message: 'You have nothing to redo on this day.' } },
+      { error: { code: 'nothing_to_redo', message: 'You have nothing to redo on this day.' } },
       { status: 409, statusText: 'Conflict' },
     );
     await settle(fixture);

@@ -8,10 +8,10 @@ import { Router, RouterLink } from '@angular/router';
 
 import type { Fix } from '@shared/fixes/model';
 import { AuthService } from '../../core/auth/auth-service';
-import { Role, screen } from '../../core/auth/roles';
+import { may } from '../../core/auth/roles';
 import { CautionKind, CautionNote } from '../../shared/ui/caution-note';
 import { DayPicker } from '../../shared/ui/day-picker';
-import { SiteSettingsService } from '../../shared/ui/site-settings-service';
+import { SiteSettingsService } from '../../core/site/site-settings-service';
 import { VerdictSummary } from '../../shared/ui/verdict-summary';
 import { BandLegend } from './band-legend';
 import { DayPlanStore } from './day-plan-store';
@@ -19,9 +19,6 @@ import { DayTimeline } from './day-timeline';
 import { GapPanel } from './gap-panel';
 import { HistoryPanel } from './history-panel';
 import { ZOOMS, Zoom } from './timeline-scale';
-
-const MOVERS: readonly Role[] = ['scheduler', 'charge', 'admin'];
-const STAFFERS: readonly Role[] = ['charge', 'admin'];
 
 /**
  * The Day plan: the day's timeline with its summary, filter, zoom, undo/redo, history and live
@@ -59,9 +56,9 @@ export class DayPlan {
   /** The gap shown in the panel, by the exam it leads to. */
   protected readonly selectedGap = signal<number | null>(null);
 
-  protected readonly mayMove = computed(() => this.has(MOVERS));
-  protected readonly mayStaff = computed(() => this.has(STAFFERS));
-  protected readonly mayImport = computed(() => this.has(screen('import').roles));
+  protected readonly mayMove = computed(() => may(this.role(), 'moveSlots'));
+  protected readonly mayStaff = computed(() => may(this.role(), 'changeStaffing'));
+  protected readonly mayImport = computed(() => may(this.role(), 'importDayList'));
   protected readonly empty = computed(() => this.store.plan()?.rooms.every((room) => room.exams.length === 0) ?? false);
   protected readonly selection = computed(() => {
     const toExamId = this.selectedGap();
@@ -112,10 +109,5 @@ export class DayPlan {
     if (target?.closest('input, textarea, [contenteditable="true"]')) return;
     event.preventDefault();
     void (event.shiftKey ? this.store.redo() : this.store.undo());
-  }
-
-  private has(roles: readonly Role[]): boolean {
-    const role = this.role();
-    return role !== null && roles.includes(role);
   }
 }

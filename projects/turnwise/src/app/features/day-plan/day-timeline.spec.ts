@@ -97,7 +97,7 @@ describe('DayTimeline moves', () => {
     const timeline = fixture.debugElement.query(By.directive(DayTimeline)).componentInstance as DayTimeline;
     void timeline.drop(2, 1, Date.parse(at('09:00')));
     const message = 'Exam ACC-2 was changed meanwhile: Sam changed it at 07:50 (Moved ACC-2). The day has been reloaded.';
-    backend.expectOne('/api/exams/2').flush({ error: { code: 'conflict', message } }, { status: 409, statusText: 'Conflict' });
+    backend.expectOne('/api/exams/2').flush({ error: { code: 'stale_version', message } }, { status: 409, statusText: 'Conflict' });
     await settle(fixture);
     backend.expectOne('/api/days/2027-03-15/plan').flush(dayPlan());
     await settle(fixture);

@@ -4,6 +4,7 @@ import {
 } from '@angular/core';
 
 import type { DayPlan, PlanExam, PlanRoom } from '@shared/api/plan';
+import { Clock } from '../../core/time/clock';
 import type { MoveReason } from './day-plan-service';
 import { DayPlanStore } from './day-plan-store';
 import { LANE_HEADER_PX, LANE_HEIGHT_PX } from './lane-size';
@@ -47,7 +48,7 @@ export class DayTimeline {
   private readonly scroller = viewChild.required<ElementRef<HTMLElement>>('scroller');
   private readonly lanesEl = viewChild.required<ElementRef<HTMLElement>>('laneList');
   private readonly viewportPx = signal(1000);
-  private readonly nowMs = signal(Date.now());
+  private readonly nowMs = inject(Clock).minute;
 
   protected readonly headerPx = LANE_HEADER_PX;
   protected readonly pending = signal<PendingMove | null>(null);
@@ -91,8 +92,7 @@ export class DayTimeline {
 
   constructor() {
     const destroyRef = inject(DestroyRef);
-    const clock = setInterval(() => this.nowMs.set(Date.now()), MINUTE);
-    destroyRef.onDestroy(() => (clearInterval(clock), this.drag?.end()));
+    destroyRef.onDestroy(() => this.drag?.end());
 
     afterNextRender(() => {
       const element = this.scroller().nativeElement;

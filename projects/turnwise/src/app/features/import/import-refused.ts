@@ -1,34 +1,19 @@
-import { HttpErrorResponse, HttpInterceptorFn } from '@angular/common/http';
-import { catchError, throwError } from 'rxjs';
-
+import type { ApiError } from '@shared/api/errors';
 import type { ImportRefusal } from '@shared/api/import';
 
-/** A 422 from the import call, with every error and the file's cells kept for the screen. */
-export class ImportRefused extends Error {
-  constructor(readonly refusal: ImportRefusal) {
-    super(refusal.error.message);
-    this.name = 'ImportRefused';
-  }
-}
-
 /**
- * Keeps the body of a refused import. The app's error interceptor reduces every failure to
- * `{status, code, message}`, which would drop the per-row errors and the file's table; this one
- * runs inside it and hands on an {@link ImportRefused} instead, which it passes through untouched.
+ * The refused import inside an {@link ApiError}: a 422 whose details carry every row error and
+ * the file's cells (the error interceptor keeps them). Null for any other failure, which the
+ * screen shows as a plain message.
+ *
+ * @example
+ * importRefusalOf({ status: 422, code: 'validation_failed', message: '1 error', details: { errors: [] } });
+ * // { error: { code: 'validation_failed', message: '1 error' }, errors: [] }
  */
-export const keepImportRefusal: HttpInterceptorFn = (request, next) =>
-  next(request).pipe(
-    catchError((failure: unknown) =>
-      throwError(() =>
-        failure instanceof HttpErrorResponse && failure.status === 422 && isRefusal(failure.error)
-          ? new ImportRefused(failure.error)
-          : failure,
-      ),
-    ),
-  );
-
-function isRefusal(body: unknown): body is ImportRefusal {
-  if (typeof body !== 'object' || body === null) return false;
-  const candidate = body as Partial<ImportRefusal>;
-  return Array.isArray(candidate.errors) && typeof candidate.error?.message === 'string';
+export function importRefusalOf(error: ApiError): ImportRefusal | null {
+  const details = error.details;
+  if (error.status !== 422 || typeof details !== 'object' || details === null) return null;
+  const rest = details as Omit<ImportRefusal, 'error'>;
+  if (!Array.isArray(rest.errors)) return null;
+  return { ...rest, error: { code: error.code, message: error.message } };
 }

@@ -1,17 +1,9 @@
-import {
-  HttpClient,
-  HttpEventType,
-  provideHttpClient,
-  withInterceptors,
-  withXsrfConfiguration,
-} from '@angular/common/http';
-import { EnvironmentProviders, Injectable, Provider, inject } from '@angular/core';
+import { HttpClient, HttpEventType } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
 import { Observable, filter, map } from 'rxjs';
 
 import type { ImportResult } from '@shared/api/import';
-import { errorInterceptor } from '../../core/http/error-interceptor';
 import { showsOwnErrors } from '../../core/http/shows-own-errors';
-import { keepImportRefusal } from './import-refused';
 
 /** Where an upload is: still sending (percent when the browser knows it), or answered. */
 export type ImportProgress =
@@ -20,8 +12,8 @@ export type ImportProgress =
 
 /**
  * Sends an exam-list file to `POST /api/days/:date/exams/import`, as a preview (`dryRun`) or
- * for real. Fails with an {@link ImportRefused} (422: every row error and the file's cells) or
- * an ApiError (415 not CSV/XLSX, 413 too large, …); the screen shows both itself.
+ * for real. Fails with an ApiError: a 422 carries every row error and the file's cells as details
+ * ({@link importRefusalOf}); 415 not CSV/XLSX, 413 too large, …. The screen shows both itself.
  */
 @Injectable()
 export class ImportService {
@@ -48,18 +40,4 @@ export class ImportService {
         filter((progress): progress is ImportProgress => progress !== null),
       );
   }
-}
-
-/**
- * The Import screen's own HttpClient: the app's interceptors plus {@link keepImportRefusal}
- * inside them. The XSRF pair repeats app.config's (they are also Angular's defaults).
- */
-export function provideImportHttp(): (Provider | EnvironmentProviders)[] {
-  return [
-    provideHttpClient(
-      withInterceptors([errorInterceptor, keepImportRefusal]),
-      withXsrfConfiguration({ cookieName: 'XSRF-TOKEN', headerName: 'X-XSRF-TOKEN' }),
-    ),
-    ImportService,
-  ];
 }

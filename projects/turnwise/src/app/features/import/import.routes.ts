@@ -1,6 +1,6 @@
 import { Routes } from '@angular/router';
 
 import { Import } from './import';
-import { provideImportHttp } from './import-service';
+import { ImportService } from './import-service';
 
-export default [{ path: '', component: Import, providers: provideImportHttp() }] satisfies Routes;
+export default [{ path: '', component: Import, providers: [ImportService] }] satisfies Routes;

@@ -7,10 +7,11 @@ import { provideRouter } from '@angular/router';
 
 import type { ImportRefusal, ImportResult } from '@shared/api/import';
 import { fakeAuth } from '../../../testing/fake-auth';
+import { provideApiHttp } from '../../core/http/api-http';
 import { provideIcons } from '../../core/layout/icons';
 import { DropZone } from './drop-zone';
 import { Import } from './import';
-import { provideImportHttp } from './import-service';
+import { ImportService } from './import-service';
 
 const URL = '/api/days/2027-03-15/exams/import';
 const SETTINGS = { settings: { siteName: 'Example Imaging', timezone: 'America/Chicago', snugMarginMinutes: 3 } };
@@ -40,7 +41,8 @@ async function render() {
     imports: [Import],
     providers: [
       provideRouter([]),
-      provideImportHttp(),
+      provideApiHttp(),
+      ImportService,
       provideHttpClientTesting(),
       provideIcons(),
       fakeAuth({ username: 'sam', role: 'scheduler' }).provider,

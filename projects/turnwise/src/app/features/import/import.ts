@@ -8,12 +8,12 @@ import { Subscription } from 'rxjs';
 import { isApiError } from '@shared/api/errors';
 import type { ImportResult } from '@shared/api/import';
 import { DayPicker } from '../../shared/ui/day-picker';
-import { SiteSettingsService } from '../../shared/ui/site-settings-service';
+import { SiteSettingsService } from '../../core/site/site-settings-service';
 import { longDay } from '../../shared/ui/site-time';
 import { DropZone } from './drop-zone';
 import { ExamListHelp } from './exam-list-help';
 import { ImportPreview } from './import-preview';
-import { ImportRefused } from './import-refused';
+import { importRefusalOf } from './import-refused';
 import { ImportService } from './import-service';
 import { ImportState } from './import-state';
 import { RefusalReport } from './refusal-report';
@@ -98,11 +98,12 @@ export class Import {
               : { step: 'imported', result: progress.result },
         ),
       error: (error: unknown) => {
+        if (!isApiError(error)) return this.state.set({ step: 'failed', purpose, message: 'The file could not be sent. Try again.' });
+        const refusal = importRefusalOf(error);
         // Someone changed the day since the preview: show what the file would change now.
-        if (isApiError(error) && error.code === 'day_changed') this.send(true, undefined, true);
-        else if (error instanceof ImportRefused) this.state.set({ step: 'refused', refusal: error.refusal });
-        else if (isApiError(error)) this.state.set({ step: 'failed', purpose, message: error.message });
-        else this.state.set({ step: 'failed', purpose, message: 'The file could not be sent. Try again.' });
+        if (error.code === 'day_changed') this.send(true, undefined, true);
+        else if (refusal) this.state.set({ step: 'refused', refusal });
+        else this.state.set({ step: 'failed', purpose, message: error.message });
       },
     });
   }

@@ -10,8 +10,8 @@ import type { Role } from '../../core/auth/roles';
 import { errorInterceptor } from '../../core/http/error-interceptor';
 import { provideIcons } from '../../core/layout/icons';
 import { ShellChrome } from '../../core/layout/shell-chrome';
-import { fakeClock } from '../../shared/ui/testing/fake-clock';
-import { fakeEventSources } from '../../shared/ui/testing/fake-event-source';
+import { fakeClock } from '../../core/time/testing/fake-clock';
+import { fakeEventSources } from '../../core/live/testing/fake-event-source';
 import { RoomsNow } from './rooms-now';
 import { at, exampleBoard, exampleBoardRoom, exampleSlot } from './testing/example-board';
 

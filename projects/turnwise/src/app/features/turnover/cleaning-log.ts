@@ -10,7 +10,7 @@ import { EMPTY, catchError, filter, switchMap, tap } from 'rxjs';
 import type { LogEntry } from '@shared/api/board';
 import type { ApiError } from '@shared/api/errors';
 import type { Room } from '@shared/api/rooms';
-import { SiteSettingsService } from '../../shared/ui/site-settings-service';
+import { SiteSettingsService } from '../../core/site/site-settings-service';
 import { SiteTime } from '../../shared/ui/site-time';
 import { LogFilters, LogService, logCsvUrl } from './log-service';
 import { TurnoverService } from './turnover-service';

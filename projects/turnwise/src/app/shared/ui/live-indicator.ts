@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 
-import type { DayStreamStatus } from './day-events';
+import type { DayStreamStatus } from '../../core/live/day-events';
 
 const DISPLAY: Readonly<Record<DayStreamStatus, { icon: string; text: string }>> = {
   connecting: { icon: 'sync', text: 'Connecting…' },

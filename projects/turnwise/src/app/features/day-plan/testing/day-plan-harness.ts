@@ -1,18 +1,17 @@
-import { provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { signal } from '@angular/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { provideRouter } from '@angular/router';
 
-import type { DayPlan as Plan } from '@shared/api/plan';
+import type { PlannedDay as Plan } from '@shared/api/plan';
 import { AuthService } from '../../../core/auth/auth-service';
 import { SessionUser } from '../../../core/auth/roles';
-import { errorInterceptor } from '../../../core/http/error-interceptor';
+import { provideApiHttp } from '../../../core/http/api-http';
 import { provideIcons } from '../../../core/layout/icons';
 import { DayPlan } from '../day-plan';
-import { EVENT_SOURCE } from '../../../shared/ui/day-events';
-import { ROOMS, dayPlan } from './example-day';
+import { EVENT_SOURCE } from '../../../core/live/day-events';
+import { dayPlan } from './example-day';
 
 export { DAY_INPUT, ROOMS, dayPlan } from './example-day';
 
@@ -53,7 +52,7 @@ export async function renderDay(options: { user?: SessionUser; plan?: Plan | nul
     imports: [DayPlan],
     providers: [
       provideRouter([]),
-      provideHttpClient(withInterceptors([errorInterceptor])),
+      provideApiHttp(),
       provideHttpClientTesting(),
       provideIcons(),
       // No jest here: this file is compiled with the app's tsconfig too.
@@ -66,7 +65,6 @@ export async function renderDay(options: { user?: SessionUser; plan?: Plan | nul
   if (options.date !== '') fixture.componentRef.setInput('date', options.date ?? '2027-03-15');
   const backend = TestBed.inject(HttpTestingController);
   backend.expectOne('/api/settings').flush(SETTINGS);
-  backend.expectOne('/api/rooms').flush({ rooms: ROOMS });
   await settle(fixture);
   if (options.plan !== null) {
     backend.expectOne('/api/days/2027-03-15/plan').flush(options.plan ?? dayPlan());

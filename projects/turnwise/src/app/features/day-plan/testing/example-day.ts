@@ -1,4 +1,4 @@
-import type { DayPlan } from '@shared/api/plan';
+import type { PlannedDay } from '@shared/api/plan';
 import type { Room } from '@shared/api/rooms';
 import { computeDayPlan, type DayPlanInput } from '@shared/turnover';
 
@@ -44,7 +44,8 @@ export const DAY_INPUT: DayPlanInput = {
   ],
 };
 
-export function dayPlan(input: DayPlanInput = DAY_INPUT): DayPlan {
-  return computeDayPlan(input);
+/** The plan as the server answers it: computed from `input`, which it carries. */
+export function dayPlan(input: DayPlanInput = DAY_INPUT): PlannedDay {
+  return { ...computeDayPlan(input), input };
 }
 
