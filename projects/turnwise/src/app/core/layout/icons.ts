@@ -64,6 +64,10 @@ import close from '@material-design-icons/svg/outlined/close.svg';
 import autoFixHigh from '@material-design-icons/svg/outlined/auto_fix_high.svg';
 import fiberManualRecord from '@material-design-icons/svg/outlined/fiber_manual_record.svg';
 import cloudOff from '@material-design-icons/svg/outlined/cloud_off.svg';
+// Day plan: copying the patients to call, stepping from one problem gap to the next.
+import contentCopy from '@material-design-icons/svg/outlined/content_copy.svg';
+import arrowBack from '@material-design-icons/svg/outlined/arrow_back.svg';
+import arrowForward from '@material-design-icons/svg/outlined/arrow_forward.svg';
 
 /** Every icon drawn under the shell: its toolbar and navigation, the screens and their shared pieces. */
 export const ICONS: IconSet = {
@@ -123,6 +127,9 @@ export const ICONS: IconSet = {
   auto_fix_high: autoFixHigh,
   fiber_manual_record: fiberManualRecord,
   cloud_off: cloudOff,
+  content_copy: contentCopy,
+  arrow_back: arrowBack,
+  arrow_forward: arrowForward,
 };
 
 /** Registers a set of icons (by default every icon in ICONS) when an injector is created: for specs. */

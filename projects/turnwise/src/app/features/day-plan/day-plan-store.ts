@@ -9,6 +9,7 @@ import { DayEvents } from '../../core/live/day-events';
 import { action } from '../../core/state/action';
 import { serverState } from '../../core/state/server-state';
 import { DayPlanService, MoveReason } from './day-plan-service';
+import { PatientToCall, movedExams, withMoves } from './patients-to-call';
 
 /** A message about the last change, shown in the banner above the timeline. */
 export interface Notice {
@@ -52,6 +53,8 @@ export class DayPlanStore {
   readonly notice = signal<Notice | null>(null);
   readonly live = signal<LiveState>('connecting');
   readonly updatedBy = signal<string | null>(null);
+  /** Patients whose slot this screen's moves, fixes, undos and redos changed, since the day was opened or the list cleared. */
+  readonly calls = signal<PatientToCall[]>([]);
   /** The engine input for live previews while dragging: the server's own, sent with the plan. */
   readonly previewInput = computed(() => this.plan()?.input ?? null);
 
@@ -69,6 +72,7 @@ export class DayPlanStore {
   open(date: string): void {
     if (date === this.date()) return;
     this.notice.set(null);
+    this.calls.set([]);
     this.day.show(date);
     this.listen(date);
   }
@@ -109,6 +113,10 @@ export class DayPlanStore {
     this.notice.set(null);
   }
 
+  clearCalls(): void {
+    this.calls.set([]);
+  }
+
   private async apply(request: Observable<PlannedDay | null>): Promise<boolean> {
     const result = await this.change.run(request);
     if (result.status === 'failed') {
@@ -116,7 +124,11 @@ export class DayPlanStore {
       return false;
     }
     // An answer for a day no longer shown (the user moved on meanwhile) is dropped.
-    if (result.value && result.value.date === this.date()) this.day.set(result.value);
+    const before = this.plan();
+    if (result.value && result.value.date === this.date()) {
+      if (before) this.calls.update((list) => withMoves(list, movedExams(before, result.value!)));
+      this.day.set(result.value);
+    }
     this.notice.set(null);
     return true;
   }

@@ -170,7 +170,7 @@ describe('DayPlan timeline', () => {
       expect(block(page, 2).getAttribute('aria-describedby')).toBeNull();
       expect(page.querySelector('button.undo')).toBeNull();
       expect(page.querySelector('button.redo')).toBeNull();
-      expect(page.querySelector('.header button')).toBeNull();
+      expect(page.querySelector('.header .staff button')).toBeNull();
       block(page, 2).dispatchEvent(new KeyboardEvent('keydown', { key: 'ArrowRight', bubbles: true }));
       block(page, 2).dispatchEvent(new KeyboardEvent('keydown', { key: 'Enter', bubbles: true }));
       document.dispatchEvent(new KeyboardEvent('keydown', { key: 'z', ctrlKey: true, bubbles: true }));

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, afterNextRender, computed, effect, inject, input, Injector, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, afterNextRender, computed, effect, inject, input, Injector, signal, viewChild } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatIconModule } from '@angular/material/icon';
@@ -18,6 +18,8 @@ import { DayPlanStore } from './day-plan-store';
 import { DayTimeline } from './day-timeline';
 import { GapPanel } from './gap-panel';
 import { HistoryPanel } from './history-panel';
+import { PatientsToCallPanel } from './patients-to-call-panel';
+import { ProblemGap, problemGaps, stepProblem } from './problem-gaps';
 import { ZOOMS, Zoom } from './timeline-scale';
 
 /**
@@ -29,7 +31,7 @@ import { ZOOMS, Zoom } from './timeline-scale';
   selector: 'tw-day-plan',
   imports: [
     MatButtonModule, MatButtonToggleModule, MatIconModule, MatProgressBarModule, MatSlideToggleModule, RouterLink,
-    BandLegend, CautionNote, DayPicker, DayTimeline, GapPanel, HistoryPanel, VerdictSummary,
+    BandLegend, CautionNote, DayPicker, DayTimeline, GapPanel, HistoryPanel, PatientsToCallPanel, VerdictSummary,
   ],
   providers: [DayPlanStore],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -55,6 +57,14 @@ export class DayPlan {
   protected readonly historyOpen = signal(false);
   /** The gap shown in the panel, by the exam it leads to. */
   protected readonly selectedGap = signal<number | null>(null);
+
+  private readonly timeline = viewChild(DayTimeline);
+  /** The day's snug, short and overlapping gaps in time order, and which of them is open. */
+  protected readonly problems = computed(() => {
+    const plan = this.store.plan();
+    return plan ? problemGaps(plan) : [];
+  });
+  protected readonly problemAt = computed(() => this.problems().findIndex((problem) => problem.gap.toExamId === this.selectedGap()));
 
   protected readonly mayMove = computed(() => may(this.role(), 'moveSlots'));
   protected readonly mayStaff = computed(() => may(this.role(), 'changeStaffing'));
@@ -102,11 +112,32 @@ export class DayPlan {
     void this.store.applyFix(fix, acceptNewProblems);
   }
 
+  /** Opens the problem gap after (`1`) or before (`-1`) the one open, and brings it into view. */
+  protected stepProblem(direction: 1 | -1): void {
+    const problem = stepProblem(this.problems(), this.selectedGap(), direction);
+    if (problem) this.openProblem(problem);
+  }
+
+  /** A room's "N to check": its first problem gap. */
+  protected openRoomProblems(roomId: number): void {
+    const problem = this.problems().find((candidate) => candidate.room.id === roomId);
+    if (problem) this.openProblem(problem);
+  }
+
+  private openProblem(problem: ProblemGap): void {
+    this.selectedGap.set(problem.gap.toExamId);
+    this.timeline()?.reveal(problem.room.id, problem.gap.toExamId);
+  }
+
   protected onShortcut(event: KeyboardEvent): void {
+    const target = event.target;
+    // Text fields keep their own keys (and their own undo).
+    if (target instanceof Element && target.closest('input, textarea, select, [contenteditable="true"]')) return;
+    if ((event.key === ']' || event.key === '[') && !event.ctrlKey && !event.metaKey && !event.altKey) {
+      event.preventDefault();
+      return this.stepProblem(event.key === ']' ? 1 : -1);
+    }
     if (!this.mayMove() || !(event.ctrlKey || event.metaKey) || event.key.toLowerCase() !== 'z') return;
-    const target = event.target as HTMLElement | null;
-    // Text fields keep their own undo.
-    if (target?.closest('input, textarea, [contenteditable="true"]')) return;
     event.preventDefault();
     void (event.shiftKey ? this.store.redo() : this.store.undo());
   }

@@ -44,6 +44,7 @@ export class DayTimeline {
   readonly today = input<string | null>(null);
   readonly gapOpened = output<number>();
   readonly roomStaffChanged = output<{ roomId: number; staff: number }>();
+  readonly roomProblemsOpened = output<number>();
 
   private readonly scroller = viewChild.required<ElementRef<HTMLElement>>('scroller');
   private readonly lanesEl = viewChild.required<ElementRef<HTMLElement>>('laneList');
@@ -213,6 +214,24 @@ export class DayTimeline {
     this.pending.set(next);
     if (next) this.lanesInView.reveal(this.scroller().nativeElement, next.roomId);
     this.focusExam(home.exam.id);
+  }
+
+  /** Brings a gap into view (its lane drawn, scrolled to its marker) and puts the keyboard on its marker. */
+  reveal(roomId: number, toExamId: number): void {
+    const scroller = this.scroller().nativeElement;
+    this.lanesInView.reveal(scroller, roomId);
+    afterNextRender(
+      () => {
+        const marker = this.lanesEl().nativeElement.querySelector<HTMLElement>(`[data-gap-to="${toExamId}"]`);
+        if (!marker) return;
+        const box = marker.getBoundingClientRect();
+        const view = scroller.getBoundingClientRect();
+        // Centre it along the time axis, clear of the sticky room headers.
+        scroller.scrollLeft += box.left + box.width / 2 - (view.left + LANE_HEADER_PX + (view.width - LANE_HEADER_PX) / 2);
+        marker.focus({ preventScroll: true });
+      },
+      { injector: this.injector },
+    );
   }
 
   /** A moved block is drawn anew (in another lane, or after the server's answer): keep the keyboard on it. */

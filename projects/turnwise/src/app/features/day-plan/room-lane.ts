@@ -37,6 +37,8 @@ export class RoomLane {
   readonly drawn = input(true);
   readonly gapOpened = output<number>();
   readonly staffChanged = output<number>();
+  /** "N to check" was chosen: show the room's first problem gap. */
+  readonly problemsOpened = output<void>();
 
   protected readonly staffRange = STAFF_RANGE;
   protected readonly span = computed(() => {
@@ -44,6 +46,10 @@ export class RoomLane {
     return exams.length ? `${clockOf(exams[0].start)}–${clockOf(exams[exams.length - 1].end)}` : 'no exams';
   });
   protected readonly problems = computed(() => this.room().gaps.filter((gap) => gap.verdict !== 'fits').length);
+  protected readonly problemsHint = computed(() => {
+    const n = this.problems();
+    return `${n} ${n === 1 ? 'gap' : 'gaps'} in ${this.room().name} snug, short or overlapping: show the first`;
+  });
   /** Closed hours before opening and after closing, drawn quieter than open time. */
   protected readonly open = computed(() => {
     const { widthPx } = this.scale();

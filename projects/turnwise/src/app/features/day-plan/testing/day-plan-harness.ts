@@ -4,7 +4,7 @@ import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { provideRouter } from '@angular/router';
 
-import type { PlannedDay as Plan } from '@shared/api/plan';
+import type { DayPlan as Plan } from '@shared/api/plan';
 import { AuthService } from '../../../core/auth/auth-service';
 import { SessionUser } from '../../../core/auth/roles';
 import { provideApiHttp } from '../../../core/http/api-http';
