@@ -5,7 +5,9 @@ import { NotFoundError } from '../errors';
 import { lastFinishedIndex, loadRoomDays, type ExamSlot, type RoomDay, type TurnoverRecord } from './room-day';
 import { shiftTasksOfDay } from './shift-tasks';
 import { cleanTypeOf, planRoomTurnover, PRODUCTS } from './turnover-plan';
-import { turnoverProgress } from './turnover-progress';
+import { replanFromNow, turnoverProgress } from './turnover-progress';
+
+const MINUTE = 60_000;
 
 /** Which turnover a room's checklist shows, and from when it is planned. */
 interface Focus {
@@ -30,6 +32,18 @@ function focusOf(roomDay: RoomDay, nowMs: number): Focus | null {
   if (last < 0 && next.startMs > nowMs) return { leavingIndex: -1, record: null, fromMs: roomDay.openMs };
   // an exam running over its slot ends no earlier than now
   return { leavingIndex: last + 1, record: null, fromMs: next.startMs <= nowMs ? Math.max(next.endMs, nowMs) : next.endMs };
+}
+
+/**
+ * The air hold counts from the recorded end only (`untilMs`); before "Exam finished" there is
+ * just the plan, and either is flagged when it ends after the next patient's slot has started.
+ */
+function airHoldOf(minutes: number, fromMs: number, record: TurnoverRecord | null, arriving: ExamSlot | undefined) {
+  if (minutes <= 0) return { untilMs: null, plannedUntilMs: null, pastNextStartMinutes: 0 };
+  const plannedUntilMs = fromMs + minutes * MINUTE;
+  const untilMs = record ? record.examEndedMs + minutes * MINUTE : null;
+  const past = arriving ? plannedUntilMs - arriving.startMs : 0;
+  return { untilMs, plannedUntilMs, pastNextStartMinutes: past > 0 ? Math.ceil(past / MINUTE) : 0 };
 }
 
 /** An exam as the board and the checklist show it, times in the site's offset. */
@@ -65,7 +79,7 @@ export async function loadChecklist(db: Knex, roomId: number, day: string, now: 
   const { room, slots } = roomDay;
   const base = { roomId, roomName: room.name, modality: room.modality, date: day, now: format(nowMs), products: [...PRODUCTS], tasks };
   if (!focus) {
-    return { ...base, turnoverId: null, leaving: null, arriving: null, examEndedAt: null, cleanType: 'routine', precaution: 'none', staff: room.staff, airHoldMinutes: 0, airHoldUntil: null, steps: [], readyAt: null, completedAt: null };
+    return { ...base, turnoverId: null, leaving: null, arriving: null, examEndedAt: null, cleanType: 'routine', precaution: 'none', staff: room.staff, airHoldMinutes: 0, airHoldUntil: null, airHoldPlannedUntil: null, airHoldPastNextStartMinutes: 0, steps: [], readyAt: null, completedAt: null };
   }
   const { leavingIndex, record, fromMs } = focus;
   const leaving = slots[leavingIndex];
@@ -73,7 +87,8 @@ export async function loadChecklist(db: Knex, roomId: number, day: string, now: 
   const planned = planRoomTurnover(roomDay, leavingIndex, fromMs);
   const progress = record ? turnoverProgress(planned, record, nowMs) : null;
   const precaution = leaving?.exam.precaution ?? 'none';
-  const steps = planned.steps.map((s): ChecklistStep => {
+  const { steps: shown, shiftMs } = replanFromNow(planned, record, nowMs);
+  const steps = shown.map((s): ChecklistStep => {
     const tick = record?.ticks.get(s.key);
     return {
       key: s.key,
@@ -88,7 +103,7 @@ export async function loadChecklist(db: Knex, roomId: number, day: string, now: 
       wetUntil: tick ? format(progress!.wetUntilMs.get(s.key)!) : null,
     };
   });
-  const airHoldUntilMs = planned.airHoldMinutes > 0 ? fromMs + planned.airHoldMinutes * 60_000 : null;
+  const hold = airHoldOf(planned.airHoldMinutes, fromMs, record, arriving);
   return {
     ...base,
     turnoverId: record?.id ?? null,
@@ -99,9 +114,11 @@ export async function loadChecklist(db: Knex, roomId: number, day: string, now: 
     precaution,
     staff: planned.staff,
     airHoldMinutes: planned.airHoldMinutes,
-    airHoldUntil: airHoldUntilMs === null ? null : format(airHoldUntilMs),
+    airHoldUntil: hold.untilMs === null ? null : format(hold.untilMs),
+    airHoldPlannedUntil: hold.plannedUntilMs === null ? null : format(hold.plannedUntilMs),
+    airHoldPastNextStartMinutes: hold.pastNextStartMinutes,
     steps,
-    readyAt: format(progress ? progress.readyAtMs : fromMs + planned.requiredMinutes * 60_000),
+    readyAt: format(progress ? progress.readyAtMs : fromMs + shiftMs + planned.requiredMinutes * MINUTE),
     completedAt: record?.completedAt ?? null,
   };
 }

@@ -5,6 +5,7 @@ import { DEFAULT_CLOSES_AT, DEFAULT_OPENS_AT, wallTimeToMillis, type DayPlanExam
 import { examsOfDay, toPlanExam } from './exams';
 import { listRooms } from './rooms';
 import { readSettings } from './settings';
+import { cleanTypeOf } from './turnover-plan';
 
 const MINUTE = 60_000;
 
@@ -100,6 +101,7 @@ export async function loadRoomDays(db: Knex, day: string, roomIds?: number[]): P
       })
       .sort((a, b) => a.startMs - b.startMs || a.exam.id - b.exam.id);
     const roomTurnovers = new Map([...turnovers].filter(([, t]) => t.roomId === room.id));
+    liveCleanTypes(roomTurnovers, slots);
     return { day, zone, room, openMs, closeMs, slots, turnovers: roomTurnovers, staffOverrides };
   });
 }
@@ -108,6 +110,19 @@ export async function loadRoomDays(db: Knex, day: string, roomIds?: number[]): P
 export function lastFinishedIndex(roomDay: RoomDay): number {
   for (let i = roomDay.slots.length - 1; i >= 0; i--) if (roomDay.turnovers.has(roomDay.slots[i]!.exam.id)) return i;
   return -1;
+}
+
+/**
+ * An open turnover's clean type follows the day as it is now: the "terminal" clean after what
+ * was the last exam becomes routine (or isolation) once another exam is booked behind it, and
+ * the reverse when the next one is removed. A completed turnover keeps what it was closed as.
+ */
+function liveCleanTypes(turnovers: Map<number, TurnoverRecord>, slots: ExamSlot[]): void {
+  for (const record of turnovers.values()) {
+    if (record.completedMs !== null) continue;
+    const index = slots.findIndex((s) => s.exam.id === record.fromExamId);
+    if (index >= 0) record.cleanType = cleanTypeOf(record.precaution, index < slots.length - 1);
+  }
 }
 
 function toRecord(row: Record<string, unknown>): TurnoverRecord {

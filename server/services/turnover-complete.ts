@@ -72,7 +72,8 @@ export async function completeTurnover(db: Knex, turnoverId: number, overrideRea
     const updated = await trx('turnovers')
       .where({ id: turnoverId })
       .whereNull('completed_at')
-      .update({ completed_at: at, completed_ms: nowMs, completed_by: user.id, override_reason: early ? reason : null });
+      // the clean type is final once closed: it is what the room had by then (see liveCleanTypes)
+      .update({ completed_at: at, completed_ms: nowMs, completed_by: user.id, override_reason: early ? reason : null, clean_type: record.cleanType });
     if (updated === 0) assertOpen({ ...record, completedAt: at }, zone);
     const entries: { id: number; step_key: string }[] = await trx('cleaning_log').where({ turnover_id: turnoverId, kind: 'step' }).select('id', 'step_key');
     await appendContactAchieved(

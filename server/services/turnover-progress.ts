@@ -6,8 +6,13 @@ const MINUTE = 60_000;
 
 export interface TurnoverProgress {
   state: Extract<RoomState, 'turning over' | 'drying' | 'air hold' | 'ready'>;
-  /** Exact once every step is ticked; an estimate before. */
+  /** Exact once every step is ticked; an estimate before, moving later while work is behind. */
   readyAtMs: number;
+  /**
+   * Ready-at as planned from the recorded end, moved only by what happened (a tick's wait, the
+   * air hold), never by the clock: once now is past it the turnover is overdue.
+   */
+  plannedReadyAtMs: number;
   airHoldUntilMs: number | null;
   /** Until when each ticked step's surface stays wet, by step key. */
   wetUntilMs: Map<string, number>;
@@ -33,12 +38,29 @@ export function turnoverProgress(planned: PlannedTurnover, record: TurnoverRecor
   const missing = planned.steps.filter((s) => !record.ticks.has(s.key));
   const known = Math.max(airHoldUntilMs ?? -Infinity, ...wetUntilMs.values(), ...[...record.ticks.values()].map((t) => t.doneMs), record.examEndedMs);
 
-  if (record.completedMs !== null) return { state: 'ready', readyAtMs: record.completedMs, airHoldUntilMs, wetUntilMs, missing };
+  if (record.completedMs !== null) return { state: 'ready', readyAtMs: record.completedMs, plannedReadyAtMs: record.completedMs, airHoldUntilMs, wetUntilMs, missing };
   if (missing.length > 0) {
     const shift = nowMs - Math.min(...missing.map((s) => s.startMs));
     const remaining = Math.max(...missing.map((s) => Math.max(s.endMs, s.dryAtMs) + shift));
-    return { state: 'turning over', readyAtMs: Math.max(known, remaining, nowMs), airHoldUntilMs, wetUntilMs, missing };
+    const planned = Math.max(known, ...missing.map((s) => Math.max(s.endMs, s.dryAtMs)));
+    return { state: 'turning over', readyAtMs: Math.max(known, remaining, nowMs), plannedReadyAtMs: planned, airHoldUntilMs, wetUntilMs, missing };
   }
   const state = airHoldUntilMs !== null && airHoldUntilMs > nowMs ? 'air hold' : known > nowMs ? 'drying' : 'turning over';
-  return { state, readyAtMs: known, airHoldUntilMs, wetUntilMs, missing };
+  return { state, readyAtMs: known, plannedReadyAtMs: known, airHoldUntilMs, wetUntilMs, missing };
+}
+
+/**
+ * The plan as the checklist shows it at `nowMs`: steps not yet ticked that were planned in the
+ * past (a late start, a slow step) move on together so the first of them starts now, in whole
+ * minutes, keeping their order and the waits between them. Ticked steps keep their plan.
+ * A completed turnover is history and is not moved.
+ */
+export function replanFromNow(planned: PlannedTurnover, record: TurnoverRecord | null, nowMs: number): { steps: PlannedStep[]; shiftMs: number } {
+  if (record?.completedMs != null) return { steps: planned.steps, shiftMs: 0 };
+  const missing = planned.steps.filter((s) => !record?.ticks.has(s.key));
+  if (missing.length === 0) return { steps: planned.steps, shiftMs: 0 };
+  const shiftMs = Math.ceil(Math.max(0, nowMs - Math.min(...missing.map((s) => s.startMs))) / MINUTE) * MINUTE;
+  if (shiftMs === 0) return { steps: planned.steps, shiftMs };
+  const moved = (s: PlannedStep): PlannedStep => ({ ...s, startMs: s.startMs + shiftMs, endMs: s.endMs + shiftMs, dryAtMs: s.dryAtMs + shiftMs });
+  return { steps: planned.steps.map((s) => (record?.ticks.has(s.key) ? s : moved(s))), shiftMs };
 }

@@ -49,11 +49,22 @@ export interface BoardRoom {
   tasks: BoardShiftTask[];
 }
 
+/** A patient expected soon, for the front desk's arrivals list across rooms. */
+export interface BoardArrival extends BoardSlot {
+  roomId: number;
+  roomName: string;
+}
+
 export interface Board {
   date: string;
   timezone: string;
   now: string;
   rooms: BoardRoom[];
+  /**
+   * Today only: exams not yet begun whose slot starts within the coming hour (or has already
+   * passed without the exam beginning), every room, by start. Empty on other days.
+   */
+  arrivals: BoardArrival[];
 }
 
 /** One step of a live turnover checklist, in the engine's computed order. */
@@ -92,8 +103,15 @@ export interface Checklist {
   precaution: string;
   staff: number;
   airHoldMinutes: number;
-  /** When the air hold ends (from the actual end), if any. */
+  /**
+   * When the air hold ends, counted from the recorded end ("Exam finished") only: null while
+   * the leaving patient is still in the room, so no countdown runs for a scan not yet done.
+   */
   airHoldUntil: string | null;
+  /** When the air hold would end if the leaving exam ends as planned (or as recorded); null without a hold. */
+  airHoldPlannedUntil: string | null;
+  /** Minutes the air hold (recorded or planned) runs past the arriving exam's start; 0 when it does not. */
+  airHoldPastNextStartMinutes: number;
   steps: ChecklistStep[];
   /** Recomputed from what actually happened. */
   readyAt: string | null;

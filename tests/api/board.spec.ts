@@ -55,6 +55,12 @@ describe('Rooms now: a room through its day, driven by the clock', () => {
     expect(opened).toMatchObject({ examEndedAt: local('08:45'), cleanType: 'routine', leaving: { accession: 'B-1' }, arriving: { accession: 'B-2' } });
     expect(await mr2()).toMatchObject({ state: 'turning over', turnoverId: opened.turnoverId, readyAt: local('09:05'), runningLateMinutes: 5 });
 
+    // ready-at stays the plan while the work runs behind it, so the board can say "overdue";
+    // how late the next patient runs follows the estimate (the 20 planned minutes from now)
+    at(h, '09:06');
+    expect(await mr2()).toMatchObject({ state: 'turning over', readyAt: local('09:05'), runningLateMinutes: 26 });
+    at(h, '08:45');
+
     // the hands-on work done faster than planned: every surface wiped at 08:45
     for (const key of ['clear', 'bore', 'table', 'coils', 'cushions', 'comfort', 'touch']) {
       expect((await tech.post(`/api/turnovers/${opened.turnoverId}/steps/${key}/done`, {})).status).toBe(200);
@@ -97,13 +103,19 @@ describe('Rooms now: a room through its day, driven by the clock', () => {
     expect(await mr2()).toMatchObject({ state: 'in exam', current: { accession: 'B-3' }, next: null, runningLateMinutes: 0 });
   });
 
-  it('is closed once the last exam\'s (terminal) turnover is complete', async () => {
+  it('is ready, with no more exams, once the last exam\'s (terminal) turnover is complete within opening hours', async () => {
     at(h, '11:00');
     const opened = await finish('B-3');
     expect(opened.cleanType).toBe('terminal');
     await tickAll(h, tech, opened);
     h.clock.advance(15); // all surfaces dry, so the room may be made ready without a reason
-    expect((await complete(opened)).status).toBe(200);
+    const res = await complete(opened);
+    expect(res.status).toBe(200);
+    expect(await mr2()).toMatchObject({ state: 'ready', current: null, next: null, readyAt: res.body.completedAt });
+  });
+
+  it('is closed after its closing time (19:00 by default)', async () => {
+    at(h, '19:00');
     expect(await mr2()).toMatchObject({ state: 'closed', current: null, next: null, readyAt: null });
   });
 });

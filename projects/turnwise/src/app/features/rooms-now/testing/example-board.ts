@@ -1,8 +1,8 @@
-import type { Board, BoardRoom, BoardSlot } from '@shared/api/board';
+import type { Board, BoardArrival, BoardRoom, BoardSlot } from '@shared/api/board';
 
 // An invented day at an invented site (UTC−5): only what the board tests need.
 const DAY = '2027-03-15';
-export const at = (hhmm: string) => `${DAY}T${hhmm}:00-05:00`;
+export const at = (hhmm: string) => `${DAY}T${hhmm.length === 5 ? hhmm + ':00' : hhmm}-05:00`;
 
 export function exampleSlot(examId: number, start: string, end: string, overrides: Partial<BoardSlot> = {}): BoardSlot {
   return {
@@ -33,6 +33,6 @@ export function exampleBoardRoom(roomId: number, overrides: Partial<BoardRoom> =
   };
 }
 
-export function exampleBoard(rooms: BoardRoom[], now = '09:00'): Board {
-  return { date: DAY, timezone: 'America/Chicago', now: at(now), rooms };
+export function exampleBoard(rooms: BoardRoom[], now = '09:00', arrivals: BoardArrival[] = []): Board {
+  return { date: DAY, timezone: 'America/Chicago', now: at(now), rooms, arrivals };
 }

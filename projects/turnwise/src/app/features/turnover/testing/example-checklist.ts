@@ -53,6 +53,8 @@ export function exampleChecklist(overrides: Partial<Checklist> = {}): Checklist 
     staff: 1,
     airHoldMinutes: 0,
     airHoldUntil: null,
+    airHoldPlannedUntil: null,
+    airHoldPastNextStartMinutes: 0,
     steps: [clear, table, linen],
     readyAt: at('10:40'),
     completedAt: null,
