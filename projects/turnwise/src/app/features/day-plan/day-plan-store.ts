@@ -109,6 +109,11 @@ export class DayPlanStore {
     return ok;
   }
 
+  /** A refusal the screen made itself (e.g. a drop on a lane of another modality). */
+  tell(notice: Notice): void {
+    this.notice.set(notice);
+  }
+
   dismissNotice(): void {
     this.notice.set(null);
   }

@@ -45,6 +45,23 @@ describe('DayTimeline moves', () => {
     expect(text(page.querySelector('.move-status'))).toBe('');
   });
 
+  it('says why a lane of another modality refuses the slot, in the drag line and after the drop, and moves nothing', async () => {
+    const { fixture, backend, page } = await renderDay();
+    // Lanes are 104 px high from y = 0 (no layout in jsdom): y = 130 is the second lane, CT 1.
+    pointer(block(page, 2), 'pointerdown', 300, 20);
+    pointer(window, 'pointermove', 300, 130);
+    // The drag draws once per animation frame: wait for that frame, not for a time.
+    await new Promise<void>((resolve) => requestAnimationFrame(() => resolve()));
+    await settle(fixture);
+    const why = 'ACC-2 stays in MR 1: CT 1 takes CT exams only, and ACC-2 is MR.';
+    expect(text(page.querySelector('.move-status'))).toBe(why);
+    pointer(window, 'pointerup', 300, 130);
+    await settle(fixture);
+    backend.expectNone('/api/exams/2');
+    expect(text(page.querySelector('.notice[role="alert"]'))).toContain(why);
+    expect(block(page, 2).closest('[data-room-id]')!.getAttribute('data-room-id')).toBe('1');
+  });
+
   it('treats a press without movement as a click, not a move', async () => {
     const { fixture, backend, page } = await renderDay();
     pointer(block(page, 2), 'pointerdown', 300, 20);

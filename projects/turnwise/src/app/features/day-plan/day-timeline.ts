@@ -45,6 +45,8 @@ export class DayTimeline {
   readonly gapOpened = output<number>();
   readonly roomStaffChanged = output<{ roomId: number; staff: number }>();
   readonly roomProblemsOpened = output<number>();
+  /** A drop the timeline refused itself (a lane of another modality), in words. */
+  readonly refusal = output<string>();
 
   private readonly scroller = viewChild.required<ElementRef<HTMLElement>>('scroller');
   private readonly lanesEl = viewChild.required<ElementRef<HTMLElement>>('laneList');
@@ -53,6 +55,8 @@ export class DayTimeline {
 
   protected readonly headerPx = LANE_HEADER_PX;
   protected readonly pending = signal<PendingMove | null>(null);
+  /** While dragging: the lane under the pointer when it cannot take the slot (another modality). */
+  private readonly refusedLane = signal<PlanRoom | null>(null);
   protected readonly range = computed(() => dayRange(this.plan()));
   protected readonly scale = computed(() => scaleFor(this.range(), this.zoom(), this.viewportPx() - LANE_HEADER_PX));
   protected readonly ticks = computed(() => axisTicks(this.scale(), this.plan().timezone));
@@ -85,6 +89,8 @@ export class DayTimeline {
   protected readonly status = computed(() => {
     const move = this.pending();
     if (!move) return '';
+    const refused = this.refusedLane();
+    if (refused) return otherModality(move.exam, refused, this.plan().rooms);
     const words = moveStatus(move, this.lanes().find((room) => room.id === move.roomId));
     return move.reason === 'keyboard' ? `${words}. Enter saves, Escape cancels.` : words;
   });
@@ -152,10 +158,18 @@ export class DayTimeline {
       frame: (at) => this.dragFrame(home.exam, home.room.id, at),
       drop: (at) => {
         this.dragFrame(home.exam, home.room.id, at);
+        const refused = this.refusedLane();
+        if (refused) {
+          // Dropped on a lane that cannot take it: the slot stays where it was, and the user is told why.
+          this.refusedLane.set(null);
+          this.pending.set(null);
+          this.refusal.emit(otherModality(home.exam, refused, this.plan().rooms));
+          return;
+        }
         const move = this.pending();
         if (move) void this.drop(move.exam.id, move.roomId, move.startMs, 'drag');
       },
-      cancel: () => this.pending.set(null),
+      cancel: () => (this.pending.set(null), this.refusedLane.set(null)),
     });
   }
 
@@ -176,8 +190,10 @@ export class DayTimeline {
     const top = this.lanesEl().nativeElement.getBoundingClientRect().top;
     const index = Math.min(base.length - 1, Math.max(0, Math.floor((at.y - top) / LANE_HEIGHT_PX)));
     const modality = base.find((room) => room.id === originRoomId)!.modality;
-    // A lane of another modality cannot take the slot: it stays in the lane it was last allowed in.
+    // A lane of another modality cannot take the slot: it stays in the lane it was last allowed in,
+    // and the status line says why.
     const roomId = base[index].modality === modality ? base[index].id : (this.pending()?.roomId ?? originRoomId);
+    this.refusedLane.set(base[index].modality === modality ? null : base[index]);
     const moved = Date.parse(exam.start) + ((at.x - at.x0) / this.scale().pxPerMinute) * MINUTE;
     const startMs = clampStart(snapToMinutes(moved), exam.durationMinutes, this.range());
     const current = this.pending();
@@ -247,4 +263,10 @@ export class DayTimeline {
     // The lanes may not have their new width yet (first measure of the viewport): once more next frame.
     if (again && Math.abs(element.scrollLeft - target) > 1) requestAnimationFrame(() => this.scrollToStart(false));
   }
+}
+
+/** "ACC-2 stays in MR 1: CT 1 takes CT exams only, and ACC-2 is MR." */
+function otherModality(exam: PlanExam, lane: PlanRoom, rooms: readonly PlanRoom[]): string {
+  const home = rooms.find((room) => room.exams.some((candidate) => candidate.id === exam.id));
+  return `${exam.accession} stays in ${home?.name ?? 'its room'}: ${lane.name} takes ${lane.modality} exams only, and ${exam.accession} is ${home?.modality ?? 'another modality'}.`;
 }
