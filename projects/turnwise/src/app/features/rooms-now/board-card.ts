@@ -4,9 +4,9 @@ import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 
 import type { BoardRoom, RoomState } from '@shared/api/board';
-import { countdown, isAhead } from '../../shared/ui/countdown';
-import { RoomStateChip } from '../../shared/ui/room-state-chip';
+import { ROOM_STATE_DISPLAY, RoomStateChip } from '../../shared/ui/room-state-chip';
 import { SiteTime } from '../../shared/ui/site-time';
+import { readyCountdown } from './ready-countdown';
 
 /** States that end by themselves at ready-at, so the card counts down to it. */
 const COUNTING_DOWN: readonly RoomState[] = ['turning over', 'drying', 'air hold'];
@@ -34,11 +34,13 @@ export class BoardCard {
   readonly arrived = output<number>();
   readonly undoArrived = output<number>();
 
+  /** "in 17 min" or "overdue by 4 min", for the states that end by themselves at ready-at. */
   protected readonly countdown = computed(() => {
     const { state, readyAt } = this.room();
-    if (!COUNTING_DOWN.includes(state) || !isAhead(readyAt, this.now())) return null;
-    return countdown(readyAt!, this.now());
+    return COUNTING_DOWN.includes(state) && readyAt ? readyCountdown(readyAt, this.now()) : null;
   });
+  /** The wall display's state band: the icon and word told apart by shape and pattern as well as colour. */
+  protected readonly stateIcon = computed(() => (ROOM_STATE_DISPLAY[this.room().state] ?? ROOM_STATE_DISPLAY.closed).icon);
 
   protected readonly overdueTasks = computed(() => this.room().tasks.filter((task) => task.overdue));
   protected readonly showControls = computed(() => !this.wall() && this.canMarkArrived());

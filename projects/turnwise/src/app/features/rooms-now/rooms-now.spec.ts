@@ -90,7 +90,8 @@ describe('RoomsNow', () => {
     const first = cards(page)[0];
     expect(text(first.querySelector('.ready dt'))).toBe('Ready at');
     expect(text(first.querySelector('.ready .time'))).toBe('09:12');
-    expect(text(first.querySelector('.countdown'))).toBe('in 12:00');
+    // minutes, not a second clock time beside ready-at ("Ready at 09:12 in 12:00" read as two times)
+    expect(text(first.querySelector('.countdown'))).toBe('in 12 min');
     expect(text(first.querySelector('.next .time'))).toBe('09:15');
     expect(text(first.querySelector('.next .accession'))).toBe('ACC-1012');
     expect(text(first.querySelector('.next .procedure'))).toBe('MR knee without contrast');
@@ -108,9 +109,48 @@ describe('RoomsNow', () => {
     const { page, clock, fixture } = await render();
     clock.set(at('09:05'));
     await settle(fixture);
-    expect(text(cards(page)[0].querySelector('.countdown'))).toBe('in 7:00');
+    expect(text(cards(page)[0].querySelector('.countdown'))).toBe('in 7 min');
     expect(text(cards(page)[1])).toContain('Running late by 10 min');
     expect(text(cards(page)[0])).not.toContain('Running late');
+  });
+
+  it('says "overdue by N min" once a turnover runs past its ready-at, instead of a stalled countdown', async () => {
+    const { page, clock, fixture } = await render();
+    clock.set(at('09:15:30'));
+    await settle(fixture);
+    expect(text(cards(page)[0].querySelector('.countdown'))).toBe('overdue by 4 min');
+    expect(cards(page)[0].querySelector('.countdown.overdue-by')).not.toBeNull();
+  });
+
+  it('lists the coming hour\'s arrivals across rooms and marks any of them arrived', async () => {
+    const arrivals = [
+      { ...exampleSlot(12, '09:15', '09:45', { arrivedAt: at('08:58') }), roomId: 1, roomName: 'MR 1' },
+      { ...exampleSlot(22, '09:30', '10:00'), roomId: 2, roomName: 'MR 2' },
+      { ...exampleSlot(23, '09:50', '10:20'), roomId: 2, roomName: 'MR 2' },
+    ];
+    const board = exampleBoard(busyDay.rooms, '09:00', arrivals);
+    const { page, backend, fixture } = await render({ board });
+    const rows = Array.from(page.querySelectorAll('tw-arrivals-list li'));
+    expect(rows.map((li) => text(li.querySelector('.accession')))).toEqual(['ACC-1012', 'ACC-1022', 'ACC-1023']);
+    expect(text(rows[0].querySelector('.waiting'))).toBe('Waiting since 08:58');
+    // MR 2's second patient is not the room's next one: only this list lets the desk mark them
+    rows[2].querySelector<HTMLButtonElement>('button.mark-arrived')!.click();
+    const request = backend.expectOne('/api/exams/23/arrived');
+    expect(request.request.method).toBe('POST');
+    request.flush({ arrivedAt: at('09:01') });
+    backend.expectOne(BOARD_URL).flush(board);
+    await settle(fixture);
+  });
+
+  it('shows the state on the wall display as a band with its icon, and keeps a way out', async () => {
+    const { page } = await render({ display: 'wall' });
+    const band = cards(page)[0].querySelector('.state-band')!;
+    expect(text(band.querySelector('.word'))).toBe('turning over');
+    expect(band.querySelector('mat-icon')).not.toBeNull();
+    expect(page.querySelector('tw-arrivals-list')).toBeNull();
+    expect(page.querySelector('button.leave-wall')).not.toBeNull();
+    // three rooms: two columns, so the cards fill the screen
+    expect((page as HTMLElement).style.getPropertyValue('--wall-columns')).toBe('2');
   });
 
   it('marks the next patient arrived with one click, then shows the board again', async () => {

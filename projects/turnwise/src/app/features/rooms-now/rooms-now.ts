@@ -18,6 +18,7 @@ import { dayRefreshes } from '../../core/live/day-refresh';
 import { LiveIndicator } from '../../shared/ui/live-indicator';
 import { SiteSettingsService } from '../../core/site/site-settings-service';
 import { SiteTime } from '../../shared/ui/site-time';
+import { ArrivalsList } from './arrivals-list';
 import { BoardCard } from './board-card';
 import { BoardService } from './board-service';
 import { WallDisplay } from './wall-display';
@@ -30,10 +31,10 @@ const WORKS_TURNOVERS: readonly Role[] = ['tech', 'charge', 'admin'];
 /** Rooms now: the front desk's live board of every room, with a wall-display mode. */
 @Component({
   selector: 'tw-rooms-now',
-  imports: [MatButtonModule, MatIconModule, BoardCard, CautionNote, LiveIndicator, SiteTime],
+  imports: [MatButtonModule, MatIconModule, ArrivalsList, BoardCard, CautionNote, LiveIndicator, SiteTime],
   changeDetection: ChangeDetectionStrategy.OnPush,
   providers: [WallDisplay],
-  host: { '[class.wall]': 'wall()', '(document:keydown.escape)': 'wall() && leaveWall()' },
+  host: { '[class.wall]': 'wall()', '[style.--wall-columns]': 'wallColumns()', '(document:keydown.escape)': 'wall() && leaveWall()' },
   templateUrl: './rooms-now.html',
   styleUrl: './rooms-now.scss',
 })
@@ -60,6 +61,8 @@ export class RoomsNow {
 
   protected readonly canMarkArrived = computed(() => this.may(MARKS_ARRIVALS));
   protected readonly canWorkTurnover = computed(() => this.may(WORKS_TURNOVERS));
+  /** As square a grid as the rooms allow (4 → 2 × 2, 9 → 3 × 3), so the wall's cards fill the screen. */
+  protected readonly wallColumns = computed(() => Math.max(1, Math.ceil(Math.sqrt(this.board()?.rooms.length ?? 1))));
   protected readonly hasMr = computed(() => this.board()?.rooms.some((room) => room.modality === 'MR') ?? false);
 
   private readonly date = inject(SiteSettingsService).today;
