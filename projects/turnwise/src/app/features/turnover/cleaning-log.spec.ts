@@ -85,20 +85,43 @@ describe('CleaningLog', () => {
     expect(firstParams.get('date')).toMatch(/^\d{4}-\d{2}-\d{2}$/);
     expect(firstParams.has('roomId')).toBe(false);
     const step = rows(page)[1];
-    expect(text(step.querySelector('.mat-column-step'))).toBe('Table top and rails');
-    expect(text(step.querySelector('.mat-column-contact'))).toBe('2 min / 1 min');
-    expect(step.querySelector('.mat-column-contact')!.classList).toContain('short');
+    expect(text(step.querySelector('.mat-column-step'))).toBe('step Table top and rails');
+    expect(text(step.querySelector('.mat-column-room'))).toBe('MR 1 ACC-2041 routine clean');
+    expect(text(step.querySelector('.mat-column-product'))).toBe('Standard surface wipe 2 min / 1 min');
+    expect(step.querySelector('.mat-column-product .contact')!.classList).toContain('short');
     expect(text(step.querySelector('.mat-column-earlyReason'))).toBe('Patient waiting on a stretcher');
     expect(text(step.querySelector('.mat-column-who'))).toBe('Robin Example');
   });
 
+  it('shows the whole entry in seven columns, so a tablet needs no sideways scrolling for who, reason and corrections', async () => {
+    const { page } = await render();
+    const headers = Array.from(page.querySelectorAll('th')).map((th) => text(th));
+    expect(headers).toEqual(['Time', 'Room and exam', 'Entry', 'Product; contact required / achieved', 'Who', 'Early reason', 'Corrections']);
+  });
+
+  it('picks the day with the same day picker as every other screen, written in words', async () => {
+    const { page, backend, fixture, firstParams } = await render();
+    // the browser's own date field writes the day in the computer's locale: it must not be the one shown
+    expect(page.querySelector('.filters input[type="date"]:not(.calendar)')).toBeNull();
+    const day = firstParams.get('date')!;
+    expect(text(page.querySelector('tw-day-picker .long'))).toMatch(/^[A-Z][a-z]+day \d{1,2} [A-Z][a-z]+ \d{4}$/);
+    page.querySelector<HTMLButtonElement>('tw-day-picker button[aria-label="Previous day"]')!.click();
+    await settle(fixture);
+    const request = backend.expectOne((r) => r.url === '/api/log');
+    const previous = new Date(`${day}T12:00:00Z`);
+    previous.setUTCDate(previous.getUTCDate() - 1);
+    expect(request.request.params.get('date')).toBe(previous.toISOString().slice(0, 10));
+    request.flush({ entries: [] });
+    await settle(fixture);
+  });
+
   it('links a correction and the entry it corrects both ways', async () => {
     const { page } = await render();
-    expect(text(rows(page)[0].querySelector('.links'))).toBe('corrects #7');
-    expect(text(rows(page)[1].querySelector('.links'))).toBe('corrected by #8');
+    expect(text(rows(page)[0].querySelector('.links a'))).toBe('corrects #7');
+    expect(text(rows(page)[1].querySelector('.links a'))).toBe('corrected by #8');
     expect(rows(page)[1].id).toBe('log-7');
     // the step is copied onto the correction; its note must still show
-    expect(text(rows(page)[0].querySelector('.mat-column-step'))).toBe('Table top and rails Product was the sporicidal wipe');
+    expect(text(rows(page)[0].querySelector('.mat-column-step'))).toBe('correction Table top and rails Product was the sporicidal wipe');
   });
 
   it('says entries are never edited or deleted, and offers no way to do either', async () => {

@@ -11,17 +11,22 @@ import type { LogEntry } from '@shared/api/board';
 import type { ApiError } from '@shared/api/errors';
 import type { Room } from '@shared/api/rooms';
 import { SiteSettingsService } from '../../core/site/site-settings-service';
+import { DayPicker } from '../../shared/ui/day-picker';
 import { SiteTime } from '../../shared/ui/site-time';
 import { LogFilters, LogService, logCsvUrl } from './log-service';
 import { TurnoverService } from './turnover-service';
 import { TurnoverTabs } from './turnover-tabs';
 
-const COLUMNS = ['at', 'room', 'exam', 'cleanType', 'kind', 'step', 'product', 'contact', 'who', 'earlyReason', 'links', 'actions'];
+/**
+ * Seven columns, each stacking what belongs together, so a tablet (768 px) shows the whole
+ * entry, including who, the early reason and the corrections, without scrolling sideways.
+ */
+const COLUMNS = ['at', 'room', 'step', 'product', 'who', 'earlyReason', 'links'];
 
 /** The cleaning log an auditor asks for: who cleaned what, with which product, and when. Append-only. */
 @Component({
   selector: 'tw-cleaning-log',
-  imports: [MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatTableModule, SiteTime, TurnoverTabs],
+  imports: [MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatTableModule, DayPicker, SiteTime, TurnoverTabs],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './cleaning-log.html',
   styleUrl: './cleaning-log.scss',
@@ -31,7 +36,7 @@ export class CleaningLog {
 
   protected readonly columns = COLUMNS;
   protected readonly rooms = signal<Room[]>([]);
-  private readonly today = inject(SiteSettingsService).today;
+  protected readonly today = inject(SiteSettingsService).today;
   protected readonly date = linkedSignal(() => this.today() ?? '');
   protected readonly roomId = signal<number | null>(null);
   protected readonly user = signal('');
@@ -70,11 +75,6 @@ export class CleaningLog {
         takeUntilDestroyed(),
       )
       .subscribe((entries) => this.entries.set(entries));
-  }
-
-  protected pickDate(event: Event): void {
-    const value = (event.target as HTMLInputElement).value;
-    if (/^\d{4}-\d{2}-\d{2}$/.test(value)) this.date.set(value);
   }
 
   protected pickRoom(event: Event): void {

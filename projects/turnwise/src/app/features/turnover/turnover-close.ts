@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input, linkedSignal, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -30,13 +30,18 @@ export class TurnoverClose {
   /** The override reason when closing early (air hold, wet surface), else undefined. */
   readonly completed = output<string | undefined>();
 
-  protected readonly overrideOpen = signal(false);
-  protected readonly overrideReason = signal('');
+  /** Which turnover this is: the form below belongs to it alone and starts empty for the next one. */
+  private readonly turnoverId = computed(() => this.checklist().turnoverId);
+  protected readonly overrideOpen = linkedSignal({ source: this.turnoverId, computation: () => false });
+  protected readonly overrideReason = linkedSignal({ source: this.turnoverId, computation: () => '' });
+  /** A turnover opens with "Exam finished"; before that there is nothing to close, only the plan to show. */
+  protected readonly open = computed(() => this.turnoverId() !== null);
 
   protected readonly missing = computed(() => this.checklist().steps.filter((step) => !step.done).length);
+  /** Counts from the recorded end only: the server sends no `airHoldUntil` before "Exam finished". */
   protected readonly holdLeft = computed(() => {
-    const until = this.checklist().airHoldUntil;
-    return isAhead(until, this.now()) ? countdown(until!, this.now()) : null;
+    const c = this.checklist();
+    return c.examEndedAt && isAhead(c.airHoldUntil, this.now()) ? countdown(c.airHoldUntil!, this.now()) : null;
   });
   /** Surfaces still wet: closing now lets the next patient use them before their contact time is up. */
   protected readonly stillWet = computed(() =>

@@ -1,6 +1,8 @@
-import { ChangeDetectionStrategy, Component, input, output } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input, linkedSignal, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
 
 import type { Checklist } from '@shared/api/board';
 import { PrecautionLabel } from '../../shared/ui/precaution-label';
@@ -9,7 +11,7 @@ import { SiteTime } from '../../shared/ui/site-time';
 /** The two exams a turnover sits between, and the big "Exam finished" while the first is still on. */
 @Component({
   selector: 'tw-turnover-exams',
-  imports: [MatButtonModule, MatIconModule, PrecautionLabel, SiteTime],
+  imports: [MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, PrecautionLabel, SiteTime],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     @let c = checklist();
@@ -47,9 +49,20 @@ import { SiteTime } from '../../shared/ui/site-time';
       <span>· {{ c.staff }} {{ c.staff === 1 ? 'person' : 'people' }} ·</span>
       <tw-precaution-label [precaution]="c.precaution" />
     </p>
-    @if (c.leaving && !c.examEndedAt) {
-      <button mat-flat-button type="button" class="exam-finished" [disabled]="busy()" (click)="finished.emit(c.leaving.examId)">
-        <mat-icon svgIcon="event_available" />Exam finished
+    @if (c.leaving && !c.examEndedAt; as leaving) {
+      @if (reasonOpen()) {
+        <p class="not-started" role="note">
+          <mat-icon svgIcon="warning" aria-hidden="true" />
+          {{ c.leaving.accession }}'s slot starts at {{ c.leaving.start | siteTime }}. Recording its end now opens the
+          turnover (and any air hold) for a patient who may not have been scanned.
+        </p>
+        <mat-form-field class="reason" subscriptSizing="dynamic">
+          <mat-label>Why record the end before the slot starts?</mat-label>
+          <input matInput required maxlength="300" [value]="reason()" (input)="typeReason($event)" />
+        </mat-form-field>
+      }
+      <button mat-flat-button type="button" class="exam-finished" [disabled]="busy() || (reasonOpen() && !reason().trim())" (click)="finish()">
+        <mat-icon svgIcon="event_available" />{{ reasonOpen() ? 'Record the end early' : 'Exam finished' }}: {{ c.leaving.accession }} in {{ c.roomName }}
       </button>
     }
   `,
@@ -69,11 +82,53 @@ import { SiteTime } from '../../shared/ui/site-time';
     .clean { display: flex; flex-wrap: wrap; align-items: center; gap: 6px; margin: 0; font: var(--mat-sys-body-large); }
     .exam-finished { min-height: 72px; font-size: 1.35rem; align-self: stretch; }
     .exam-finished mat-icon { width: 28px; height: 28px; }
+    .not-started {
+      display: flex; align-items: center; gap: 6px; margin: 0; padding: 8px 12px;
+      border-radius: var(--tw-radius-s); font-weight: 600;
+      color: var(--tw-verdict-snug-ink); background: var(--tw-verdict-snug-tint);
+    }
+    .not-started mat-icon { flex: none; }
   `,
 })
 export class TurnoverExams {
   readonly checklist = input.required<Checklist>();
   readonly busy = input(false);
-  /** The leaving exam's id. */
-  readonly finished = output<number>();
+  /** Now on the server's clock, in ms, ticking. */
+  readonly now = input.required<number>();
+  /** The server refused the end as too early (its clock decides): ask for the reason. */
+  readonly askReason = input(false);
+  /** The leaving exam's id, and why its end is recorded before its slot starts (only then). */
+  readonly finished = output<ExamFinished>();
+
+  /** The reason belongs to one leaving exam: the next one starts with an empty form. */
+  private readonly leavingId = computed(() => this.checklist().leaving?.examId ?? null);
+  protected readonly reason = linkedSignal({ source: this.leavingId, computation: () => '' });
+  private readonly opened = linkedSignal({ source: this.leavingId, computation: () => false });
+  private readonly notStarted = computed(() => {
+    const leaving = this.checklist().leaving;
+    return !!leaving && Date.parse(leaving.start) > this.now();
+  });
+  protected readonly reasonOpen = computed(() => this.opened() || this.askReason());
+
+  protected typeReason(event: Event): void {
+    this.reason.set((event.target as HTMLInputElement).value);
+  }
+
+  protected finish(): void {
+    const leaving = this.checklist().leaving;
+    if (!leaving) return;
+    if (!this.reasonOpen()) {
+      if (this.notStarted()) this.opened.set(true);
+      else this.finished.emit({ examId: leaving.examId });
+      return;
+    }
+    const reason = this.reason().trim();
+    if (reason) this.finished.emit({ examId: leaving.examId, earlyReason: reason });
+  }
+}
+
+/** What "Exam finished" sends. */
+export interface ExamFinished {
+  examId: number;
+  earlyReason?: string;
 }

@@ -30,9 +30,12 @@ export class TurnoverService {
     return this.http.get<Checklist>(`/api/rooms/${roomId}/turnover`, { ...this.quiet, params: { date } });
   }
 
-  /** Records the exam's real end (server clock) and opens the turnover after it; 409 if already recorded. */
-  examFinished(examId: number): Observable<Checklist> {
-    return this.http.post<Checklist>(`/api/exams/${examId}/finished`, {}, this.quiet);
+  /**
+   * Records the exam's real end (server clock) and opens the turnover after it; 409 if already
+   * recorded, 422 `exam_not_started` before the slot's start unless `earlyReason` says why.
+   */
+  examFinished(examId: number, earlyReason?: string): Observable<Checklist> {
+    return this.http.post<Checklist>(`/api/exams/${examId}/finished`, earlyReason ? { earlyReason } : {}, this.quiet);
   }
 
   stepDone(turnoverId: number, stepKey: string, tick: StepTick): Observable<Checklist> {

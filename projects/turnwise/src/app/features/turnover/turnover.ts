@@ -22,7 +22,7 @@ import { notYetDone } from './step-readiness';
 import { readLastRoom, rememberRoom } from './last-room';
 import { ShiftTaskList } from './shift-task-list';
 import { TurnoverClose } from './turnover-close';
-import { TurnoverExams } from './turnover-exams';
+import { ExamFinished, TurnoverExams } from './turnover-exams';
 import { StepTick, TurnoverService } from './turnover-service';
 import { TurnoverTabs } from './turnover-tabs';
 
@@ -54,6 +54,8 @@ export class Turnover {
   protected readonly busy = signal(false);
   /** The step the server refused as still wet, so its row asks for a reason. */
   protected readonly reasonFor = signal<string | null>(null);
+  /** The exam whose end the server refused as before its slot, so "Exam finished" asks why. */
+  protected readonly finishReasonFor = signal<number | null>(null);
   /**
    * The turnover this screen just closed. The room's checklist moves on to the next turnover as
    * soon as the day's stream says so, which would otherwise hide that the close went through.
@@ -83,6 +85,15 @@ export class Turnover {
   protected readonly stepsOpen = computed(() => {
     const c = this.checklist();
     return !!c && c.turnoverId !== null && c.completedAt === null && (!c.leaving || !!c.examEndedAt) && !this.busy();
+  });
+
+  /**
+   * The steps keyed by their turnover: a row is kept across fetches of one turnover only, so a
+   * reason typed for this turnover never shows up on the next one's same step.
+   */
+  protected readonly stepRows = computed(() => {
+    const c = this.checklist();
+    return (c?.steps ?? []).map((step) => ({ key: `${c?.turnoverId ?? 'unopened'}:${step.key}`, step }));
   });
 
   protected readonly cautions = computed<CautionKind[]>(() => {
@@ -122,9 +133,11 @@ export class Turnover {
     void this.router.navigate([], { queryParams: { room: roomId }, queryParamsHandling: 'merge' });
   }
 
-  protected examFinished(examId: number): void {
+  protected examFinished({ examId, earlyReason }: ExamFinished): void {
     this.justCompleted.set(null);
-    this.act(this.service.examFinished(examId));
+    this.act(this.service.examFinished(examId, earlyReason), (error) => {
+      if (error.code === 'exam_not_started') this.finishReasonFor.set(examId);
+    });
   }
 
   protected tick(stepKey: string, tick: StepTick): void {
@@ -194,6 +207,9 @@ export class Turnover {
 
   private show(checklist: Checklist): void {
     this.skew.set(serverSkew(checklist.now, this.clock.now()));
+    // Form state belongs to one turnover: a reason asked for the last one must not carry over.
+    if (checklist.turnoverId !== this.checklist()?.turnoverId) this.reasonFor.set(null);
+    if (checklist.leaving?.examId !== this.finishReasonFor()) this.finishReasonFor.set(null);
     this.checklist.set(checklist);
   }
 
