@@ -5,6 +5,7 @@ import { MatTableModule } from '@angular/material/table';
 import type { ImportResult } from '@shared/api/import';
 import { SiteTime } from '../../shared/ui/site-time';
 import { VerdictSummary } from '../../shared/ui/verdict-summary';
+import { issueLine } from './issue-text';
 
 /** What an import would do (or did): the differences with the current list, warnings, verdicts, rows. */
 @Component({
@@ -17,6 +18,7 @@ import { VerdictSummary } from '../../shared/ui/verdict-summary';
 export class ImportPreview {
   readonly result = input.required<ImportResult>();
 
+  protected readonly lineOf = issueLine;
   protected readonly columns = [
     'row', 'accession', 'room', 'start', 'duration', 'procedure', 'coil', 'precaution', 'mobility', 'contrast',
   ];

@@ -93,7 +93,7 @@ describe('Import', () => {
     expect(text(setup.page.querySelector('.removed h3'))).toContain('2 exams are on the current list but not in the file, and will be removed');
     expect(Array.from(setup.page.querySelectorAll('.removed li')).map(text)).toEqual(['ACC-2', 'ACC-3']);
     expect(text(setup.page.querySelector('.changed'))).toContain('ACC-1: start, coil');
-    expect(text(setup.page.querySelector('.warnings'))).toContain('Row 3, start: start 7:05 read as 07:05.');
+    expect(text(setup.page.querySelector('.warnings'))).toContain('Row 3, start: 7:05 read as 07:05.');
     const rows = Array.from(setup.page.querySelectorAll('tr[mat-row]')).map((row) =>
       Array.from(row.querySelectorAll('td')).map(text),
     );
@@ -164,8 +164,9 @@ describe('Import', () => {
     expect(text(setup.page.querySelector('tw-refusal-report'))).toContain('Nothing was imported');
     const errors = Array.from(setup.page.querySelectorAll('.errors li')).map(text);
     expect(errors).toEqual([
-      'Row 3, duration_min duration_min must be whole minutes from 5 to 480; got "4".',
-      'Row 4, room Room "MR 9" is not set up.',
+      // The column is named once, not "duration_min duration_min must be …".
+      'Row 3, duration_min: must be whole minutes from 5 to 480; got "4".',
+      'Row 4, room: Room "MR 9" is not set up.',
     ]);
     const bad = Array.from(setup.page.querySelectorAll('table.file td.bad'));
     expect(bad.map((cell) => [text(cell.closest('tr')!.querySelector('th')), cell.textContent!.trim().split(/\s+/)[0]])).toEqual([

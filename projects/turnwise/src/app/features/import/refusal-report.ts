@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import { MatIconModule } from '@angular/material/icon';
 
 import type { ImportRefusal } from '@shared/api/import';
+import { issueLine } from './issue-text';
 import { markRefusedTable } from './refusal-table';
 
 /** A refused file: every problem by row and column, and the file itself with the bad cells marked. */
@@ -15,6 +16,7 @@ import { markRefusedTable } from './refusal-table';
 export class RefusalReport {
   readonly refusal = input.required<ImportRefusal>();
 
+  protected readonly lineOf = issueLine;
   protected readonly count = computed(() => this.refusal().errors.length);
   protected readonly table = computed(() => {
     const refusal = this.refusal();
