@@ -57,4 +57,12 @@ describe('DayPlan problem gaps and patients to call', () => {
     await settle(fixture);
     expect(page.querySelector('tw-patients-to-call')).toBeNull();
   });
+
+  it('opens the gap before the exam named in the address (?exam=, as Import links to it)', async () => {
+    const { page, fixture, backend } = await renderDay({ plan: twoProblems(), exam: 'ACC-21' });
+    await settle(fixture);
+    backend.match(() => true);
+    expect(text(page.querySelector('tw-gap-panel h2'))).toContain('ACC-21');
+    expect(text(page.querySelector('.problem-steps .where'))).toBe('Problem 2 of 2');
+  });
 });

@@ -49,6 +49,8 @@ export class DayPlan {
 
   /** `YYYY-MM-DD` from the address (`/day/…` or `/day?date=…`); absent means today at the site. */
   readonly date = input<string>();
+  /** An accession from the address (`?exam=A3004`, e.g. from Import's problem gaps): open the gap before it. */
+  readonly exam = input<string>();
 
   protected readonly day = computed(() => this.date() || this.today());
   protected readonly zooms = ZOOMS;
@@ -93,6 +95,18 @@ export class DayPlan {
     effect(() => {
       const day = this.day();
       if (day) this.store.open(day);
+    });
+    let openedExam = '';
+    effect(() => {
+      const accession = this.exam();
+      const plan = this.store.plan();
+      if (!accession || !plan || `${plan.date}/${accession}` === openedExam) return;
+      openedExam = `${plan.date}/${accession}`;
+      const room = plan.rooms.find((candidate) => candidate.exams.some((exam) => exam.accession === accession));
+      const exam = room?.exams.find((candidate) => candidate.accession === accession);
+      const gap = room?.gaps.find((candidate) => candidate.toExamId === exam?.id);
+      // After the render that draws the timeline, so it can scroll to the gap.
+      if (room && gap) afterNextRender(() => this.openProblem({ room, gap, atMs: 0 }), { injector: this.injector });
     });
   }
 

@@ -3,6 +3,8 @@ import { Injectable, inject } from '@angular/core';
 import { Observable, filter, map } from 'rxjs';
 
 import type { ImportResult } from '@shared/api/import';
+import type { PlannedDay } from '@shared/api/plan';
+import type { DayPlanInput } from '@shared/turnover';
 import { showsOwnErrors } from '../../core/http/shows-own-errors';
 
 /** Where an upload is: still sending (percent when the browser knows it), or answered. */
@@ -39,5 +41,10 @@ export class ImportService {
         }),
         filter((progress): progress is ImportProgress => progress !== null),
       );
+  }
+
+  /** The day's own engine input (rooms, zone, snug margin), to place the file's rows in their gaps. */
+  dayInput(date: string): Observable<DayPlanInput> {
+    return this.http.get<PlannedDay>(`/api/days/${encodeURIComponent(date)}/plan`, { context: showsOwnErrors() }).pipe(map((plan) => plan.input));
   }
 }

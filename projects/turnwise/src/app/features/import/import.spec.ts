@@ -6,6 +6,7 @@ import { By } from '@angular/platform-browser';
 import { provideRouter } from '@angular/router';
 
 import type { ImportRefusal, ImportResult } from '@shared/api/import';
+import { computeDayPlan, type DayPlanInput } from '@shared/turnover';
 import { fakeAuth } from '../../../testing/fake-auth';
 import { provideApiHttp } from '../../core/http/api-http';
 import { provideIcons } from '../../core/layout/icons';
@@ -72,7 +73,12 @@ function chooseFile(setup: Awaited<ReturnType<typeof render>>, name = 'monday.cs
 }
 
 describe('Import', () => {
-  afterEach(() => TestBed.inject(HttpTestingController).verify());
+  afterEach(() => {
+    const backend = TestBed.inject(HttpTestingController);
+    // The day's plan input (for the problem gaps) is answered only by the tests about it.
+    backend.match('/api/days/2027-03-15/plan');
+    backend.verify();
+  });
 
   it('previews with dryRun, showing progress, counts, the removed exams and every row in site time', async () => {
     const setup = await render();
@@ -99,6 +105,42 @@ describe('Import', () => {
     );
     expect(rows[1]).toEqual(['3', 'ACC-4', 'MR 2', '07:05', '45', 'MR brain with contrast', 'head', 'airborne', 'stretcher', 'yes']);
     expect(text(setup.page.querySelector('button.commit'))).toContain('Replace the day list with these 2 exams');
+  });
+
+  it('lists the problem gaps by room and time, computed from the day\'s own input, and links them to the plan once imported', async () => {
+    const setup = await render();
+    const rows = [
+      { ...preview.rows[0] },
+      // 10 min after ACC-1 ends in MR 1: one person needs 20 (product brief check value), so short by 10.
+      { ...preview.rows[0], row: 3, accession: 'ACC-5', start: '2027-03-15T08:40:00-05:00' },
+      { ...preview.rows[0], row: 4, accession: 'ACC-6', room: 'MR 2', start: '2027-03-15T09:00:00-05:00' },
+    ];
+    chooseFile(setup).flush({ ...preview, rows, imported: 3 });
+    await settle(setup.fixture);
+    const input: DayPlanInput = {
+      date: '2027-03-15',
+      timezone: 'America/Chicago',
+      snugMarginMinutes: 3,
+      rooms: [
+        { id: 1, name: 'MR 1', modality: 'MR', airChangesPerHour: 6, staff: 1, opensAt: '07:00', closesAt: '19:00' },
+        { id: 2, name: 'MR 2', modality: 'MR', airChangesPerHour: 6, staff: 1, opensAt: '07:00', closesAt: '19:00' },
+      ],
+      exams: [],
+    };
+    setup.backend.expectOne('/api/days/2027-03-15/plan').flush({ ...computeDayPlan(input), input });
+    await settle(setup.fixture);
+    const list = setup.page.querySelector('tw-problem-gap-list')!;
+    expect(text(list.querySelector('h3'))).toBe('Problem gaps (1)');
+    expect(text(list.querySelector('h4'))).toBe('MR 1');
+    expect(Array.from(list.querySelectorAll('li')).map((li) => [text(li.querySelector('span')), li.querySelector('tw-verdict-chip')!.getAttribute('data-verdict'), text(li.querySelector('.short-by'))])).toEqual([
+      ['08:40 before ACC-5', 'short', 'short by 10 min'],
+    ]);
+    expect(list.querySelector('a')).toBeNull();
+
+    setup.page.querySelector<HTMLButtonElement>('button.commit')!.click();
+    setup.backend.expectOne((r) => r.url === URL).flush({ ...preview, rows, imported: 3, dryRun: false });
+    await settle(setup.fixture);
+    expect(setup.page.querySelector('tw-problem-gap-list a')?.getAttribute('href')).toBe('/day/2027-03-15?exam=ACC-5');
   });
 
   it('imports without dryRun when Import is pressed, then links to that day plan', async () => {

@@ -10,12 +10,15 @@ import type { ImportResult } from '@shared/api/import';
 import { DayPicker } from '../../shared/ui/day-picker';
 import { SiteSettingsService } from '../../core/site/site-settings-service';
 import { longDay } from '../../shared/ui/site-time';
+import { serverState } from '../../core/state/server-state';
 import { DropZone } from './drop-zone';
 import { ExamListHelp } from './exam-list-help';
 import { ImportPreview } from './import-preview';
+import { importProblems } from './import-problems';
 import { importRefusalOf } from './import-refused';
 import { ImportService } from './import-service';
 import { ImportState } from './import-state';
+import { ProblemGapList } from './problem-gap-list';
 import { RefusalReport } from './refusal-report';
 
 /** Import a day list: choose the day and a file, check the preview, then replace the day's list. */
@@ -30,6 +33,7 @@ import { RefusalReport } from './refusal-report';
     DropZone,
     ExamListHelp,
     ImportPreview,
+    ProblemGapList,
     RefusalReport,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -49,6 +53,14 @@ export class Import {
   protected readonly state = signal<ImportState>({ step: 'choose' });
   protected readonly busy = computed(() => this.state().step === 'uploading');
   protected readonly longDay = longDay;
+  /** The day's rooms, zone and snug margin, to show where the file's problem gaps are. */
+  private readonly dayInput = serverState((date: string) => this.imports.dayInput(date), 'The day could not be read.');
+  protected readonly problems = computed(() => {
+    const current = this.state();
+    const input = this.dayInput.value();
+    if ((current.step !== 'preview' && current.step !== 'imported') || !input || input.date !== current.result.date) return null;
+    return importProblems(input, current.result.rows);
+  });
 
   constructor() {
     inject(DestroyRef).onDestroy(() => this.upload?.unsubscribe());
@@ -89,14 +101,16 @@ export class Import {
     this.upload?.unsubscribe();
     this.state.set({ step: 'uploading', purpose, percent: 0 });
     this.upload = this.imports.send(day, file, { dryRun, dayVersion }).subscribe({
-      next: (progress) =>
+      next: (progress) => {
         this.state.set(
           progress.kind === 'uploading'
             ? { step: 'uploading', purpose, percent: progress.percent }
             : dryRun
               ? { step: 'preview', result: progress.result, redone }
               : { step: 'imported', result: progress.result },
-        ),
+        );
+        if (progress.kind === 'done') this.dayInput.show(progress.result.date);
+      },
       error: (error: unknown) => {
         if (!isApiError(error)) return this.state.set({ step: 'failed', purpose, message: 'The file could not be sent. Try again.' });
         const refusal = importRefusalOf(error);

@@ -47,7 +47,7 @@ export async function settle(fixture: ComponentFixture<unknown>) {
 }
 
 /** The Day plan on 2027-03-15 for `user`, with settings, rooms and the plan answered. */
-export async function renderDay(options: { user?: SessionUser; plan?: Plan | null; date?: string } = {}) {
+export async function renderDay(options: { user?: SessionUser; plan?: Plan | null; date?: string; exam?: string } = {}) {
   TestBed.configureTestingModule({
     imports: [DayPlan],
     providers: [
@@ -63,6 +63,7 @@ export async function renderDay(options: { user?: SessionUser; plan?: Plan | nul
   });
   const fixture = TestBed.createComponent(DayPlan);
   if (options.date !== '') fixture.componentRef.setInput('date', options.date ?? '2027-03-15');
+  if (options.exam) fixture.componentRef.setInput('exam', options.exam);
   const backend = TestBed.inject(HttpTestingController);
   backend.expectOne('/api/settings').flush(SETTINGS);
   await settle(fixture);
