@@ -143,6 +143,23 @@ describe('Import', () => {
     expect(setup.page.querySelector('tw-problem-gap-list a')?.getAttribute('href')).toBe('/day/2027-03-15?exam=ACC-5');
   });
 
+  it("offers the day's current list in the import format and an empty template to download", async () => {
+    const setup = await render();
+    expect(setup.page.querySelector('a.day-list')).toBeNull();
+    const input: DayPlanInput = {
+      date: '2027-03-15',
+      timezone: 'America/Chicago',
+      rooms: [{ id: 1, name: 'MR 1', modality: 'MR', airChangesPerHour: 6, staff: 1, opensAt: '07:00', closesAt: '19:00' }],
+      exams: [{ id: 1, accession: 'ACC-1', roomId: 1, start: '2027-03-15T08:00:00-05:00', durationMinutes: 30, procedure: 'MR knee', coil: 'knee', precaution: 'none', mobility: 'ambulatory', contrast: false, notes: null, version: 1 }],
+    };
+    setup.backend.expectOne('/api/days/2027-03-15/plan').flush({ ...computeDayPlan(input), input });
+    await settle(setup.fixture);
+    const csv = (selector: string) => decodeURIComponent(setup.page.querySelector(selector)!.getAttribute('href')!.replace(/^data:text\/csv;charset=utf-8,/, ''));
+    expect(setup.page.querySelector('a.day-list')!.getAttribute('download')).toBe('day-list-2027-03-15.csv');
+    expect(csv('a.day-list')).toBe('accession,room,start,duration_min,procedure,coil,precaution,mobility,contrast,notes\r\nACC-1,MR 1,08:00,30,MR knee,knee,none,ambulatory,no,\r\n');
+    expect(csv('a.template')).toBe('accession,room,start,duration_min,procedure,coil,precaution,mobility,contrast,notes\r\n');
+  });
+
   it('imports without dryRun when Import is pressed, then links to that day plan', async () => {
     const setup = await render();
     chooseFile(setup).flush(preview);

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, linkedSignal, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, linkedSignal, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -11,6 +11,7 @@ import { DayPicker } from '../../shared/ui/day-picker';
 import { SiteSettingsService } from '../../core/site/site-settings-service';
 import { longDay } from '../../shared/ui/site-time';
 import { serverState } from '../../core/state/server-state';
+import { csvHref, dayListCsv, templateCsv } from './day-list-file';
 import { DropZone } from './drop-zone';
 import { ExamListHelp } from './exam-list-help';
 import { ImportPreview } from './import-preview';
@@ -54,7 +55,7 @@ export class Import {
   protected readonly busy = computed(() => this.state().step === 'uploading');
   protected readonly longDay = longDay;
   /** The day's rooms, zone and snug margin, to show where the file's problem gaps are. */
-  private readonly dayInput = serverState((date: string) => this.imports.dayInput(date), 'The day could not be read.');
+  protected readonly dayInput = serverState((date: string) => this.imports.dayInput(date), 'The day could not be read.');
   protected readonly problems = computed(() => {
     const current = this.state();
     const input = this.dayInput.value();
@@ -62,7 +63,18 @@ export class Import {
     return importProblems(input, current.result.rows);
   });
 
+  protected readonly templateHref = csvHref(templateCsv());
+  /** The chosen day's current list in the import format, when it has exams. */
+  protected readonly dayListHref = computed(() => {
+    const input = this.dayInput.value();
+    return input && input.date === this.day() && input.exams.length > 0 ? csvHref(dayListCsv(input)) : null;
+  });
+
   constructor() {
+    effect(() => {
+      const day = this.day();
+      if (day) this.dayInput.show(day);
+    });
     inject(DestroyRef).onDestroy(() => this.upload?.unsubscribe());
   }
 
@@ -109,7 +121,8 @@ export class Import {
               ? { step: 'preview', result: progress.result, redone }
               : { step: 'imported', result: progress.result },
         );
-        if (progress.kind === 'done') this.dayInput.show(progress.result.date);
+        // The list changed: its download (and the rooms, if set up meanwhile) are read again.
+        if (progress.kind === 'done' && !dryRun) this.dayInput.reload();
       },
       error: (error: unknown) => {
         if (!isApiError(error)) return this.state.set({ step: 'failed', purpose, message: 'The file could not be sent. Try again.' });
