@@ -3,7 +3,7 @@ import { Injectable, computed, inject, signal } from '@angular/core';
 import { DateTime } from 'luxon';
 import { firstValueFrom } from 'rxjs';
 
-import type { SiteSettings } from '@shared/api/settings';
+import { DEFAULT_SETTINGS, type SiteSettings } from '@shared/api/settings';
 import { Clock } from '../time/clock';
 
 /**
@@ -36,7 +36,7 @@ export class SiteSettingsService {
     this.loading ??= firstValueFrom(this.http.get<{ settings: SiteSettings }>('/api/settings')).then(
       ({ settings }) => this.settle(settings),
       // The error interceptor has told the user; the screens still work on the browser's day.
-      () => this.settle({ siteName: '', timezone: DateTime.local().zoneName ?? 'UTC', snugMarginMinutes: 3 }),
+      () => this.settle({ ...DEFAULT_SETTINGS, siteName: '', timezone: DateTime.local().zoneName ?? 'UTC' }),
     );
     return this.loading;
   }
