@@ -35,7 +35,7 @@ describe('DayPlan problem gaps and patients to call', () => {
   it("explains a room's \"N to check\" and opens its first problem gap when chosen", async () => {
     const { page, fixture, backend } = await renderDay({ plan: twoProblems() });
     const toCheck = page.querySelector<HTMLButtonElement>('[data-room-id="2"] button.problems')!;
-    expect(toCheck.getAttribute('aria-label')).toBe('1 gap in MR 2 snug, short or overlapping: show the first');
+    expect(toCheck.getAttribute('aria-label')).toBe('1 to check: a gap in MR 2 snug, short or overlapping; show the first');
     toCheck.click();
     await settle(fixture);
     backend.match(() => true);

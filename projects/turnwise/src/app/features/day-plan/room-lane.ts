@@ -48,7 +48,8 @@ export class RoomLane {
   protected readonly problems = computed(() => this.room().gaps.filter((gap) => gap.verdict !== 'fits').length);
   protected readonly problemsHint = computed(() => {
     const n = this.problems();
-    return `${n} ${n === 1 ? 'gap' : 'gaps'} in ${this.room().name} snug, short or overlapping: show the first`;
+    // Starts with the visible words, so speech input can name the button as it reads (WCAG 2.5.3).
+    return `${n} to check: ${n === 1 ? 'a gap' : `${n} gaps`} in ${this.room().name} snug, short or overlapping; show the first`;
   });
   /** Closed hours before opening and after closing, drawn quieter than open time. */
   protected readonly open = computed(() => {
