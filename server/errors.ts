@@ -1,11 +1,14 @@
+import { ERROR_STATUS, type ErrorCode, type ErrorDetails } from '../shared/api/errors';
+
 /**
- * Typed errors that services throw; the error handler renders them as `{error:{code, message}}`
- * with their status. Anything else is an unexpected failure: logged, never shown.
+ * Typed errors that services throw; the error handler renders them as
+ * `{error:{code, message, details?}}` with their status. Anything else is an unexpected failure:
+ * logged, never shown. Every code is one of `shared/api/errors.ts`, so the client can rely on it.
  */
 export class HttpError extends Error {
   constructor(
     readonly status: number,
-    readonly code: string,
+    readonly code: ErrorCode,
     message: string,
     readonly details?: unknown,
     /** Extra top-level fields of the error body (e.g. the import refusal's `table`). */
@@ -16,9 +19,16 @@ export class HttpError extends Error {
   }
 }
 
-export class BadRequestError extends HttpError {
-  constructor(message: string, details?: unknown) {
-    super(400, 'bad_request', message, details);
+/**
+ * A specific refusal: its status comes from the shared table (unless the code allows two, as
+ * `file_refused` does) and its details are typed by the code.
+ *
+ * @example
+ * throw new Refusal('nothing_to_undo', 'You have nothing to undo on this day.', undefined);
+ */
+export class Refusal<C extends ErrorCode> extends HttpError {
+  constructor(code: C, message: string, details: ErrorDetails[C], options: { status?: number; extra?: Record<string, unknown> } = {}) {
+    super(options.status ?? ERROR_STATUS[code], code, message, details, options.extra);
   }
 }
 
@@ -40,27 +50,9 @@ export class NotFoundError extends HttpError {
   }
 }
 
-export class ConflictError extends HttpError {
-  constructor(message: string, details?: unknown) {
-    super(409, 'conflict', message, details);
-  }
-}
-
-export class PayloadTooLargeError extends HttpError {
-  constructor(message: string) {
-    super(413, 'payload_too_large', message);
-  }
-}
-
-export class UnsupportedMediaTypeError extends HttpError {
-  constructor(message: string) {
-    super(415, 'unsupported_media_type', message);
-  }
-}
-
 /** 422: the request was understood but its content is invalid; `details` lists the problems. */
 export class ValidationError extends HttpError {
-  constructor(message: string, details?: unknown, extra?: Record<string, unknown>) {
+  constructor(message: string, details?: ErrorDetails['validation_failed'] | unknown[], extra?: Record<string, unknown>) {
     super(422, 'validation_failed', message, details, extra);
   }
 }

@@ -2,7 +2,7 @@ import { Router } from 'express';
 import type { Knex } from 'knex';
 import { z } from 'zod';
 import type { Clock } from '../clock';
-import { ConflictError } from '../errors';
+import { Refusal } from '../errors';
 import { currentUser, requireRole, requireUser } from '../middleware/roles';
 import type { DayEvents } from '../services/day-events';
 import { loadDayPlan } from '../services/day-plan';
@@ -38,7 +38,7 @@ export function dayChangeRoutes(deps: { db: Knex; clock: Clock; events: DayEvent
       const day = parseDay(req.params['date']);
       const user = currentUser(req);
       const done = await undoOrRedo(deps.db, day, user.id, mode, deps.clock.now());
-      if (!done) throw new ConflictError(mode === 'undo' ? 'You have nothing to undo on this day.' : 'You have nothing to redo on this day.');
+      if (!done) throw mode === 'undo' ? new Refusal('nothing_to_undo', 'You have nothing to undo on this day.', undefined) : new Refusal('nothing_to_redo', 'You have nothing to redo on this day.', undefined);
       publish(day, mode, user.displayName || user.username);
       res.json(await loadDayPlan(deps.db, day));
     });

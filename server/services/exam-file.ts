@@ -3,8 +3,8 @@ import { Readable } from 'node:stream';
 import { parse as parseCsv } from 'csv-parse/sync';
 import { stream as excelStream, ValueType, type Cell, type Row } from 'exceljs';
 import { EXAM_FILE_LIMITS } from '../../shared/exam-list/file-limits';
-import { UnsupportedMediaTypeError, ValidationError } from '../errors';
 import { FileLimitError } from './file-limits';
+import { damagedWorkbook, unreadableFile, unsupportedFile } from './file-refusal';
 import { checkWorkbookZip } from './workbook-zip';
 
 /** An uploaded file as multer hands it over. */
@@ -32,9 +32,9 @@ const UTF8_BOM = Buffer.from([0xef, 0xbb, 0xbf]);
  * Trailing empty cells are dropped from every row and blank rows are kept as `[]`, so row
  * numbers match the spreadsheet and a CSV and an .xlsx of the same list give the same table.
  *
- * @throws UnsupportedMediaTypeError (415) for anything but CSV text or .xlsx: binary content,
+ * @throws Refusal `file_refused` (415) for anything but CSV text or .xlsx: binary content,
  *   old .xls, other extensions.
- * @throws ValidationError (422) for an empty or header-only file, text that is not UTF-8, a
+ * @throws Refusal `file_refused` (422) for an empty or header-only file, text that is not UTF-8, a
  *   malformed CSV (unclosed quote) or a damaged workbook.
  * @throws FileLimitError (413/422) for a file over one of `EXAM_FILE_LIMITS` (rows, cells in a
  *   row, characters in a cell, unpacked workbook sizes), naming the limit. Rows are counted
@@ -44,11 +44,11 @@ export async function readExamFile(file: UploadedExamFile): Promise<string[][]> 
   const { buffer } = file;
   const extension = /\.([^./\\]+)$/.exec(file.originalname)?.[1]?.toLowerCase() ?? '';
   if (extension !== '' && extension !== 'xlsx' && !TEXT_EXTENSIONS.includes(extension)) {
-    throw new UnsupportedMediaTypeError(`".${extension}" files are not accepted. ${ACCEPTED}`);
+    throw unsupportedFile(`".${extension}" files are not accepted. ${ACCEPTED}`);
   }
-  if (buffer.length === 0) throw new ValidationError('The file is empty.');
+  if (buffer.length === 0) throw unreadableFile('The file is empty.');
   if (startsWith(buffer, OLE2_MAGIC)) {
-    throw new UnsupportedMediaTypeError('This is an old-style Excel (.xls) file. Save it as .xlsx or CSV UTF-8 and upload again.');
+    throw unsupportedFile('This is an old-style Excel (.xls) file. Save it as .xlsx or CSV UTF-8 and upload again.');
   }
 
   let table: string[][];
@@ -58,15 +58,15 @@ export async function readExamFile(file: UploadedExamFile): Promise<string[][]> 
   checkCells(table);
 
   const withData = rowsWithData(table, 2);
-  if (withData === 0) throw new ValidationError('The file is empty.');
-  if (withData === 1) throw new ValidationError('The file has a header row but no exams.');
+  if (withData === 0) throw unreadableFile('The file is empty.');
+  if (withData === 1) throw unreadableFile('The file has a header row but no exams.');
   return table;
 }
 
 function readCsv(buffer: Buffer): string[][] {
-  if (looksBinary(buffer)) throw new UnsupportedMediaTypeError(`The file is neither text nor an .xlsx workbook. ${ACCEPTED}`);
+  if (looksBinary(buffer)) throw unsupportedFile(`The file is neither text nor an .xlsx workbook. ${ACCEPTED}`);
   if (!isUtf8(buffer)) {
-    throw new ValidationError('The file is not UTF-8 text. In Excel choose "CSV UTF-8" when saving, or upload the .xlsx.');
+    throw unreadableFile('The file is not UTF-8 text. In Excel choose "CSV UTF-8" when saving, or upload the .xlsx.');
   }
   // csv-parse reads bytes (a string would be encoded back to them), so the file goes in as it
   // came, less one byte-order mark, as decoding to text would have dropped.
@@ -86,9 +86,10 @@ function readCsv(buffer: Buffer): string[][] {
   } catch (error) {
     const line = (error as { lines?: number }).lines;
     const where = line ? ` near line ${line}` : '';
-    throw new ValidationError(`The CSV could not be read${where}: check for a quote that is opened but never closed.`, [
-      { row: line ?? 1, column: '', message: 'Unreadable CSV: unbalanced quotes.' },
-    ]);
+    // the place goes in the import's `errors` list, so the screen shows it like a row error
+    throw unreadableFile(`The CSV could not be read${where}: check for a quote that is opened but never closed.`, {
+      errors: [{ row: line ?? 1, column: '', message: 'Unreadable CSV: unbalanced quotes.' }],
+    });
   }
 }
 
@@ -119,7 +120,7 @@ async function readXlsx(buffer: Buffer): Promise<string[][]> {
     if (error instanceof FileLimitError) throw error;
     throw damagedWorkbook();
   }
-  if (!sawSheet) throw new ValidationError('The workbook has no worksheet.');
+  if (!sawSheet) throw unreadableFile('The workbook has no worksheet.');
   return table;
 }
 
@@ -219,6 +220,4 @@ function looksBinary(buffer: Buffer): boolean {
   return control > buffer.length / 100;
 }
 
-function damagedWorkbook(): ValidationError {
-  return new ValidationError('The .xlsx file could not be opened: it may be damaged or not really an Excel workbook. Save it again from Excel and retry.');
-}
+

@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import { diffExamLists, type ExamListRow } from '../../shared/exam-list';
 import type { ImportResult } from '../../shared/api/import';
 import type { DayPlanExam } from '../../shared/turnover';
-import { HttpError, ValidationError } from '../errors';
+import { HttpError, Refusal, ValidationError } from '../errors';
 import type { WorkerPool } from '../workers/pool';
 import { examColumns, examsOfDay, toListed } from './exams';
 import type { UploadedExamFile } from './exam-file';
@@ -113,9 +113,8 @@ export async function importExamList(db: Knex, workers: WorkerPool, req: ImportR
   return result;
 }
 
-function dayChanged(day: string, previewed: number, now: number): HttpError {
-  return new HttpError(
-    409,
+function dayChanged(day: string, previewed: number, now: number): Refusal<'day_changed'> {
+  return new Refusal(
     'day_changed',
     `The list for ${day} changed after your preview (a slot was moved, staffed or re-imported), so nothing was imported. Preview the file again to see what it would change now.`,
     { previewedVersion: previewed, currentVersion: now },

@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import { DateTime } from 'luxon';
 import type { ExamMove, ExamMoveInput } from '../../shared/api/changes';
-import { ConflictError, NotFoundError, ValidationError } from '../errors';
+import { NotFoundError, Refusal, ValidationError } from '../errors';
 import { examColumnsForMove } from './exams';
 import { recordChange } from './plan-changes';
 import { readSettings } from './settings';
@@ -34,20 +34,24 @@ export async function moveExam(
         .orderBy('plan_changes.id', 'desc')
         .first('users.display_name', 'users.username', 'plan_changes.created_at', 'plan_changes.summary');
       const who = last ? `${last.display_name || last.username} changed it at ${hhmm(last.created_at, timezone)} (${last.summary})` : 'it was changed by an import';
-      throw new ConflictError(`Exam ${exam.accession} was changed meanwhile: ${who}. The day has been reloaded.`, { currentVersion: exam.version });
+      const changedBy = last ? { username: last.username, displayName: last.display_name || last.username, at: last.created_at, summary: last.summary } : null;
+      throw new Refusal('stale_version', `Exam ${exam.accession} was changed meanwhile: ${who}. The day has been reloaded.`, { currentVersion: exam.version, changedBy });
     }
     const fromRoom = await trx('rooms').where({ id: exam.room_id }).first();
     const toRoomId = input.roomId ?? exam.room_id;
     const toRoom = toRoomId === exam.room_id ? fromRoom : await trx('rooms').where({ id: toRoomId, active: true }).first();
-    if (!toRoom) throw new ValidationError(`Room ${toRoomId} does not exist.`);
+    if (!toRoom) throw new ValidationError(`Room ${toRoomId} does not exist.`, { problems: [{ field: 'roomId', message: 'no such room' }] });
     if (toRoom.modality !== fromRoom.modality) {
-      throw new ValidationError(`${exam.accession} is a ${fromRoom.modality} exam; ${toRoom.name} is a ${toRoom.modality} room.`);
+      throw new Refusal('other_modality', `${exam.accession} is a ${fromRoom.modality} exam; ${toRoom.name} is a ${toRoom.modality} room.`, {
+        examModality: fromRoom.modality,
+        roomModality: toRoom.modality,
+      });
     }
     const start = input.start ? DateTime.fromISO(input.start, { setZone: true }).setZone(timezone) : DateTime.fromISO(exam.start_at, { zone: timezone });
-    if (!start.isValid) throw new ValidationError('start must be ISO 8601 with an offset.');
+    if (!start.isValid) throw new ValidationError('start must be ISO 8601 with an offset.', { problems: [{ field: 'start', message: 'not ISO 8601 with an offset' }] });
     const end = start.plus({ minutes: exam.duration_minutes });
     if (start.toISODate() !== exam.day || end.minus({ minutes: 1 }).toISODate() !== exam.day) {
-      throw new ValidationError(`A move must keep ${exam.accession} within ${exam.day} (site time, ${timezone}).`);
+      throw new Refusal('outside_day', `A move must keep ${exam.accession} within ${exam.day} (site time, ${timezone}).`, { day: exam.day, timezone });
     }
     const to = { roomId: toRoomId, start: start.toISO({ suppressMilliseconds: true })! };
     const move: ExamMove = { type: 'move', examId, accession: exam.accession, from: { roomId: exam.room_id, start: exam.start_at }, to };

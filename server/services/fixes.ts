@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { FIX_KINDS, type Fix, type FixKind } from '../../shared/fixes';
-import { ConflictError, NotFoundError, ValidationError } from '../errors';
+import { NotFoundError, Refusal } from '../errors';
 import type { FixesPool } from '../workers/fixes-pool';
 import { loadDayPlanInput } from './day-plan';
 import { applyChanges, recordChange } from './plan-changes';
@@ -37,9 +37,10 @@ export async function applyFix(db: Knex, pool: FixesPool, day: string, fixId: st
   const toExamId = gapOfFixId(fixId);
   const fixes = toExamId === null ? null : await pool.gap({ input: await loadDayPlanInput(db, day), toExamId });
   const fix = fixes?.find((f) => f.id === fixId);
-  if (!fix) throw new ConflictError('That suggestion no longer applies: the day has changed. Suggestions have been refreshed.');
+  if (!fix) throw new Refusal('fix_stale', 'That suggestion no longer applies: the day has changed. Suggestions have been refreshed.', undefined);
   if (fix.effect.newProblems > 0 && !acceptNewProblems) {
-    throw new ValidationError(
+    throw new Refusal(
+      'fix_has_new_problems',
       `This fix would leave ${fix.effect.newProblems} other gap${fix.effect.newProblems === 1 ? '' : 's'} short or overlapping. Confirm to apply it anyway.`,
       { newProblems: fix.effect.newProblems },
     );

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import type { ChangeReason, PlanChange, PlanChangeRecord } from '../../shared/api/changes';
-import { ConflictError } from '../errors';
+import { Refusal } from '../errors';
 import { examColumnsForMove } from './exams';
 
 interface ChangeRow {
@@ -60,9 +60,10 @@ export async function applyChanges(trx: Knex, changes: PlanChange[], userId: num
   for (const change of changes) {
     if (change.type === 'move') {
       const exam = await trx('exams').where({ id: change.examId }).first();
-      if (!exam) throw new ConflictError(`Exam ${change.accession} is no longer on the list.`);
+      const since = { accession: change.accession, examId: change.examId };
+      if (!exam) throw new Refusal('changed_since', `Exam ${change.accession} is no longer on the list.`, since);
       if (exam.room_id !== change.from.roomId || Date.parse(exam.start_at) !== Date.parse(change.from.start)) {
-        throw new ConflictError(`Exam ${change.accession} has been moved since; reload the day and try again.`);
+        throw new Refusal('changed_since', `Exam ${change.accession} has been moved since; reload the day and try again.`, since);
       }
       await trx('exams')
         .where({ id: change.examId })
@@ -70,7 +71,7 @@ export async function applyChanges(trx: Knex, changes: PlanChange[], userId: num
     } else {
       const current = await trx('gap_staffing').where({ to_exam_id: change.toExamId }).first();
       if ((current?.staff ?? null) !== change.from) {
-        throw new ConflictError(`The staffing before ${change.accession} has changed since; reload the day and try again.`);
+        throw new Refusal('changed_since', `The staffing before ${change.accession} has changed since; reload the day and try again.`, { accession: change.accession, examId: change.toExamId });
       }
       if (change.to === null) await trx('gap_staffing').where({ to_exam_id: change.toExamId }).delete();
       else await trx('gap_staffing').insert({ to_exam_id: change.toExamId, staff: change.to, user_id: userId, updated_at: now.toISOString() }).onConflict('to_exam_id').merge();

@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import { DateTime } from 'luxon';
 import type { BoardShiftTask } from '../../shared/api/board';
-import { ConflictError, NotFoundError, ValidationError } from '../errors';
+import { NotFoundError, Refusal, ValidationError } from '../errors';
 import { appendLog } from './cleaning-log';
 import { defaultShiftTasks, occurrencesOn } from './shift-task-rules';
 import type { UserRecord } from './users';
@@ -76,7 +76,9 @@ export async function markShiftTaskDone(db: Knex, taskId: number, dueIso: string
   const at = DateTime.fromJSDate(now, { zone }).toISO({ suppressMilliseconds: true })!;
   await db.transaction(async (trx) => {
     const existing = await trx('shift_task_done').where({ task_id: taskId, due_ms: dueMs }).first();
-    if (existing) throw new ConflictError(`"${task.label}" due ${due.toFormat('HH:mm')} was already ticked off at ${DateTime.fromISO(existing.done_at, { zone }).toFormat('HH:mm')}.`);
+    if (existing) {
+      throw new Refusal('already_done', `"${task.label}" due ${due.toFormat('HH:mm')} was already ticked off at ${DateTime.fromISO(existing.done_at, { zone }).toFormat('HH:mm')}.`, { at: existing.done_at });
+    }
     await trx('shift_task_done').insert({ task_id: taskId, due: due.toISO({ suppressMilliseconds: true }), due_ms: dueMs, done_at: at, user_id: user.id });
     await appendLog(
       trx,

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { DateTime } from 'luxon';
-import { ValidationError } from '../errors';
+import { Refusal } from '../errors';
 import { appendContactAchieved, appendLog } from './cleaning-log';
 import type { TurnoverRecord } from './room-day';
 import { assertOpen, loadTurnover, localIso, turnoverLogFields, type TurnoverRef } from './turnovers';
@@ -41,7 +41,7 @@ export async function completeTurnover(db: Knex, turnoverId: number, overrideRea
   const planned = planRoomTurnover(roomDay, leavingIndex, record.examEndedMs);
   const missing = planned.steps.filter((s) => !record.ticks.has(s.key));
   if (missing.length > 0) {
-    throw new ValidationError(`Not every step is done: ${missing.map((s) => `"${s.label}"`).join(', ')}.`, {
+    throw new Refusal('steps_missing', `Not every step is done: ${missing.map((s) => `"${s.label}"`).join(', ')}.`, {
       missing: missing.map((s) => s.key),
       problems: missing.map((s) => ({ field: s.key, message: 'not done yet' })),
     });
@@ -60,11 +60,15 @@ export async function completeTurnover(db: Knex, turnoverId: number, overrideRea
       ...(holding ? [`the air hold lasts until ${hhmm(holdUntilMs)}`] : []),
       ...wet.map((tick) => `"${labels.get(tick.key) ?? tick.key}" stays wet until ${hhmm(tick.doneMs + tick.waitMinutes * MINUTE)}`),
     ];
-    throw new ValidationError(`Not ready yet: ${why.join('; ')}. Give an override reason to make the room ready before then.`, {
-      airHoldUntil: holding ? DateTime.fromMillis(holdUntilMs, { zone }).toISO({ suppressMilliseconds: true }) : null,
-      wet: wet.map((tick) => tick.key),
-      problems: [{ field: 'overrideReason', message: 'needed during the air hold or while a surface is wet' }],
-    });
+    const message = `Not ready yet: ${why.join('; ')}. Give an override reason to make the room ready before then.`;
+    const problems = [{ field: 'overrideReason', message: 'needed during the air hold or while a surface is wet' }];
+    const wetKeys = wet.map((tick) => tick.key);
+    if (holding) {
+      const until = DateTime.fromMillis(holdUntilMs, { zone }).toISO({ suppressMilliseconds: true })!;
+      throw new Refusal('air_hold', message, { until, airHoldUntil: until, wet: wetKeys, problems });
+    }
+    const wetUntil = DateTime.fromMillis(Math.max(...wet.map((tick) => tick.doneMs + tick.waitMinutes * MINUTE)), { zone }).toISO({ suppressMilliseconds: true })!;
+    throw new Refusal('surface_wet', message, { wet: wetKeys, wetUntil, problems });
   }
   const at = localIso(now, zone);
   const achieved = contactAchieved(planned.steps, record, nowMs);

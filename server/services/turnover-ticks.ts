@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { DateTime } from 'luxon';
-import { ConflictError, NotFoundError, ValidationError } from '../errors';
+import { NotFoundError, Refusal, ValidationError } from '../errors';
 import { appendLog } from './cleaning-log';
 import { assertOpen, loadTurnover, localIso, turnoverLogFields, type TurnoverRef } from './turnovers';
 import { planRoomTurnover, productOf, PRODUCTS } from './turnover-plan';
@@ -27,11 +27,14 @@ export async function tickStep(db: Knex, turnoverId: number, key: string, input:
   if (!step) throw new NotFoundError(`This turnover has no step "${key}".`);
   const labelOf = (k: string) => planned.steps.find((s) => s.key === k)?.label ?? k;
   const done = record.ticks.get(key);
-  if (done) throw new ConflictError(`"${step.label}" was already ticked at ${DateTime.fromISO(done.doneAt, { zone }).toFormat('HH:mm')} by ${done.by}.`);
+  if (done) throw new Refusal('already_done', `"${step.label}" was already ticked at ${DateTime.fromISO(done.doneAt, { zone }).toFormat('HH:mm')} by ${done.by}.`, { at: done.doneAt, by: done.by });
 
   const notYet = step.needs.filter((n) => !record.ticks.has(n.key));
   if (notYet.length > 0) {
-    throw new ValidationError(`Tick ${notYet.map((n) => `"${labelOf(n.key)}"`).join(', ')} first.`, { problems: notYet.map((n) => ({ field: n.key, message: 'not done yet' })) });
+    throw new Refusal('steps_missing', `Tick ${notYet.map((n) => `"${labelOf(n.key)}"`).join(', ')} first.`, {
+      missing: notYet.map((n) => n.key),
+      problems: notYet.map((n) => ({ field: n.key, message: 'not done yet' })),
+    });
   }
   const nowMs = now.getTime();
   const wet = step.needs
@@ -45,9 +48,10 @@ export async function tickStep(db: Knex, turnoverId: number, key: string, input:
   if (wet.length > 0 && !earlyReason) {
     const untilMs = Math.max(...wet.map((w) => w.untilMs));
     const until = DateTime.fromMillis(untilMs, { zone });
-    throw new ValidationError(
+    throw new Refusal(
+      'surface_wet',
       `${wet.map((w) => `"${labelOf(w.key)}"`).join(', ')} stays wet until ${until.toFormat('HH:mm:ss')}; give a reason to tick "${step.label}" early.`,
-      { wetUntil: until.toISO({ suppressMilliseconds: true }), problems: [{ field: 'earlyReason', message: 'needed while a surface is wet' }] },
+      { wet: wet.map((w) => w.key), wetUntil: until.toISO({ suppressMilliseconds: true })!, problems: [{ field: 'earlyReason', message: 'needed while a surface is wet' }] },
     );
   }
 
@@ -76,7 +80,7 @@ export async function tickStep(db: Knex, turnoverId: number, key: string, input:
         early_reason: reason,
       });
     } catch (err) {
-      if (/UNIQUE/i.test(String(err))) throw new ConflictError(`"${step.label}" was just ticked by someone else.`);
+      if (/UNIQUE/i.test(String(err))) throw new Refusal('already_done', `"${step.label}" was just ticked by someone else.`, { at });
       throw err;
     }
     await appendLog(

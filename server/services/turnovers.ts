@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { DateTime } from 'luxon';
-import { ConflictError, NotFoundError } from '../errors';
+import { NotFoundError, Refusal } from '../errors';
 import { appendLog, type NewLogEntry } from './cleaning-log';
 import { loadRoomDays, type RoomDay, type TurnoverRecord } from './room-day';
 import { readSettings } from './settings';
@@ -29,7 +29,9 @@ export async function finishExam(db: Knex, examId: number, user: UserRecord, now
     const exam = await trx('exams as e').join('rooms as r', 'r.id', 'e.room_id').where('e.id', examId).first('e.*', 'r.name as room_name');
     if (!exam) throw new NotFoundError(`No exam ${examId}.`);
     const recorded = await trx('turnovers').where({ from_exam_id: examId }).first();
-    if (recorded) throw new ConflictError(`The end of ${exam.accession} was already recorded at ${DateTime.fromISO(recorded.exam_ended_at, { zone }).toFormat('HH:mm')}.`);
+    if (recorded) {
+      throw new Refusal('already_done', `The end of ${exam.accession} was already recorded at ${DateTime.fromISO(recorded.exam_ended_at, { zone }).toFormat('HH:mm')}.`, { at: recorded.exam_ended_at });
+    }
     const next = await trx('exams')
       .where({ day: exam.day, room_id: exam.room_id })
       .andWhere((q) => q.where('start_ms', '>', exam.start_ms).orWhere((q2) => q2.where('start_ms', exam.start_ms).andWhere('id', '>', exam.id)))
@@ -63,14 +65,16 @@ export async function loadTurnover(db: Knex, turnoverId: number): Promise<{ room
   const record = roomDay && [...roomDay.turnovers.values()].find((t) => t.id === turnoverId);
   if (!roomDay || !record) throw new NotFoundError(`No turnover ${turnoverId}.`);
   const leavingIndex = roomDay.slots.findIndex((s) => s.exam.id === record.fromExamId);
-  if (leavingIndex < 0) throw new ConflictError(`The exam before turnover ${turnoverId} has been moved out of ${roomDay.room.name}.`);
+  if (leavingIndex < 0) throw new Refusal('turnover_moved', `The exam before turnover ${turnoverId} has been moved out of ${roomDay.room.name}.`, undefined);
   return { roomDay, record, leavingIndex, accession: roomDay.slots[leavingIndex]!.exam.accession };
 }
 
 /** Refuses to change a turnover that is already complete. */
 export function assertOpen(record: TurnoverRecord, zone: string): void {
   if (record.completedAt) {
-    throw new ConflictError(`This turnover was completed at ${DateTime.fromISO(record.completedAt, { zone }).toFormat('HH:mm')}; add a correction to the log instead.`);
+    throw new Refusal('turnover_complete', `This turnover was completed at ${DateTime.fromISO(record.completedAt, { zone }).toFormat('HH:mm')}; add a correction to the log instead.`, {
+      completedAt: record.completedAt,
+    });
   }
 }
 

@@ -1,6 +1,6 @@
 import yauzl, { type Entry, type ZipFile } from 'yauzl';
 import { EXAM_FILE_LIMITS } from '../../shared/exam-list/file-limits';
-import { ValidationError } from '../errors';
+import { damagedWorkbook } from './file-refusal';
 import { FileLimitError } from './file-limits';
 
 const RATIO_CHECKED_ABOVE = 1024 * 1024;
@@ -12,7 +12,7 @@ const RATIO_CHECKED_ABOVE = 1024 * 1024;
  * is refused after at most the allowed bytes have been unpacked.
  *
  * @throws FileLimitError (413) naming the limit that was exceeded.
- * @throws ValidationError (422) when the zip cannot be read at all.
+ * @throws Refusal `file_refused` (422) when the zip cannot be read at all.
  * @example
  * await checkWorkbookZip(buffer); // resolves for an ordinary workbook
  */
@@ -44,7 +44,7 @@ function checkDeclared(entry: Entry, declaredTotal: number): void {
 function open(buffer: Buffer): Promise<ZipFile> {
   return new Promise((resolve, reject) => {
     yauzl.fromBuffer(buffer, { lazyEntries: true, validateEntrySizes: true, strictFileNames: false }, (err, zip) => {
-      if (err || !zip) reject(damaged());
+      if (err || !zip) reject(damagedWorkbook());
       else resolve(zip);
     });
   });
@@ -59,7 +59,7 @@ function listEntries(zip: ZipFile): Promise<Entry[]> {
       else zip.readEntry();
     });
     zip.on('end', () => resolve(entries));
-    zip.on('error', () => reject(damaged()));
+    zip.on('error', () => reject(damagedWorkbook()));
     zip.readEntry();
   });
 }
@@ -69,7 +69,7 @@ function unpackedSize(zip: ZipFile, entry: Entry, before: number): Promise<numbe
   if (entry.fileName.endsWith('/')) return Promise.resolve(0);
   return new Promise((resolve, reject) => {
     zip.openReadStream(entry, (err, stream) => {
-      if (err || !stream) return reject(damaged());
+      if (err || !stream) return reject(damagedWorkbook());
       let bytes = 0;
       stream.on('data', (chunk: Buffer) => {
         bytes += chunk.length;
@@ -81,11 +81,7 @@ function unpackedSize(zip: ZipFile, entry: Entry, before: number): Promise<numbe
       });
       stream.on('end', () => resolve(bytes));
       // yauzl reports a file that unpacks to more or less than its directory says as an error.
-      stream.on('error', () => reject(damaged()));
+      stream.on('error', () => reject(damagedWorkbook()));
     });
   });
-}
-
-function damaged(): ValidationError {
-  return new ValidationError('The .xlsx file could not be opened: it may be damaged or not really an Excel workbook. Save it again from Excel and retry.');
 }

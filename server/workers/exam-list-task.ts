@@ -1,5 +1,6 @@
 import { parseExamTable, type ExamListResult } from '../../shared/exam-list';
 import { HttpError } from '../errors';
+import type { ErrorCode } from '../../shared/api/errors';
 import { readExamFile } from '../services/exam-file';
 
 /** What the worker needs to read and check an uploaded day list. */
@@ -15,7 +16,7 @@ export interface ExamListTask {
 /** The rows of a read file (or its problems), or the refusal to rethrow on the main thread. */
 export type ExamListTaskResult =
   | { ok: true; parsed: ExamListResult; table: string[][] }
-  | { ok: false; refusal: { status: number; code: string; message: string; details?: unknown; extra?: Record<string, unknown> } };
+  | { ok: false; refusal: { status: number; code: ErrorCode; message: string; details?: unknown; extra?: Record<string, unknown> } };
 
 const PREVIEW_TABLE_ROWS = 1000;
 

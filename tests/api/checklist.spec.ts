@@ -55,6 +55,7 @@ describe('the turnover checklist', () => {
     const again = await tech.post(`/api/exams/${await examId(h, 'C-1')}/finished`, {});
     expect(again.status).toBe(409);
     expect(again.body.error.message).toMatch(/already recorded at 08:32/);
+    expect(again.body.error).toMatchObject({ code: 'already_done', details: { at: local('08:32') } });
   });
 
   it('refuses a step on a still-wet surface without a reason (422 naming until when), and logs it with one', async () => {
@@ -66,7 +67,7 @@ describe('the turnover checklist', () => {
     expect(refused.status).toBe(422);
     // table: 2 min label contact (standard wipe) + 2 min dry from the 08:30 tick
     expect(refused.body.error.message).toMatch(/"Table top and rails" stays wet until 08:34:00/);
-    expect(refused.body.error.details.wetUntil).toBe(local('08:34'));
+    expect(refused.body.error).toMatchObject({ code: 'surface_wet', details: { wet: ['table'], wetUntil: local('08:34') } });
 
     const early = await tick(c, 'linen', { earlyReason: 'Sheet laid on the dry end only' });
     expect(early.status).toBe(200);
@@ -82,8 +83,10 @@ describe('the turnover checklist', () => {
     const first = await tick(c, 'bore');
     expect(first.status).toBe(422);
     expect(first.body.error.message).toMatch(/Tick "Patient out; coil, pads and linen off" first/);
+    expect(first.body.error).toMatchObject({ code: 'steps_missing', details: { missing: ['clear'] } });
     expect((await tick(c, 'clear')).status).toBe(200);
-    expect((await tick(c, 'clear')).status).toBe(409);
+    const twice = await tick(c, 'clear');
+    expect([twice.status, twice.body.error.code]).toEqual([409, 'already_done']);
     expect((await tick(c, 'no-such-step')).status).toBe(404);
   });
 
@@ -114,6 +117,7 @@ describe('the turnover checklist', () => {
     await tick(c, 'clear');
     const refused = await tech.post(`/api/turnovers/${c.turnoverId}/complete`, {});
     expect(refused.status).toBe(422);
+    expect(refused.body.error.code).toBe('steps_missing');
     expect(refused.body.error.details.missing).toEqual(expect.arrayContaining(['bore', 'table', 'hygiene']));
     expect(refused.body.error.details.missing).not.toContain('clear');
 
@@ -122,14 +126,17 @@ describe('the turnover checklist', () => {
     const wet = await tech.post(`/api/turnovers/${c.turnoverId}/complete`, {});
     expect(wet.status).toBe(422);
     expect(wet.body.error.message).toMatch(/stays wet until/);
+    expect(wet.body.error.code).toBe('surface_wet');
     expect(wet.body.error.details.wet.length).toBeGreaterThan(0);
     h.clock.advance(15); // every surface dry: the demo waits are at most 4 min contact + 4 min dry
     const ok = await tech.post(`/api/turnovers/${c.turnoverId}/complete`, {});
     expect(ok.status).toBe(200);
     expect(ok.body.completedAt).toBe(ok.body.now);
     expect(ok.body.completedAt).not.toBeNull();
-    expect((await tech.post(`/api/turnovers/${done.turnoverId}/complete`, {})).status).toBe(409);
-    expect((await tick(done, 'clear')).status).toBe(409);
+    const closed = await tech.post(`/api/turnovers/${done.turnoverId}/complete`, {});
+    expect(closed.status).toBe(409);
+    expect(closed.body.error).toMatchObject({ code: 'turnover_complete', details: { completedAt: ok.body.completedAt } });
+    expect((await tick(done, 'clear')).body.error.code).toBe('turnover_complete');
   });
 
   it('makes the room ready during an air hold only with an override reason, which is logged', async () => {
@@ -138,7 +145,9 @@ describe('the turnover checklist', () => {
     // CDC 2003, Appendix B, Table B.1: 12 ACH → 35 min for 99.9 % removal; ours is ceil(60·ln(1000)/12) = 35
     expect(c).toMatchObject({ cleanType: 'terminal', airHoldMinutes: 35, airHoldUntil: local('11:05') });
     await tickAll(h, tech, c);
-    expect((await tech.post(`/api/turnovers/${c.turnoverId}/complete`, {})).status).toBe(422);
+    const holding = await tech.post(`/api/turnovers/${c.turnoverId}/complete`, {});
+    expect(holding.status).toBe(422);
+    expect(holding.body.error).toMatchObject({ code: 'air_hold', details: { until: local('11:05'), airHoldUntil: local('11:05') } });
     const res = await tech.post(`/api/turnovers/${c.turnoverId}/complete`, { overrideReason: 'Room has 15 ACH since the new unit was fitted' });
     expect(res.status).toBe(200);
     const { entries } = (await tech.get(`/api/log?date=${DAY}`)).body;

@@ -71,6 +71,7 @@ describe('exam-list import API', () => {
     it('random bytes → 415', async () => {
       const res = await scheduler.upload(importUrl(), crypto.randomBytes(4096), 'day.csv');
       expect(res.status).toBe(415);
+      expect(res.body.error.code).toBe('file_refused');
       expect(res.body.error.message).toMatch(/CSV|xlsx/i);
     });
 
@@ -86,8 +87,10 @@ describe('exam-list import API', () => {
     });
 
     it('an empty file and a header-only file → 422', async () => {
-      expect((await scheduler.upload(importUrl(), '', 'day.csv')).status).toBe(422);
-      expect((await scheduler.upload(importUrl(), 'accession,room,start,duration_min,procedure\r\n', 'day.csv')).status).toBe(422);
+      for (const text of ['', 'accession,room,start,duration_min,procedure\r\n']) {
+        const res = await scheduler.upload(importUrl(), text, 'day.csv');
+        expect([res.status, res.body.error.code]).toEqual([422, 'file_refused']);
+      }
     });
 
     it('a wrong header → 422 naming the missing column', async () => {
@@ -105,6 +108,7 @@ describe('exam-list import API', () => {
       });
       const res = await scheduler.upload(importUrl(), csv, 'day.csv');
       expect(res.status).toBe(422);
+      expect(res.body.error.code).toBe('validation_failed');
       const cells = res.body.errors.map((e: { row: number; column: string }) => `${e.row}:${e.column}`);
       expect(cells).toEqual(expect.arrayContaining(['3:accession', '4:room', '5:start', '6:duration_min']));
       expect(res.body.error.message).toMatch(/not imported/);

@@ -55,6 +55,7 @@ describe('moving slots, staffing, fixes, undo and the live stream', () => {
     const res = await charge.patch(`/api/exams/${m2.id}`, { start: t('09:00'), version: m2.version, reason: 'drag' });
     expect(res.status).toBe(409);
     expect(res.body.error.message).toMatch(/Noor Haddad changed it at/);
+    expect(res.body.error).toMatchObject({ code: 'stale_version', details: { currentVersion: m2.version + 1, changedBy: { username: 'scheduler', displayName: 'Noor Haddad' } } });
     expect((await exam('M-2')).start).toBe(t('08:50'));
   });
 
@@ -64,8 +65,10 @@ describe('moving slots, staffing, fixes, undo and the live stream', () => {
     const other = await scheduler.patch(`/api/exams/${m2.id}`, { roomId: ct.id, version: m2.version });
     expect(other.status).toBe(422);
     expect(other.body.error.message).toMatch(/MR exam; CT 1 is a CT room/);
+    expect(other.body.error).toMatchObject({ code: 'other_modality', details: { examModality: 'MR', roomModality: 'CT' } });
     const late = await scheduler.patch(`/api/exams/${m2.id}`, { start: `${DAY}T23:50:00-06:00`, version: m2.version });
     expect(late.status).toBe(422);
+    expect(late.body.error).toMatchObject({ code: 'outside_day', details: { day: DAY, timezone: 'America/Chicago' } });
     expect((await exam('M-2')).version).toBe(m2.version);
   });
 
@@ -97,7 +100,20 @@ describe('moving slots, staffing, fixes, undo and the live stream', () => {
     const history = (await charge.get(`/api/days/${DAY}/history`)).body.changes;
     expect(history.map((c: { reason: string }) => c.reason)).toEqual(['redo', 'undo', 'keyboard']);
     expect(history[2]).toMatchObject({ username: 'scheduler', changes: [{ type: 'move', from: { start: t('08:40') }, to: { start: t('09:00') } }] });
-    expect((await charge.post(`/api/days/${DAY}/redo`)).status).toBe(409); // charge has nothing of its own to redo
+    const nothing = await charge.post(`/api/days/${DAY}/redo`); // charge has nothing of its own to redo
+    expect([nothing.status, nothing.body.error.code]).toEqual([409, 'nothing_to_redo']);
+    const none = await charge.post(`/api/days/${DAY}/undo`);
+    expect([none.status, none.body.error.code]).toEqual([409, 'nothing_to_undo']);
+  });
+
+  it('refuses to undo a move that someone has changed since (409 changed_since), and keeps their move', async () => {
+    const m2 = await exam('M-2');
+    await scheduler.patch(`/api/exams/${m2.id}`, { start: t('09:00'), version: m2.version });
+    await charge.patch(`/api/exams/${m2.id}`, { start: t('09:10'), version: m2.version + 1 });
+    const undo = await scheduler.post(`/api/days/${DAY}/undo`);
+    expect(undo.status).toBe(409);
+    expect(undo.body.error).toMatchObject({ code: 'changed_since', details: { accession: 'M-2', examId: m2.id } });
+    expect((await exam('M-2')).start).toBe(t('09:10'));
   });
 
   it('adds a helper to one turnover and the required time drops (two people: 14 min, brief worked value)', async () => {
@@ -124,7 +140,8 @@ describe('moving slots, staffing, fixes, undo and the live stream', () => {
     expect(history).toHaveLength(1);
     expect(history[0].reason).toBe('suggestion');
     // the same fix again is stale
-    expect((await charge.post(`/api/days/${DAY}/fixes/apply`, { fixId: push.id })).status).toBe(409);
+    const stale = await charge.post(`/api/days/${DAY}/fixes/apply`, { fixId: push.id });
+    expect([stale.status, stale.body.error.code]).toEqual([409, 'fix_stale']);
     expect((await scheduler.post(`/api/days/${DAY}/fixes/apply`, { fixId: push.id })).status).toBe(403);
   });
 
