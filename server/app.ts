@@ -14,6 +14,7 @@ import { systemClock } from './clock';
 import { NotFoundError } from './errors';
 import { errorHandler } from './middleware/error-handler';
 import { xsrfTokens } from './middleware/xsrf';
+import { passwordGate } from './middleware/password-gate';
 import { authenticate, findActiveUser } from './services/users';
 import { authRoutes, type SignInLimits } from './routes/auth';
 import { roomRoutes } from './routes/rooms';
@@ -127,6 +128,7 @@ export function createApp(deps: AppDeps): Express {
   api.use(passport.initialize());
   api.use(passport.session());
   api.use(xsrf.middleware);
+  api.use(passwordGate);
 
   api.get('/health', (_req, res) => {
     res.json({ status: 'ok', demo: Boolean(deps.demo), time: clock.now().toISOString() });
@@ -145,7 +147,7 @@ export function createApp(deps: AppDeps): Express {
     }),
   );
   api.use('/rooms', roomRoutes({ db: deps.db, clock, events }));
-  api.use('/settings', settingsRoutes({ db: deps.db }));
+  api.use('/settings', settingsRoutes({ db: deps.db, clock }));
   api.use(apiRoutes({ db: deps.db, clock, events, workers, fixesPool }));
   api.use(() => {
     throw new NotFoundError('No such API route.');

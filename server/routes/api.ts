@@ -12,6 +12,11 @@ import { examProgressRoutes } from './exam-progress';
 import { logRoutes } from './log';
 import { shiftTaskRoutes } from './shift-tasks';
 import { turnoverRoutes } from './turnovers';
+import { auditRoutes } from './audit';
+import { equipmentRoutes } from './equipment';
+import { profileRoutes } from './profile';
+import { roomSetupRoutes } from './room-setup';
+import { userRoutes } from './users';
 
 /**
  * Day-plan routes: days (plan, import, history, fixes, events) and exams (moves, staffing);
@@ -26,5 +31,11 @@ export function apiRoutes(deps: { db: Knex; clock: Clock; events: DayEvents; wor
   router.use('/turnovers', turnoverRoutes(deps));
   router.use('/shift-tasks', shiftTaskRoutes(deps));
   router.use(logRoutes(deps));
+  // Setup (admin) and each user's own profile
+  router.use('/rooms', roomSetupRoutes(deps));
+  router.use('/equipment', equipmentRoutes(deps));
+  router.use('/users', userRoutes(deps));
+  router.use('/profile', profileRoutes(deps));
+  router.use('/audit', auditRoutes(deps));
   return router;
 }

@@ -36,7 +36,7 @@ export interface AuthDeps {
 }
 
 function publicUser(user: UserRecord) {
-  return { username: user.username, role: user.role, displayName: user.displayName };
+  return { username: user.username, role: user.role, displayName: user.displayName, mustChangePassword: user.mustChangePassword };
 }
 
 /** Usernames match case-insensitively at sign-in, so they are throttled that way too. */

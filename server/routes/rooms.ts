@@ -19,7 +19,7 @@ export function roomRoutes(deps: { db: Knex; clock: Clock; events: DayEvents }):
 
   router.post('/', requireRole('admin'), async (req, res) => {
     const input = parseInput(roomInputSchema, req.body, 'room');
-    res.status(201).json({ room: await createRoom(deps.db, input, deps.clock.now()) });
+    res.status(201).json({ room: await createRoom(deps.db, input, deps.clock.now(), req.user!) });
   });
 
   /** The room's usual people on a turnover; every open day plan recomputes. */

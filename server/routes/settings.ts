@@ -5,10 +5,11 @@ import { settingsInputSchema } from '../../shared/api/settings';
 import { requireRole, requireUser } from '../middleware/roles';
 import { readSettings, writeSettings } from '../services/settings';
 import { parseInput } from '../validate';
+import type { Clock } from '../clock';
 
 const schema = settingsInputSchema((zone) => IANAZone.isValidZone(zone));
 
-export function settingsRoutes(deps: { db: Knex }): Router {
+export function settingsRoutes(deps: { db: Knex; clock: Clock }): Router {
   const router = Router();
 
   router.get('/', requireUser, async (_req, res) => {
@@ -17,7 +18,7 @@ export function settingsRoutes(deps: { db: Knex }): Router {
 
   router.put('/', requireRole('admin'), async (req, res) => {
     const input = parseInput(schema, req.body, 'settings');
-    res.json({ settings: await writeSettings(deps.db, input) });
+    res.json({ settings: await writeSettings(deps.db, input, req.user!, deps.clock.now()) });
   });
 
   return router;

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import type { Room, RoomFields } from '../../shared/api/rooms';
 import { ValidationError } from '../errors';
+import { recordAudit, type Actor } from './audit';
 import { addDefaultShiftTasks } from './shift-tasks';
 
 interface RoomRow {
@@ -30,7 +31,8 @@ export async function listRooms(db: Knex): Promise<Room[]> {
   return rows.map(toRoom);
 }
 
-export async function createRoom(db: Knex, room: RoomFields, now: Date): Promise<Room> {
+/** `by`: who made it in Setup (recorded in the setup audit); seeds leave it out. */
+export async function createRoom(db: Knex, room: RoomFields, now: Date, by?: Actor): Promise<Room> {
   const clash = await db('rooms').whereRaw('lower(name) = lower(?)', [room.name]).first();
   if (clash) throw new ValidationError(`A room named "${room.name}" already exists.`, { problems: [{ field: 'name', message: 'already exists' }] });
   const [{ max }] = await db('rooms').max({ max: 'sort_order' });
@@ -47,6 +49,10 @@ export async function createRoom(db: Knex, room: RoomFields, now: Date): Promise
     });
     // every new room starts with our default shift tasks (wipe-downs, scanner QA, deep clean)
     await addDefaultShiftTasks(trx, roomId, room, now);
+    if (by) {
+      const { name, modality, airChangesPerHour, staff, opensAt, closesAt } = room;
+      await recordAudit(trx, by, { area: 'room', action: 'created', subject: name, before: null, after: { name, modality, airChangesPerHour, staff, opensAt, closesAt } }, now);
+    }
     return roomId;
   });
   return toRoom((await db<RoomRow>('rooms').where({ id }).first())!);

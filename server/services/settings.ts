@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { DEFAULT_SETTINGS, type SiteSettings } from '../../shared/api/settings';
+import { changedFields, recordAudit, type Actor } from './audit';
 
 export async function readSettings(db: Knex): Promise<SiteSettings> {
   const rows: { key: string; value: string }[] = await db('settings').select('key', 'value');
@@ -7,11 +8,17 @@ export async function readSettings(db: Knex): Promise<SiteSettings> {
   return { ...DEFAULT_SETTINGS, ...stored };
 }
 
-export async function writeSettings(db: Knex, changes: Partial<SiteSettings>): Promise<SiteSettings> {
+/** `by`: who changed them in Setup (one setup-audit row with what changed); seeds leave it out. */
+export async function writeSettings(db: Knex, changes: Partial<SiteSettings>, by?: Actor, now = new Date()): Promise<SiteSettings> {
   await db.transaction(async (trx) => {
+    const before = by ? await readSettings(trx) : undefined;
     for (const [key, value] of Object.entries(changes)) {
       if (value === undefined) continue;
       await trx('settings').insert({ key, value: JSON.stringify(value) }).onConflict('key').merge();
+    }
+    if (by && before) {
+      const diff = changedFields(before, await readSettings(trx));
+      if (Object.keys(diff.after).length > 0) await recordAudit(trx, by, { area: 'site', action: 'changed', subject: 'Site', ...diff }, now);
     }
   });
   return readSettings(db);

@@ -7,19 +7,24 @@ export interface UserRecord {
   username: string;
   displayName: string;
   role: Role;
+  /** A reset password: the user must choose their own before any other call (password gate). */
+  mustChangePassword?: boolean;
 }
 
-interface UserRow {
+export interface UserRow {
   id: number;
   username: string;
   display_name: string;
   password_hash: string;
   role: string;
   active: number | boolean;
+  email: string | null;
+  must_change_password: number | boolean;
+  created_at: string;
 }
 
 function toUser(row: UserRow): UserRecord {
-  return { id: row.id, username: row.username, displayName: row.display_name, role: row.role as Role };
+  return { id: row.id, username: row.username, displayName: row.display_name, role: row.role as Role, mustChangePassword: Boolean(row.must_change_password) };
 }
 
 export async function findActiveUser(db: Knex, id: number): Promise<UserRecord | undefined> {
@@ -36,7 +41,7 @@ export async function authenticate(db: Knex, username: string, password: string)
 
 export async function createUser(
   db: Knex,
-  user: { username: string; password: string; role: Role; displayName?: string },
+  user: { username: string; password: string; role: Role; displayName?: string; email?: string | null; mustChangePassword?: boolean },
   now: Date,
 ): Promise<number> {
   if (!ROLES.includes(user.role)) throw new Error(`Unknown role ${user.role}`);
@@ -46,6 +51,8 @@ export async function createUser(
     password_hash: await hashPassword(user.password),
     role: user.role,
     active: true,
+    email: user.email ?? null,
+    must_change_password: user.mustChangePassword ?? false,
     created_at: now.toISOString(),
   });
   return id as number;

@@ -6,6 +6,8 @@ export interface SessionUser {
   username: string;
   role: Role;
   displayName?: string;
+  /** A reset password: the client sends the user to their profile to choose their own. */
+  mustChangePassword?: boolean;
 }
 
 export interface LoginResponse {

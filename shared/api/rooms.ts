@@ -29,3 +29,9 @@ export interface Room {
   opensAt: string;
   closesAt: string;
 }
+
+/** A room as Setup lists it: retired rooms too (they leave the board and plan, never the log). */
+export interface SetupRoom extends Room {
+  retired: boolean;
+  retiredAt: string | null;
+}

@@ -4,12 +4,15 @@ export interface SiteSettings {
   siteName: string;
   timezone: string;
   snugMarginMinutes: number;
+  /** The From address of notices Turnwise e-mails (empty: none set up yet). */
+  noticesSender: string;
 }
 
 export const DEFAULT_SETTINGS: SiteSettings = {
   siteName: 'Imaging department',
   timezone: 'UTC',
   snugMarginMinutes: 3,
+  noticesSender: '',
 };
 
 /** The zone check is passed in so this stays free of luxon for callers that do not need it. */
@@ -18,5 +21,6 @@ export function settingsInputSchema(isValidZone: (zone: string) => boolean) {
     siteName: z.string().trim().min(1).max(80).optional(),
     timezone: z.string().refine(isValidZone, 'not an IANA time zone (e.g. America/Chicago)'),
     snugMarginMinutes: z.number().int().min(0).max(60),
+    noticesSender: z.union([z.literal(''), z.string().trim().max(254, 'use at most 254 characters').pipe(z.email('not an e-mail address'))]).optional(),
   });
 }

@@ -4,6 +4,10 @@ import type { Client, Harness } from './harness';
 import { exampleCsv } from '../fixtures/exam-lists';
 import { loadChecklist } from '../../server/services/checklist';
 import { finishExam } from '../../server/services/turnovers';
+import { createRoom } from '../../server/services/rooms';
+import { createUser } from '../../server/services/users';
+import { roomInputSchema } from '../../shared/api/rooms';
+import { DEMO_PASSWORD } from '../../seeds/support/demo-accounts';
 
 export interface RouteCase {
   method: 'get' | 'post' | 'put' | 'patch' | 'delete';
@@ -149,6 +153,47 @@ export const ROUTE_TABLE: RouteCase[] = [
     prepare: async (h) => (await h.db('shift_tasks').where({ room_id: 1, key: 'wipe-start' }).first('id')).id,
     send: (c, id) => c.post(`/api/shift-tasks/${id as number}/done`, { due: '2027-03-10T07:00:00-06:00' }),
   },
+  // Setup (admin) and the profile (every role)
+  { method: 'get', path: '/api/rooms/setup', allowed: ['admin'], send: (c) => c.get('/api/rooms/setup') },
+  {
+    method: 'put',
+    path: '/api/rooms/:id',
+    allowed: ['admin'],
+    prepare: async (h) => (await h.db('rooms').where({ id: 1 }).first()) as Record<string, unknown>,
+    // the room as it is: the role is checked, nothing changes
+    send: (c, r) => {
+      const row = r as { name: string; modality: string; air_changes_per_hour: number; staff: number; opens_at: string; closes_at: string };
+      return c.put('/api/rooms/1', { name: row.name, modality: row.modality, airChangesPerHour: row.air_changes_per_hour, staff: row.staff, opensAt: row.opens_at, closesAt: row.closes_at });
+    },
+  },
+  { method: 'post', path: '/api/rooms/:id/retire', allowed: ['admin'], prepare: freshRoom, send: (c, id) => c.post(`/api/rooms/${id as number}/retire`, {}) },
+  { method: 'post', path: '/api/rooms/:id/restore', allowed: ['admin'], prepare: freshRoom, send: (c, id) => c.post(`/api/rooms/${id as number}/restore`, {}) },
+  { method: 'get', path: '/api/rooms/:id/kit', allowed: 'signed-in', send: (c) => c.get('/api/rooms/1/kit') },
+  { method: 'put', path: '/api/rooms/:id/kit', allowed: ['admin'], prepare: freshRoom, send: (c, id) => c.put(`/api/rooms/${id as number}/kit`, { equipmentIds: [] }) },
+  { method: 'get', path: '/api/equipment', allowed: ['admin'], send: (c) => c.get('/api/equipment') },
+  { method: 'post', path: '/api/equipment', allowed: ['admin'], send: (c) => c.post('/api/equipment', { name: 'Matrix mop', kind: 'mop', marking: 'mr-safe' }) },
+  { method: 'put', path: '/api/equipment/:id', allowed: ['admin'], prepare: freshItem, send: (c, id) => c.put(`/api/equipment/${id as number}`, { name: 'Matrix bucket', kind: 'bucket', marking: 'mr-safe' }) },
+  { method: 'post', path: '/api/equipment/:id/retire', allowed: ['admin'], prepare: freshItem, send: (c, id) => c.post(`/api/equipment/${id as number}/retire`, {}) },
+  { method: 'get', path: '/api/users', allowed: ['admin'], send: (c) => c.get('/api/users') },
+  {
+    method: 'post',
+    path: '/api/users',
+    allowed: ['admin'],
+    send: (c) => c.post('/api/users', { username: `matrix${++counter}`, displayName: 'Matrix user', email: 'matrix@example.org', role: 'tech', password: 'matrix-password-1' }),
+  },
+  { method: 'patch', path: '/api/users/:id', allowed: ['admin'], prepare: freshUser, send: (c, id) => c.patch(`/api/users/${id as number}`, { role: 'scheduler' }) },
+  { method: 'post', path: '/api/users/:id/password', allowed: ['admin'], prepare: freshUser, send: (c, id) => c.post(`/api/users/${id as number}/password`, { password: 'matrix-password-2' }) },
+  { method: 'post', path: '/api/users/:id/deactivate', allowed: ['admin'], prepare: freshUser, send: (c, id) => c.post(`/api/users/${id as number}/deactivate`, {}) },
+  { method: 'post', path: '/api/users/:id/reactivate', allowed: ['admin'], prepare: freshUser, send: (c, id) => c.post(`/api/users/${id as number}/reactivate`, {}) },
+  { method: 'get', path: '/api/profile', allowed: 'signed-in', send: (c) => c.get('/api/profile') },
+  {
+    method: 'put',
+    path: '/api/profile/password',
+    allowed: 'signed-in',
+    // each role's demo account changes its password once; its matrix session stays signed in
+    send: (c) => c.put('/api/profile/password', { currentPassword: DEMO_PASSWORD, newPassword: 'matrix-password-3' }),
+  },
+  { method: 'get', path: '/api/audit', allowed: ['admin'], send: (c) => c.get('/api/audit?limit=5') },
 ];
 
 interface Exam {
@@ -181,4 +226,18 @@ async function openTurnover(h: Harness): Promise<OpenTurnover> {
   const ref = await finishExam(h.db, await unfinishedExam(h), { id: user.id, username: user.username, displayName: user.display_name, role: user.role }, now);
   const checklist = await loadChecklist(h.db, ref.roomId, ref.day, now, ref.turnoverId);
   return { id: ref.turnoverId, firstStep: checklist.steps[0]!.key };
+}
+
+/** A room made for one check (retire, restore, kit), so checks never share state. */
+async function freshRoom(h: Harness): Promise<number> {
+  return (await createRoom(h.db, roomInputSchema.parse({ name: unique(), modality: 'CT', airChangesPerHour: 12 }), h.clock.now())).id;
+}
+
+async function freshItem(h: Harness): Promise<number> {
+  const [id] = await h.db('equipment').insert({ name: `Matrix item ${++counter}`, kind: 'cart', marking: 'mr-safe', created_at: h.clock.now().toISOString() });
+  return id as number;
+}
+
+async function freshUser(h: Harness): Promise<number> {
+  return createUser(h.db, { username: `matrix-user-${++counter}`, password: 'matrix-password-0', role: 'tech', displayName: 'Matrix user' }, h.clock.now());
 }
