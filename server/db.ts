@@ -3,7 +3,6 @@ import fs from 'node:fs';
 import knex, { Knex } from 'knex';
 
 export const MIGRATIONS_DIR = path.resolve(__dirname, '..', 'migrations');
-export const SEEDS_DIR = path.resolve(__dirname, '..', 'seeds');
 
 /** Migration settings shared by the app, the CLI scripts and the tests. */
 export const migrationConfig: Knex.MigratorConfig = {

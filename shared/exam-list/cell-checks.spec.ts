@@ -1,5 +1,4 @@
 import { CellProblem, examRowChecks } from './cell-checks';
-import { examRowSchema } from './row-schema';
 
 const OPTIONS = { date: '2027-03-15', timezone: 'America/Chicago', roomNames: ['MR 1', 'CT 1'] };
 const problem = (result: unknown) => (result instanceof CellProblem ? result.message : undefined);
@@ -32,21 +31,5 @@ describe('examRowChecks', () => {
     expect(checks.room('ct 1')).toBe(checks.room('ct 1'));
     expect(problem(checks.start('25:00'))).toBe(problem(checks.start('25:00')));
     expect(problem(checks.start('25:00'))).toContain('not a time of day');
-  });
-});
-
-describe('examRowSchema', () => {
-  it('reports the same messages as the checks, one issue per bad column with the column as path', () => {
-    const result = examRowSchema(OPTIONS).safeParse({
-      accession: '', room: 'MR 9', start: '08:00', duration_min: '4', procedure: 'MR knee',
-      coil: '', precaution: '', mobility: '', contrast: 'maybe', notes: '',
-    });
-    expect(result.success).toBe(false);
-    expect(result.error!.issues.map((issue) => [issue.path[0], issue.message])).toEqual([
-      ['accession', 'accession is required.'],
-      ['room', 'Room "MR 9" is not set up. Known rooms: CT 1, MR 1.'],
-      ['duration_min', 'duration_min must be whole minutes from 5 to 480; got "4".'],
-      ['contrast', 'contrast must be yes or no; got "maybe".'],
-    ]);
   });
 });

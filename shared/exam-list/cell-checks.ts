@@ -46,8 +46,8 @@ export interface ExamRowChecks {
 }
 
 /**
- * Builds the column checks for one file: the rules behind both {@link parseExamTable} and
- * {@link examRowSchema}, so the two cannot word a problem differently.
+ * Builds the column checks for one file: the rules behind {@link parseExamTable}, each
+ * remembering its answers (a day list repeats its rooms, coils and times).
  *
  * @example
  * const checks = examRowChecks({ date: '2027-03-15', timezone: 'America/Chicago', roomNames: ['MR 1'] });

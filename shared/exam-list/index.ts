@@ -23,5 +23,5 @@ export { columnLetter, readHeader, type ExamListHeader } from './header';
 export type { ExamListIssue, ExamListOptions, ExamListResult, ExamListRow } from './model';
 export { EXAM_FILE_LIMITS } from './file-limits';
 export { parseExamTable } from './parse-rows';
-export { examRowSchema, type ExamListCells } from './row-schema';
+export type { ExamListCells } from './row-cells';
 export { resolveStart, type StartResolution } from './start-time';

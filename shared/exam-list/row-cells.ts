@@ -1,7 +1,16 @@
 /** How one data row's cells are read before their values are checked. */
 import { columnLetter, type ExamListHeader } from './header';
+import type { ExamListColumn } from './columns';
 import type { ExamListIssue } from './model';
-import type { ExamListCells } from './row-schema';
+
+/**
+ * One data row as trimmed text per column; a column the file lacks is `''`.
+ *
+ * @example
+ * const cells: ExamListCells = { accession: 'A1', room: 'MR 1', start: '08:00', duration_min: '30',
+ *   procedure: 'MR knee', coil: '', precaution: '', mobility: '', contrast: '', notes: '' };
+ */
+export type ExamListCells = Record<ExamListColumn, string>;
 
 /**
  * A data row's cells trimmed (a missing cell as `''`), or null for a blank row.
