@@ -29,6 +29,13 @@ export const routes: Routes = [
       screenRoute('reports', () => import('./features/reports/reports.routes')),
       screenRoute('setup', () => import('./features/setup/setup.routes')),
       {
+        // every role's own account (the user menu); not a screen of the navigation
+        path: 'profile',
+        title: 'Your profile',
+        canActivate: [authGuard],
+        loadChildren: () => import('./features/profile/profile.routes'),
+      },
+      {
         path: 'not-available',
         title: 'Not available',
         loadComponent: () => import('./core/layout/not-available').then((m) => m.NotAvailable),

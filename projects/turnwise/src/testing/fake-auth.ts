@@ -12,6 +12,7 @@ export function fakeAuth(user: SessionUser | null) {
     clear: jest.fn(() => current.set(null)),
     logout: jest.fn(async () => current.set(null)),
     signInAs: (next: SessionUser | null) => current.set(next),
+    passwordChanged: jest.fn(() => current.update((u) => (u ? { ...u, mustChangePassword: false } : u))),
   };
   return { fake, provider: { provide: AuthService, useValue: fake } };
 }

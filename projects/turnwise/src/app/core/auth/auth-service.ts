@@ -48,6 +48,12 @@ export class AuthService {
     }
   }
 
+  /** The user chose their own password: the server's password gate has opened, so the screens may load. */
+  passwordChanged(): void {
+    const user = this.current();
+    if (user) this.settle({ ...user, mustChangePassword: false });
+  }
+
   /** Forgets the user locally, e.g. after the server answered 401 because the session expired. */
   clear(): void {
     this.settle(null);

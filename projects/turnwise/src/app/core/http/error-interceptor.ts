@@ -31,6 +31,9 @@ export const errorInterceptor: HttpInterceptorFn = (request, next) => {
         if (!router.url.startsWith('/sign-in')) {
           void router.navigate(['/sign-in'], { queryParams: { returnUrl: router.url } });
         }
+      } else if (apiError.code === 'password_change_required') {
+        // the session is fine, but a reset password must be changed first: the profile says so
+        if (!router.url.startsWith('/profile')) void router.navigateByUrl('/profile');
       } else if (!showsOwnErrors) {
         notice.show(apiError.message);
       }

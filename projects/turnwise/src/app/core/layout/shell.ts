@@ -3,6 +3,7 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
+import { MatMenuModule } from '@angular/material/menu';
 import { MatSidenavModule } from '@angular/material/sidenav';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { Router, RouterLink, RouterOutlet } from '@angular/router';
@@ -23,7 +24,7 @@ const NARROW = '(max-width: 999.98px)';
 /** The signed-in frame: toolbar, screen navigation and the current screen. */
 @Component({
   selector: 'tw-shell',
-  imports: [MatToolbarModule, MatSidenavModule, MatButtonModule, MatIconModule, RouterLink, RouterOutlet, Logo, Nav],
+  imports: [MatToolbarModule, MatSidenavModule, MatButtonModule, MatIconModule, MatMenuModule, RouterLink, RouterOutlet, Logo, Nav],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './shell.html',
   styleUrl: './shell.scss',

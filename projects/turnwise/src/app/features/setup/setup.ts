@@ -1,12 +1,48 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import { MatTabsModule } from '@angular/material/tabs';
+import { Router } from '@angular/router';
 
-/** Placeholder until the Setup screen is built. */
+import { AuditTab } from './audit-tab';
+import { EquipmentTab } from './equipment-tab';
+import { RoomsTab } from './rooms-tab';
+import { SiteTab } from './site-tab';
+import { UsersTab } from './users-tab';
+
+/** The tabs in order; `?tab=` names one so a link (or a reload) opens it. */
+export const SETUP_TABS = ['rooms', 'equipment', 'users', 'site', 'audit', 'products', 'protocols', 'shift-tasks'] as const;
+export type SetupTabName = (typeof SETUP_TABS)[number];
+
+/** Setup (admin): the department's rooms, equipment, people and site, and the audit of every change. */
 @Component({
   selector: 'tw-setup',
+  imports: [MatTabsModule, RoomsTab, EquipmentTab, UsersTab, SiteTab, AuditTab],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <h1>Setup</h1>
-    <p>Not built yet. This screen will show: rooms, disinfectant products, protocol steps, equipment, users and site settings.</p>
+    <mat-tab-group [selectedIndex]="index()" (selectedIndexChange)="open($event)" mat-stretch-tabs="false" animationDuration="0ms">
+      <mat-tab label="Rooms"><ng-template matTabContent><tw-rooms-tab /></ng-template></mat-tab>
+      <mat-tab label="Equipment"><ng-template matTabContent><tw-equipment-tab /></ng-template></mat-tab>
+      <mat-tab label="Users"><ng-template matTabContent><tw-users-tab /></ng-template></mat-tab>
+      <mat-tab label="Site"><ng-template matTabContent><tw-site-tab /></ng-template></mat-tab>
+      <mat-tab label="Audit"><ng-template matTabContent><tw-audit-tab /></ng-template></mat-tab>
+      <mat-tab label="Products"><ng-template matTabContent><p class="later">Disinfectant products are set up here in a later release.</p></ng-template></mat-tab>
+      <mat-tab label="Protocols"><ng-template matTabContent><p class="later">Protocol steps are set up here in a later release.</p></ng-template></mat-tab>
+      <mat-tab label="Shift tasks"><ng-template matTabContent><p class="later">Shift tasks are set up here in a later release.</p></ng-template></mat-tab>
+    </mat-tab-group>
+  `,
+  styles: `
+    :host { display: block; }
+    h1 { margin: 0 0 8px; }
+    .later { padding-top: 16px; }
   `,
 })
-export class Setup {}
+export class Setup {
+  private readonly router = inject(Router);
+  /** From the query string (`?tab=users`). */
+  readonly tab = input<string>();
+  protected readonly index = computed(() => Math.max(0, SETUP_TABS.indexOf((this.tab() ?? 'rooms') as SetupTabName)));
+
+  protected open(index: number): void {
+    void this.router.navigate([], { queryParams: { tab: SETUP_TABS[index] }, replaceUrl: true });
+  }
+}

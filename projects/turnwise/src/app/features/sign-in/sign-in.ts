@@ -73,6 +73,8 @@ export class SignIn {
   }
 
   private destination(user: SessionUser): string {
+    // a reset password is changed before anything else (the server refuses the rest)
+    if (user.mustChangePassword) return '/profile';
     const wanted = this.returnUrl();
     // Only same-site paths: a crafted link must not send a freshly signed-in user elsewhere.
     const safe = wanted && wanted.startsWith('/') && !wanted.startsWith('//') && !wanted.startsWith('/sign-in');

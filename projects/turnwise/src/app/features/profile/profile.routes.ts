@@ -1,0 +1,5 @@
+import { Routes } from '@angular/router';
+
+import { Profile } from './profile';
+
+export default [{ path: '', component: Profile }] satisfies Routes;

@@ -1,0 +1,27 @@
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MAT_DIALOG_DATA, MatDialogModule } from '@angular/material/dialog';
+
+export interface ConfirmData {
+  title: string;
+  text: string;
+  confirm: string;
+}
+
+/** "Are you sure" for what cannot simply be undone from the same place (retire, deactivate). */
+@Component({
+  selector: 'tw-confirm-dialog',
+  imports: [MatDialogModule, MatButtonModule],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    <h2 mat-dialog-title>{{ data.title }}</h2>
+    <mat-dialog-content><p>{{ data.text }}</p></mat-dialog-content>
+    <mat-dialog-actions align="end">
+      <button mat-button type="button" [mat-dialog-close]="false" cdkFocusInitial>Cancel</button>
+      <button mat-flat-button type="button" [mat-dialog-close]="true">{{ data.confirm }}</button>
+    </mat-dialog-actions>
+  `,
+})
+export class ConfirmDialog {
+  protected readonly data = inject<ConfirmData>(MAT_DIALOG_DATA);
+}

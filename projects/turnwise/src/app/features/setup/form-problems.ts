@@ -1,0 +1,46 @@
+import type { AbstractControl, FormGroup } from '@angular/forms';
+
+import type { ApiError } from '@shared/api/errors';
+
+/** One field-level problem of a 422 (`details.problems`). */
+interface Problem {
+  field: string;
+  message: string;
+}
+
+/**
+ * Puts a 422's problems on the form's own fields (as the `server` error, shown by
+ * {@link fieldMessage}); returns what no field can show (another refusal, or a problem about the
+ * request as a whole), or null when every problem found its field.
+ */
+export function showProblems(form: FormGroup, error: ApiError, fieldOf: (field: string) => string = (f) => f): string | null {
+  const details = (error as { details?: { problems?: Problem[] } }).details;
+  const problems = details?.problems ?? [];
+  const unplaced: Problem[] = [];
+  for (const problem of problems) {
+    const control = form.get(fieldOf(problem.field));
+    if (!control) {
+      unplaced.push(problem);
+      continue;
+    }
+    control.setErrors({ ...control.errors, server: problem.message });
+    control.markAsTouched();
+  }
+  if (problems.length === 0 || error.code !== 'validation_failed') return error.message;
+  return unplaced.length > 0 ? unplaced.map((p) => p.message).join('; ') : null;
+}
+
+/** The message under a field: the server's words first, then the client's own checks (same rules). */
+export function fieldMessage(control: AbstractControl | null): string {
+  const errors = control?.errors;
+  if (!errors) return '';
+  if (typeof errors['server'] === 'string') return errors['server'];
+  if (errors['required']) return 'required';
+  if (errors['minlength']) return `use at least ${errors['minlength'].requiredLength} characters`;
+  if (errors['maxlength']) return `use at most ${errors['maxlength'].requiredLength} characters`;
+  if (errors['min']) return `at least ${errors['min'].min}`;
+  if (errors['max']) return `at most ${errors['max'].max}`;
+  if (errors['email']) return 'not an e-mail address';
+  if (errors['pattern']) return 'not in the expected form';
+  return 'check this value';
+}

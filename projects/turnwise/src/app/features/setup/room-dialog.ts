@@ -1,0 +1,120 @@
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+
+import { MODALITIES, type SetupRoom } from '@shared/api/rooms';
+import { action } from '../../core/state/action';
+import { CautionNote } from '../../shared/ui/caution-note';
+import { fieldMessage, showProblems } from './form-problems';
+import { SetupApi } from './setup-api';
+
+/** The staff limits of `roomInputSchema` (shared/api/rooms.ts): the API refuses the same. */
+const STAFF = { min: 1, max: 4 };
+
+/** Add or edit a room; the API's 422 problems appear under their fields. */
+@Component({
+  selector: 'tw-room-dialog',
+  imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, CautionNote],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    <h2 mat-dialog-title>{{ room ? 'Edit ' + room.name : 'Add a room' }}</h2>
+    <form [formGroup]="form" (ngSubmit)="save()" novalidate>
+      <mat-dialog-content class="fields">
+        <mat-form-field>
+          <mat-label>Name</mat-label>
+          <input matInput formControlName="name" required maxlength="40" cdkFocusInitial />
+          <mat-hint>As the exam list names it, e.g. MR 2</mat-hint>
+          <mat-error>{{ message('name') }}</mat-error>
+        </mat-form-field>
+        <mat-form-field>
+          <mat-label>Modality</mat-label>
+          <mat-select formControlName="modality" required>
+            @for (code of modalities; track code) {
+              <mat-option [value]="code">{{ code }}</mat-option>
+            }
+          </mat-select>
+          <mat-hint>DICOM modality code</mat-hint>
+          <mat-error>{{ message('modality') }}</mat-error>
+        </mat-form-field>
+        <mat-form-field>
+          <mat-label>Air changes per hour</mat-label>
+          <input matInput type="number" formControlName="airChangesPerHour" min="1" max="60" step="0.5" required />
+          <mat-hint>As measured for the room; sets the air hold after airborne precautions</mat-hint>
+          <mat-error>{{ message('airChangesPerHour') }}</mat-error>
+        </mat-form-field>
+        <mat-form-field>
+          <mat-label>Usual turnover staff</mat-label>
+          <input matInput type="number" formControlName="staff" [min]="staff.min" [max]="staff.max" step="1" required />
+          <mat-hint>People on a turnover, {{ staff.min }}–{{ staff.max }}</mat-hint>
+          <mat-error>{{ message('staff') }}</mat-error>
+        </mat-form-field>
+        <div class="hours">
+          <mat-form-field>
+            <mat-label>Opens at</mat-label>
+            <input matInput type="time" formControlName="opensAt" required />
+            <mat-error>{{ message('opensAt') }}</mat-error>
+          </mat-form-field>
+          <mat-form-field>
+            <mat-label>Closes at</mat-label>
+            <input matInput type="time" formControlName="closesAt" required />
+            <mat-error>{{ message('closesAt') }}</mat-error>
+          </mat-form-field>
+        </div>
+        @if (form.controls.modality.value === 'MR') {
+          <tw-caution-note kind="mr" />
+        }
+        @if (formError(); as text) {
+          <p class="form-error" role="alert">{{ text }}</p>
+        }
+      </mat-dialog-content>
+      <mat-dialog-actions align="end">
+        <button mat-button type="button" mat-dialog-close>Cancel</button>
+        <button mat-flat-button type="submit" [disabled]="saving.pending()">{{ room ? 'Save room' : 'Add room' }}</button>
+      </mat-dialog-actions>
+    </form>
+  `,
+  styleUrl: './setup-dialog.scss',
+})
+export class RoomDialog {
+  private readonly api = inject(SetupApi);
+  private readonly ref = inject(MatDialogRef<RoomDialog, SetupRoom>);
+  protected readonly room = inject<SetupRoom | null>(MAT_DIALOG_DATA, { optional: true });
+  protected readonly modalities = MODALITIES;
+  protected readonly staff = STAFF;
+  protected readonly formError = signal<string | null>(null);
+
+  protected readonly form = inject(NonNullableFormBuilder).group({
+    name: [this.room?.name ?? '', [Validators.required, Validators.maxLength(40)]],
+    modality: [this.room?.modality ?? 'MR', Validators.required],
+    airChangesPerHour: [this.room?.airChangesPerHour ?? 12, [Validators.required, Validators.min(1), Validators.max(60)]],
+    staff: [this.room?.staff ?? 1, [Validators.required, Validators.min(STAFF.min), Validators.max(STAFF.max)]],
+    opensAt: [this.room?.opensAt ?? '07:00', Validators.required],
+    closesAt: [this.room?.closesAt ?? '19:00', Validators.required],
+  });
+
+  protected readonly saving = action(() => {
+    const value = this.form.getRawValue();
+    const body = { ...value, name: value.name.trim(), airChangesPerHour: Number(value.airChangesPerHour), staff: Number(value.staff) };
+    return this.room ? this.api.updateRoom(this.room.id, body) : this.api.createRoom(body);
+  });
+
+  protected message(field: keyof typeof this.form.controls): string {
+    return fieldMessage(this.form.controls[field]);
+  }
+
+  protected async save(): Promise<void> {
+    this.formError.set(null);
+    if (this.form.invalid) {
+      this.form.markAllAsTouched();
+      this.formError.set('Check the marked fields.');
+      return;
+    }
+    const result = await this.saving.run();
+    if (result.status === 'done') this.ref.close(result.value);
+    else this.formError.set(showProblems(this.form, result.error) ?? 'Check the marked fields.');
+  }
+}

@@ -1,0 +1,171 @@
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { provideRouter } from '@angular/router';
+import type { Type } from '@angular/core';
+
+import type { EquipmentItem } from '@shared/api/equipment';
+import type { SetupRoom } from '@shared/api/rooms';
+import { provideApiHttp } from '../../core/http/api-http';
+import { provideIcons } from '../../core/layout/icons';
+import { fakeAuth } from '../../../testing/fake-auth';
+import { KitDialog } from './kit-dialog';
+import { RoomDialog } from './room-dialog';
+import { UserDialog } from './user-dialog';
+
+const MR2: SetupRoom = { id: 2, name: 'MR 2', modality: 'MR', airChangesPerHour: 12, staff: 1, opensAt: '07:00', closesAt: '19:00', retired: false, retiredAt: null };
+
+function render<T>(component: Type<T>, data: unknown) {
+  const close = jest.fn();
+  TestBed.configureTestingModule({
+    imports: [component],
+    providers: [
+      provideRouter([]),
+      provideApiHttp(),
+      provideHttpClientTesting(),
+      provideIcons(),
+      fakeAuth({ username: 'admin', role: 'admin' }).provider,
+      { provide: MatDialogRef, useValue: { close } },
+      { provide: MAT_DIALOG_DATA, useValue: data },
+      { provide: MatSnackBar, useValue: { open: jest.fn() } },
+    ],
+  });
+  const fixture = TestBed.createComponent(component);
+  return { fixture, close, backend: TestBed.inject(HttpTestingController), page: fixture.nativeElement as HTMLElement };
+}
+
+async function settle(fixture: ComponentFixture<unknown>): Promise<void> {
+  await new Promise((resolve) => setTimeout(resolve));
+  await fixture.whenStable();
+}
+
+function type(page: HTMLElement, selector: string, value: string): void {
+  const input = page.querySelector<HTMLInputElement>(selector)!;
+  input.value = value;
+  input.dispatchEvent(new Event('input'));
+}
+
+/** The text of the mat-error under the field holding `selector`. */
+function errorUnder(page: HTMLElement, selector: string): string {
+  return page.querySelector(selector)!.closest('mat-form-field')!.querySelector('mat-error')?.textContent?.trim() ?? '';
+}
+
+function submit(page: HTMLElement): void {
+  page.querySelector('form')!.dispatchEvent(new Event('submit'));
+}
+
+describe('RoomDialog', () => {
+  it('puts the API’s 422 problems under their fields and stays open', async () => {
+    const { fixture, backend, page, close } = render(RoomDialog, MR2);
+    await settle(fixture);
+    type(page, 'input[formcontrolname="name"]', 'MR 1');
+    submit(page);
+    const request = backend.expectOne({ method: 'PUT', url: '/api/rooms/2' });
+    expect(request.request.body).toMatchObject({ name: 'MR 1', modality: 'MR', airChangesPerHour: 12, staff: 1 });
+    request.flush(
+      { error: { code: 'validation_failed', message: 'A room named "MR 1" already exists.', details: { problems: [{ field: 'name', message: 'already exists' }] } } },
+      { status: 422, statusText: 'Unprocessable' },
+    );
+    await settle(fixture);
+    expect(errorUnder(page, 'input[formcontrolname="name"]')).toBe('already exists');
+    expect(close).not.toHaveBeenCalled();
+  });
+
+  it('checks the same limits before sending (air changes 1–60) and closes with the saved room', async () => {
+    const { fixture, backend, page, close } = render(RoomDialog, null);
+    await settle(fixture);
+    type(page, 'input[formcontrolname="name"]', 'CT 2');
+    type(page, 'input[formcontrolname="airChangesPerHour"]', '0');
+    submit(page);
+    await settle(fixture);
+    backend.expectNone('/api/rooms');
+    expect(errorUnder(page, 'input[formcontrolname="airChangesPerHour"]')).toBe('at least 1');
+
+    type(page, 'input[formcontrolname="airChangesPerHour"]', '15');
+    submit(page);
+    const request = backend.expectOne({ method: 'POST', url: '/api/rooms' });
+    request.flush({ room: { ...MR2, id: 9, name: 'CT 2', airChangesPerHour: 15 } }, { status: 201, statusText: 'Created' });
+    await settle(fixture);
+    expect(close).toHaveBeenCalledWith(expect.objectContaining({ id: 9, name: 'CT 2' }));
+  });
+
+  it('shows the MR caution (ASTM F2503, Zone IV) for an MR room', async () => {
+    const { fixture, page } = render(RoomDialog, MR2);
+    await settle(fixture);
+    expect(page.textContent).toMatch(/ASTM F2503/);
+    expect(page.textContent).toMatch(/Zone IV/);
+  });
+});
+
+describe('UserDialog', () => {
+  it('states and checks the password policy before sending', async () => {
+    const { fixture, backend, page } = render(UserDialog, null);
+    await settle(fixture);
+    expect(page.textContent).toContain('At least 12 characters');
+    type(page, 'input[formcontrolname="username"]', 'rtaylor');
+    type(page, 'input[formcontrolname="displayName"]', 'Robin Taylor');
+    type(page, 'input[formcontrolname="email"]', 'robin@example.org');
+    type(page, 'input[formcontrolname="password"]', 'short');
+    submit(page);
+    await settle(fixture);
+    backend.expectNone('/api/users');
+    expect(errorUnder(page, 'input[formcontrolname="password"]')).toBe('use at least 12 characters');
+  });
+
+  it('shows a taken username under the username field', async () => {
+    const { fixture, backend, page, close } = render(UserDialog, null);
+    await settle(fixture);
+    type(page, 'input[formcontrolname="username"]', 'tech');
+    type(page, 'input[formcontrolname="displayName"]', 'Another Tech');
+    type(page, 'input[formcontrolname="email"]', 'tech2@example.org');
+    type(page, 'input[formcontrolname="password"]', 'a-long-first-password');
+    submit(page);
+    const request = backend.expectOne({ method: 'POST', url: '/api/users' });
+    expect(request.request.body).toEqual({ username: 'tech', displayName: 'Another Tech', email: 'tech2@example.org', role: 'tech', password: 'a-long-first-password' });
+    request.flush({ error: { code: 'validation_failed', message: 'taken', details: { problems: [{ field: 'username', message: 'already taken' }] } } }, { status: 422, statusText: 'Unprocessable' });
+    await settle(fixture);
+    expect(errorUnder(page, 'input[formcontrolname="username"]')).toBe('already taken');
+    expect(close).not.toHaveBeenCalled();
+  });
+
+  it('shows the last-admin refusal (409) as the form’s message', async () => {
+    const admin = { id: 1, username: 'admin', displayName: 'Sam', email: null, role: 'admin', active: true, mustChangePassword: false, createdAt: '' };
+    const { fixture, backend, page } = render(UserDialog, admin);
+    await settle(fixture);
+    type(page, 'input[formcontrolname="email"]', 'sam@example.org');
+    submit(page);
+    backend
+      .expectOne({ method: 'PATCH', url: '/api/users/1' })
+      .flush({ error: { code: 'last_admin', message: 'Sam is the last active admin: make another admin first.' } }, { status: 409, statusText: 'Conflict' });
+    await settle(fixture);
+    expect(page.querySelector('[role="alert"]')?.textContent).toContain('last active admin');
+  });
+});
+
+describe('KitDialog', () => {
+  const item = (id: number, name: string, marking: EquipmentItem['marking']): EquipmentItem => ({ id, name, kind: 'mop', marking, conditions: marking === 'mr-conditional' ? '3 T or less' : '', notes: '', retired: false, roomIds: [] });
+
+  it('an MR room cannot take MR Unsafe or unmarked items (ASTM F2503, Zone IV); the API’s refusal is shown', async () => {
+    const equipment = [item(1, 'Fibreglass mop', 'mr-safe'), item(2, 'Steel bucket', 'mr-unsafe'), item(3, 'Old bottle', 'not-marked'), item(4, 'Plastic cart', 'mr-conditional')];
+    const { fixture, backend, page } = render(KitDialog, { room: MR2, equipment });
+    await settle(fixture);
+    const boxes = Array.from(page.querySelectorAll<HTMLInputElement>('input[type="checkbox"]'));
+    expect(boxes.map((b) => b.disabled)).toEqual([false, true, true, false]);
+    expect(page.textContent).toContain('Not allowed in Zone IV (ASTM F2503 marking: MR Unsafe)');
+    expect(page.textContent).toContain('Conditions: 3 T or less');
+
+    boxes[0]!.click();
+    await settle(fixture);
+    Array.from(page.querySelectorAll<HTMLButtonElement>('button')).find((b) => b.textContent?.includes('Save kit'))!.click();
+    const request = backend.expectOne({ method: 'PUT', url: '/api/rooms/2/kit' });
+    expect(request.request.body).toEqual({ equipmentIds: [1] });
+    // the server has the last word (an item re-marked meanwhile)
+    request.flush(
+      { error: { code: 'kit_not_mr_safe', message: 'MR 2 is an MR room: … ASTM F2503 … Zone IV', details: { items: [], problems: [] } } },
+      { status: 422, statusText: 'Unprocessable' },
+    );
+    await settle(fixture);
+    expect(page.querySelector('[role="alert"]')?.textContent).toContain('ASTM F2503');
+  });
+});

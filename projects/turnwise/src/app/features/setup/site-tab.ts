@@ -1,0 +1,111 @@
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+
+import type { SiteSettings } from '@shared/api/settings';
+import { action } from '../../core/state/action';
+import { fieldMessage, showProblems } from './form-problems';
+import { SetupApi } from './setup-api';
+
+/** Setup → Site: the department's name, its IANA time zone, the snug margin and the notices sender. */
+@Component({
+  selector: 'tw-site-tab',
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    <form [formGroup]="form" (ngSubmit)="save()" novalidate aria-label="Site">
+      <mat-form-field>
+        <mat-label>Site name</mat-label>
+        <input matInput formControlName="siteName" required maxlength="80" />
+        <mat-error>{{ message('siteName') }}</mat-error>
+      </mat-form-field>
+      <mat-form-field>
+        <mat-label>Time zone</mat-label>
+        <input matInput formControlName="timezone" required list="tw-zones" autocomplete="off" />
+        <datalist id="tw-zones">
+          @for (zone of zones; track zone) {
+            <option [value]="zone"></option>
+          }
+        </datalist>
+        <mat-hint>IANA name, e.g. America/Chicago: every day, time and day-list import follows it</mat-hint>
+        <mat-error>{{ message('timezone') }}</mat-error>
+      </mat-form-field>
+      <mat-form-field>
+        <mat-label>Snug margin (minutes)</mat-label>
+        <input matInput type="number" formControlName="snugMarginMinutes" min="0" max="60" step="1" required />
+        <mat-hint>A gap that fits with less than this to spare is marked snug</mat-hint>
+        <mat-error>{{ message('snugMarginMinutes') }}</mat-error>
+      </mat-form-field>
+      <mat-form-field>
+        <mat-label>Notices e-mail sender</mat-label>
+        <input matInput type="email" formControlName="noticesSender" maxlength="254" />
+        <mat-hint>The From address of notices Turnwise e-mails; leave empty until your mail team gives one</mat-hint>
+        <mat-error>{{ message('noticesSender') }}</mat-error>
+      </mat-form-field>
+      @if (formError(); as text) {
+        <p class="form-error" role="alert">{{ text }}</p>
+      }
+      @if (saved()) {
+        <p role="status">Saved. Open day plans recompute with these settings.</p>
+      }
+      <div><button mat-flat-button type="submit" [disabled]="saving.pending() || loading()">Save site</button></div>
+    </form>
+  `,
+  styles: `
+    :host { display: block; padding-top: 16px; }
+    form { display: flex; flex-direction: column; gap: 8px; max-width: 520px; }
+    .form-error { color: var(--mat-sys-error); }
+  `,
+})
+export class SiteTab {
+  private readonly api = inject(SetupApi);
+  protected readonly zones = supportedZones();
+  protected readonly formError = signal<string | null>(null);
+  protected readonly saved = signal(false);
+  protected readonly loading = signal(true);
+  protected readonly form = inject(NonNullableFormBuilder).group({
+    siteName: ['', [Validators.required, Validators.maxLength(80)]],
+    timezone: ['', Validators.required],
+    snugMarginMinutes: [3, [Validators.required, Validators.min(0), Validators.max(60)]],
+    noticesSender: ['', [Validators.email, Validators.maxLength(254)]],
+  });
+  protected readonly saving = action(() => {
+    const value = this.form.getRawValue();
+    return this.api.saveSettings({ ...value, noticesSender: value.noticesSender.trim(), snugMarginMinutes: Number(value.snugMarginMinutes) });
+  });
+
+  constructor() {
+    this.api.settings().subscribe({
+      next: (settings: SiteSettings) => {
+        this.form.setValue({ siteName: settings.siteName, timezone: settings.timezone, snugMarginMinutes: settings.snugMarginMinutes, noticesSender: settings.noticesSender ?? '' });
+        this.loading.set(false);
+      },
+      error: (error: { message: string }) => this.formError.set(error.message),
+    });
+  }
+
+  protected message(field: keyof typeof this.form.controls): string {
+    return fieldMessage(this.form.controls[field]);
+  }
+
+  protected async save(): Promise<void> {
+    this.formError.set(null);
+    this.saved.set(false);
+    if (this.form.invalid) {
+      this.form.markAllAsTouched();
+      this.formError.set('Check the marked fields.');
+      return;
+    }
+    const result = await this.saving.run();
+    if (result.status === 'done') this.saved.set(true);
+    else this.formError.set(showProblems(this.form, result.error) ?? 'Check the marked fields.');
+  }
+}
+
+/** The browser's list of IANA zones, for suggestions only (the server checks the name). */
+function supportedZones(): string[] {
+  const intl = Intl as unknown as { supportedValuesOf?: (key: string) => string[] };
+  return intl.supportedValuesOf?.('timeZone') ?? [];
+}
