@@ -44,12 +44,12 @@ import { tableView } from './table-view';
         </ng-container>
         <ng-container matColumnDef="kind">
           <th mat-header-cell *matHeaderCellDef mat-sort-header>Kind</th>
-          <td mat-cell *matCellDef="let item">{{ kindLabels[item.kind] }}</td>
+          <td mat-cell *matCellDef="let item">{{ kindLabel(item) }}</td>
         </ng-container>
         <ng-container matColumnDef="marking">
           <th mat-header-cell *matHeaderCellDef mat-sort-header>MR marking</th>
           <td mat-cell *matCellDef="let item">
-            <span class="badge">{{ markingLabels[item.marking] }}</span>
+            <span class="badge">{{ markingLabel(item) }}</span>
             @if (item.marking === 'mr-conditional') {
               <div class="muted">{{ item.conditions }}</div>
             }
@@ -83,8 +83,6 @@ export class EquipmentTab {
   private readonly api = inject(SetupApi);
   private readonly dialog = inject(MatDialog);
   protected readonly columns = ['name', 'kind', 'marking', 'rooms', 'actions'];
-  protected readonly kindLabels = EQUIPMENT_KIND_LABELS;
-  protected readonly markingLabels = MR_MARKING_LABELS;
   protected readonly items = serverState(() => this.api.equipment(), 'The equipment could not be shown.');
   private readonly rooms = serverState(() => this.api.rooms(), 'The rooms could not be shown.');
   protected readonly message = signal<string | null>(null);
@@ -98,6 +96,14 @@ export class EquipmentTab {
   constructor() {
     this.items.show('all');
     this.rooms.show('all');
+  }
+
+  protected kindLabel(item: EquipmentItem): string {
+    return EQUIPMENT_KIND_LABELS[item.kind];
+  }
+
+  protected markingLabel(item: EquipmentItem): string {
+    return MR_MARKING_LABELS[item.marking];
   }
 
   protected roomNames(item: EquipmentItem): string {
