@@ -36,8 +36,8 @@ import { SiteTime } from '../../shared/ui/site-time';
                 }
               } @else if (canMark()) {
                 <button mat-stroked-button type="button" class="mark-arrived" [disabled]="busy().has(arrival.examId)"
-                  [attr.aria-label]="'Patient arrived: ' + arrival.accession + ', ' + arrival.roomName" (click)="arrived.emit(arrival.examId)">
-                  <mat-icon svgIcon="how_to_reg" />Arrived
+                  [attr.aria-label]="'Mark arrived: ' + arrival.accession + ', ' + arrival.roomName" (click)="arrived.emit(arrival.examId)">
+                  <mat-icon svgIcon="how_to_reg" />Mark arrived
                 </button>
               } @else {
                 <span class="expected">Expected</span>
