@@ -1,8 +1,7 @@
 import { z } from 'zod';
+import { MOVE_REASONS, TURNOVER_STAFF, type ChangeReason } from './limits';
 
-/** Why a plan changed; the history panel shows it. */
-export const CHANGE_REASONS = ['drag', 'keyboard', 'api', 'suggestion', 'undo', 'redo', 'staffing'] as const;
-export type ChangeReason = (typeof CHANGE_REASONS)[number];
+export { CHANGE_REASONS, MOVE_REASONS, type ChangeReason, type MoveReason } from './limits';
 
 export interface ExamMove {
   type: 'move';
@@ -44,16 +43,18 @@ export const examMoveSchema = z
     start: z.string().datetime({ offset: true, message: 'start must be ISO 8601 with an offset' }).optional(),
     roomId: z.number().int().positive().optional(),
     version: z.number().int().min(0),
-    reason: z.enum(['drag', 'keyboard', 'api']).default('api'),
+    reason: z.enum(MOVE_REASONS).default('api'),
   })
   .refine((b) => b.start !== undefined || b.roomId !== undefined, 'give start, roomId or both');
 export type ExamMoveInput = z.input<typeof examMoveSchema>;
 
+const staff = z.number().int().min(TURNOVER_STAFF.min).max(TURNOVER_STAFF.max);
+
 /** `PUT /api/exams/:id/staffing` body: people on the turnover before this exam, null for the room's. */
-export const gapStaffingSchema = z.object({ staff: z.number().int().min(1).max(3).nullable() });
+export const gapStaffingSchema = z.object({ staff: staff.nullable() });
 
 /** `PATCH /api/rooms/:id/staffing` body. */
-export const roomStaffingSchema = z.object({ staff: z.number().int().min(1).max(3) });
+export const roomStaffingSchema = z.object({ staff });
 
 /** Server-sent event on `GET /api/days/:date/events`. */
 export interface DayEvent {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { AIR_CHANGES_PER_HOUR, ROOM_NAME_MAX, TURNOVER_STAFF } from './limits';
 
 /**
  * DICOM modality codes, attribute (0008,0060), PS3.3 C.7.3.1.1.1 — the subset an imaging
@@ -10,10 +11,13 @@ export type Modality = (typeof MODALITIES)[number];
 const hhmm = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'use HH:MM (24-hour)');
 
 export const roomInputSchema = z.object({
-  name: z.string().trim().min(1, 'a room needs a name').max(40),
+  name: z.string().trim().min(1, 'a room needs a name').max(ROOM_NAME_MAX),
   modality: z.enum(MODALITIES, { message: `use a DICOM modality code (${MODALITIES.join(', ')})` }),
-  airChangesPerHour: z.number().min(1, 'at least 1 air change per hour').max(60, 'at most 60 air changes per hour'),
-  staff: z.number().int().min(1).max(4).default(1),
+  airChangesPerHour: z
+    .number()
+    .min(AIR_CHANGES_PER_HOUR.min, `at least ${AIR_CHANGES_PER_HOUR.min} air change per hour`)
+    .max(AIR_CHANGES_PER_HOUR.max, `at most ${AIR_CHANGES_PER_HOUR.max} air changes per hour`),
+  staff: z.number().int().min(TURNOVER_STAFF.min).max(TURNOVER_STAFF.max).default(1),
   opensAt: hhmm.default('07:00'),
   closesAt: hhmm.default('19:00'),
 });

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { SNUG_MARGIN_MINUTES } from './limits';
 
 export interface SiteSettings {
   siteName: string;
@@ -20,7 +21,7 @@ export function settingsInputSchema(isValidZone: (zone: string) => boolean) {
   return z.object({
     siteName: z.string().trim().min(1).max(80).optional(),
     timezone: z.string().refine(isValidZone, 'not an IANA time zone (e.g. America/Chicago)'),
-    snugMarginMinutes: z.number().int().min(0).max(60),
+    snugMarginMinutes: z.number().int().min(SNUG_MARGIN_MINUTES.min).max(SNUG_MARGIN_MINUTES.max),
     noticesSender: z.union([z.literal(''), z.string().trim().max(254, 'use at most 254 characters').pipe(z.email('not an e-mail address'))]).optional(),
   });
 }

@@ -1,4 +1,5 @@
 import { signedIn, startHarness, type Harness } from './harness';
+import { TURNOVER_STAFF } from '../../shared/api/limits';
 
 describe('rooms and settings API', () => {
   let h: Harness;
@@ -26,7 +27,7 @@ describe('rooms and settings API', () => {
     [{ name: 'X', modality: 'MRI', airChangesPerHour: 6, staff: 1 }, 'modality'],
     [{ name: 'X', modality: 'MR', airChangesPerHour: 0, staff: 1 }, 'airChangesPerHour'],
     [{ name: 'X', modality: 'MR', airChangesPerHour: 61, staff: 1 }, 'airChangesPerHour'],
-    [{ name: 'X', modality: 'MR', airChangesPerHour: 6, staff: 5 }, 'staff'],
+    [{ name: 'X', modality: 'MR', airChangesPerHour: 6, staff: TURNOVER_STAFF.max + 1 }, 'staff'], // one limit with the staffing routes
     [{ name: 'X', modality: 'MR', airChangesPerHour: 6, staff: 1.5 }, 'staff'],
     [{ name: '', modality: 'MR', airChangesPerHour: 6, staff: 1 }, 'name'],
   ])('refuses %j with 422 naming %s', async (body, field) => {

@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input, output } from '@an
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 
+import { TURNOVER_STAFF } from '@shared/api/limits';
 import type { PlanRoom } from '@shared/api/plan';
 import { ExamBlock } from './exam-block';
 import { GapMarker } from './gap-marker';
@@ -9,7 +10,7 @@ import { LaneSlot, clockOf, laneView } from './lane-view';
 import { TimelineScale, xOf } from './timeline-scale';
 
 /** Fewest and most people a turnover may have (the server's limits). */
-export const STAFF_RANGE = { min: 1, max: 3 } as const;
+export const STAFF_RANGE = TURNOVER_STAFF;
 
 /**
  * One room's lane: its header (name, modality, people on turnover, first and last slot) and,
