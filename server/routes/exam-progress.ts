@@ -1,13 +1,18 @@
 import { Router } from 'express';
 import type { Knex } from 'knex';
+import { z } from 'zod';
 import type { Clock } from '../clock';
 import { currentUser, requireRole } from '../middleware/roles';
 import { markArrived, unmarkArrived } from '../services/arrivals';
 import { loadChecklist } from '../services/checklist';
 import type { DayEvents } from '../services/day-events';
 import { finishExam } from '../services/turnovers';
+import { parseInput } from '../validate';
 import { announcer } from './announce';
 import { idParam } from './params';
+
+/** Only needed to record an end before the slot's start: why (logged). */
+const finishSchema = z.object({ earlyReason: z.string().max(500).optional() });
 
 /** What happens to an exam on the day itself: the patient arrives, the exam finishes. */
 export function examProgressRoutes(deps: { db: Knex; clock: Clock; events: DayEvents }): Router {
@@ -30,9 +35,10 @@ export function examProgressRoutes(deps: { db: Knex; clock: Clock; events: DayEv
 
   /** "Exam finished": the actual end; opens the turnover after it. */
   router.post('/:id/finished', requireRole('tech', 'charge'), async (req, res) => {
+    const { earlyReason } = parseInput(finishSchema, req.body ?? {}, 'exam end');
     const user = currentUser(req);
     const now = deps.clock.now();
-    const ref = await finishExam(deps.db, idParam(req.params['id'], 'an exam'), user, now);
+    const ref = await finishExam(deps.db, idParam(req.params['id'], 'an exam'), user, now, earlyReason);
     announce(ref.day, ['board', 'log'], 'exam finished', user);
     res.status(201).json(await loadChecklist(deps.db, ref.roomId, ref.day, now, ref.turnoverId));
   });

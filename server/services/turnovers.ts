@@ -22,8 +22,12 @@ export function localIso(now: Date, zone: string): string {
 /**
  * "Exam finished": records the exam's actual end (now) and opens the turnover after it,
  * logged as an `exam finished` entry. A second call for the same exam is a conflict.
+ *
+ * Before the slot's start it is refused (422 `exam_not_started`) unless `earlyReason` says why:
+ * a tap on the wrong room's tablet would otherwise open a turnover, and its air hold and
+ * cleaning log, for a patient not yet scanned. The reason goes into the log entry.
  */
-export async function finishExam(db: Knex, examId: number, user: UserRecord, now: Date): Promise<TurnoverRef> {
+export async function finishExam(db: Knex, examId: number, user: UserRecord, now: Date, earlyReason?: string): Promise<TurnoverRef> {
   const { timezone: zone } = await readSettings(db);
   return db.transaction(async (trx) => {
     const exam = await trx('exams as e').join('rooms as r', 'r.id', 'e.room_id').where('e.id', examId).first('e.*', 'r.name as room_name');
@@ -31,6 +35,15 @@ export async function finishExam(db: Knex, examId: number, user: UserRecord, now
     const recorded = await trx('turnovers').where({ from_exam_id: examId }).first();
     if (recorded) {
       throw new Refusal('already_done', `The end of ${exam.accession} was already recorded at ${DateTime.fromISO(recorded.exam_ended_at, { zone }).toFormat('HH:mm')}.`, { at: recorded.exam_ended_at });
+    }
+    const early = now.getTime() < Number(exam.start_ms);
+    const reason = early ? earlyReason?.trim() || null : null;
+    if (early && !reason) {
+      const start = DateTime.fromMillis(Number(exam.start_ms), { zone });
+      throw new Refusal('exam_not_started', `${exam.accession} in ${exam.room_name} is booked to start at ${start.toFormat('HH:mm')}; give a reason to record its end before then.`, {
+        start: start.toISO({ suppressMilliseconds: true })!,
+        problems: [{ field: 'earlyReason', message: 'needed before the slot starts' }],
+      });
     }
     const next = await trx('exams')
       .where({ day: exam.day, room_id: exam.room_id })
@@ -50,7 +63,7 @@ export async function finishExam(db: Knex, examId: number, user: UserRecord, now
     });
     await appendLog(
       trx,
-      { at, atMs: now.getTime(), day: exam.day, roomId: exam.room_id, roomName: exam.room_name, turnoverId, examAccession: exam.accession, cleanType, kind: 'exam finished' },
+      { at, atMs: now.getTime(), day: exam.day, roomId: exam.room_id, roomName: exam.room_name, turnoverId, examAccession: exam.accession, cleanType, kind: 'exam finished', earlyReason: reason },
       user,
     );
     return { turnoverId: turnoverId as number, roomId: exam.room_id as number, day: exam.day as string };

@@ -118,7 +118,8 @@ export const ROUTE_TABLE: RouteCase[] = [
     path: '/api/exams/:id/finished',
     allowed: ['tech', 'charge', 'admin'],
     prepare: unfinishedExam,
-    send: (c, id) => c.post(`/api/exams/${id as number}/finished`, {}),
+    // the seeded exam may not have started at the matrix's clock: a reason lets any role allowed record it
+    send: (c, id) => c.post(`/api/exams/${id as number}/finished`, { earlyReason: 'Role matrix check' }),
   },
   {
     method: 'post',
@@ -223,7 +224,7 @@ interface OpenTurnover {
 async function openTurnover(h: Harness): Promise<OpenTurnover> {
   const user = await h.db('users').where({ username: 'tech' }).first('id', 'username', 'display_name', 'role');
   const now = h.clock.now();
-  const ref = await finishExam(h.db, await unfinishedExam(h), { id: user.id, username: user.username, displayName: user.display_name, role: user.role }, now);
+  const ref = await finishExam(h.db, await unfinishedExam(h), { id: user.id, username: user.username, displayName: user.display_name, role: user.role }, now, 'Role matrix check');
   const checklist = await loadChecklist(h.db, ref.roomId, ref.day, now, ref.turnoverId);
   return { id: ref.turnoverId, firstStep: checklist.steps[0]!.key };
 }
