@@ -19,9 +19,12 @@ const dryRunQuery = z.object({
   dayVersion: z.coerce.number().int().min(0).optional(),
 });
 
-/** `YYYY-MM-DD` that is a real calendar day. */
+/** Rooms may close after midnight, so a day's plan reaches into the next: that day must be writable too. */
+const LAST_DAY = '9999-12-30';
+
+/** `YYYY-MM-DD` that is a real calendar day (up to {@link LAST_DAY}). */
 export function parseDay(value: unknown): string {
-  if (typeof value !== 'string' || !/^\d{4}-\d{2}-\d{2}$/.test(value) || !DateTime.fromISO(value).isValid) {
+  if (typeof value !== 'string' || !/^\d{4}-\d{2}-\d{2}$/.test(value) || !DateTime.fromISO(value).isValid || value > LAST_DAY) {
     throw new ValidationError(`"${String(value ?? '')}" is not a date; use YYYY-MM-DD.`);
   }
   return value;
