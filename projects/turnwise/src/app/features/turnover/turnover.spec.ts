@@ -146,7 +146,7 @@ describe('Turnover', () => {
     button(row(page, 'linen'), 'button.tick').click();
     backend
       .expectOne('/api/turnovers/9/steps/linen/done')
-      .flush({ error: { code: 'still_wet', message: 'Table top and rails stays wet until 10:38.' } }, { status: 422, statusText: 'x' });
+      .flush({ error: { code: 'surface_wet', message: 'Table top and rails stays wet until 10:38.', details: { wet: ['table'], wetUntil: at('10:38', '30'), problems: [] } } }, { status: 422, statusText: 'x' });
     await settle(fixture);
     expect(text(page.querySelector('[role="alert"]'))).toBe('Table top and rails stays wet until 10:38.');
     expect(row(page, 'linen').querySelector('.reason input')).not.toBeNull();
@@ -255,7 +255,7 @@ describe('Turnover', () => {
     button(row(page, 'linen'), 'button.tick').click();
     backend
       .expectOne('/api/turnovers/9/steps/linen/done')
-      .flush({ error: { code: 'validation_failed', message: 'Tick "Table top and rails" first.' } }, { status: 422, statusText: 'x' });
+      .flush({ error: { code: 'steps_missing', message: 'Tick "Table top and rails" first.', details: { missing: ['table'], problems: [] } } }, { status: 422, statusText: 'x' });
     await settle(fixture);
     expect(text(page.querySelector('[role="alert"]'))).toBe('Tick "Table top and rails" first.');
     expect(row(page, 'linen').querySelector('.reason input')).toBeNull();

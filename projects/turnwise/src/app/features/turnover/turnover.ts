@@ -7,8 +7,9 @@ import { Router } from '@angular/router';
 import { EMPTY, Observable, catchError, filter, switchMap, tap } from 'rxjs';
 
 import type { BoardShiftTask, Checklist } from '@shared/api/board';
-import type { ApiError } from '@shared/api/errors';
+import { hasErrorCode, type ApiError } from '@shared/api/errors';
 import type { Room } from '@shared/api/rooms';
+import { action } from '../../core/state/action';
 import { CautionKind, CautionNote } from '../../shared/ui/caution-note';
 import { Clock } from '../../core/time/clock';
 import { serverSkew } from '../../shared/ui/countdown';
@@ -18,7 +19,6 @@ import { LiveIndicator } from '../../shared/ui/live-indicator';
 import { SiteSettingsService } from '../../core/site/site-settings-service';
 import { SiteTime } from '../../shared/ui/site-time';
 import { ChecklistStepRow } from './checklist-step-row';
-import { notYetDone } from './step-readiness';
 import { readLastRoom, rememberRoom } from './last-room';
 import { ShiftTaskList } from './shift-task-list';
 import { TurnoverClose } from './turnover-close';
@@ -51,7 +51,10 @@ export class Turnover {
   protected readonly checklist = signal<Checklist | null>(null);
   protected readonly error = signal<ApiError | null>(null);
   protected readonly status = signal<DayStreamStatus>('connecting');
-  protected readonly busy = signal(false);
+  /** Every change to the turnover (exam finished, a tick, complete) answers the whole checklist. */
+  private readonly change = action((call: Observable<Checklist>) => call);
+  private readonly markTask = action((task: BoardShiftTask) => this.service.shiftTaskDone(task));
+  protected readonly busy = computed(() => this.change.pending() || this.markTask.pending());
   /** The step the server refused as still wet, so its row asks for a reason. */
   protected readonly reasonFor = signal<string | null>(null);
   /** The exam whose end the server refused as before its slot, so "Exam finished" asks why. */
@@ -133,61 +136,47 @@ export class Turnover {
     void this.router.navigate([], { queryParams: { room: roomId }, queryParamsHandling: 'merge' });
   }
 
-  protected examFinished({ examId, earlyReason }: ExamFinished): void {
+  protected async examFinished({ examId, earlyReason }: ExamFinished): Promise<void> {
     this.justCompleted.set(null);
-    this.act(this.service.examFinished(examId, earlyReason), (error) => {
-      if (error.code === 'exam_not_started') this.finishReasonFor.set(examId);
-    });
+    const result = await this.run(this.service.examFinished(examId, earlyReason));
+    // the server's clock decides whether the slot has started: ask why, then send it again
+    if (result.status === 'failed' && hasErrorCode(result.error, 'exam_not_started')) this.finishReasonFor.set(examId);
   }
 
-  protected tick(stepKey: string, tick: StepTick): void {
-    const checklist = this.checklist();
-    const step = checklist?.steps.find((candidate) => candidate.key === stepKey);
-    if (checklist?.turnoverId == null || !step) return;
-    // A 422 is about wetness only when every surface the step needs dry has been ticked (the
-    // server's clock finds one still wet); otherwise it says which step to tick first, and a
-    // reason field would not help.
-    const mayBeWet = step.needsDry.length > 0 && notYetDone(step, checklist.steps).length === 0;
-    this.act(this.service.stepDone(checklist.turnoverId, stepKey, tick), (error) => {
-      if (error.status === 422 && !tick.earlyReason && mayBeWet) this.reasonFor.set(stepKey);
-    });
+  protected async tick(stepKey: string, tick: StepTick): Promise<void> {
+    const turnoverId = this.checklist()?.turnoverId;
+    if (turnoverId == null) return;
+    const result = await this.run(this.service.stepDone(turnoverId, stepKey, tick));
+    // Only a surface still wet by the server's clock asks for a reason; "tick X first" does not.
+    if (result.status === 'failed' && hasErrorCode(result.error, 'surface_wet') && !tick.earlyReason) this.reasonFor.set(stepKey);
   }
 
-  protected complete(overrideReason: string | undefined): void {
+  protected async complete(overrideReason: string | undefined): Promise<void> {
     const id = this.checklist()?.turnoverId;
     if (id == null) return;
-    this.act(this.service.complete(id, overrideReason), undefined, (closed) => {
-      if (closed.completedAt) {
-        this.justCompleted.set({ roomId: closed.roomId, accession: closed.leaving?.accession ?? null, at: closed.completedAt, roomName: closed.roomName });
-      }
-    });
+    const result = await this.run(this.service.complete(id, overrideReason));
+    if (result.status === 'done' && result.value.completedAt) {
+      const closed = result.value;
+      this.justCompleted.set({ roomId: closed.roomId, accession: closed.leaving?.accession ?? null, at: closed.completedAt!, roomName: closed.roomName });
+    }
   }
 
-  protected shiftTaskDone(task: BoardShiftTask): void {
-    this.busy.set(true);
-    this.service.shiftTaskDone(task).subscribe({
-      next: (updated) => {
-        this.checklist.update((c) => c && { ...c, tasks: c.tasks.map((t) => (t.taskId === updated.taskId && t.due === updated.due ? updated : t)) });
-        this.settle(null);
-      },
-      error: (error: ApiError) => this.settle(error),
-    });
+  protected async shiftTaskDone(task: BoardShiftTask): Promise<void> {
+    const result = await this.markTask.run(task);
+    this.error.set(result.status === 'failed' ? result.error : null);
+    if (result.status === 'done') {
+      const updated = result.value;
+      this.checklist.update((c) => c && { ...c, tasks: c.tasks.map((t) => (t.taskId === updated.taskId && t.due === updated.due ? updated : t)) });
+    }
   }
 
-  private act(call: Observable<Checklist>, onError?: (error: ApiError) => void, onDone?: (checklist: Checklist) => void): void {
-    this.busy.set(true);
+  /** Runs a change that answers the whole checklist: shown at once; a refusal stays on the page. */
+  private async run(call: Observable<Checklist>) {
     this.reasonFor.set(null);
-    call.subscribe({
-      next: (checklist) => {
-        this.show(checklist);
-        this.settle(null);
-        onDone?.(checklist);
-      },
-      error: (error: ApiError) => {
-        this.settle(error);
-        onError?.(error);
-      },
-    });
+    const result = await this.change.run(call);
+    if (result.status === 'done') this.show(result.value);
+    this.error.set(result.status === 'failed' ? result.error : null);
+    return result;
   }
 
   private quietly(call: Observable<Checklist>): Observable<Checklist> {
@@ -211,10 +200,5 @@ export class Turnover {
     if (checklist.turnoverId !== this.checklist()?.turnoverId) this.reasonFor.set(null);
     if (checklist.leaving?.examId !== this.finishReasonFor()) this.finishReasonFor.set(null);
     this.checklist.set(checklist);
-  }
-
-  private settle(error: ApiError | null): void {
-    this.busy.set(false);
-    this.error.set(error);
   }
 }
