@@ -27,7 +27,9 @@ export async function seed(knex: Knex, now: Date = new Date(), options: { day?: 
       await knex('settings').insert({ key, value: JSON.stringify(value) }).onConflict('key').merge();
     }
   }
-  for (const account of DEMO_ACCOUNTS) {
+  for (const [i, account] of DEMO_ACCOUNTS.entries()) {
+    // the sign-in page lists them from here in demo mode (the server never imports this seed)
+    await knex('demo_accounts').insert({ username: account.username, password: DEMO_PASSWORD, sort_order: i }).onConflict('username').ignore();
     const exists = await knex('users').where({ username: account.username }).first();
     if (exists) continue;
     await knex('users').insert({

@@ -4,12 +4,12 @@ import type { Knex } from 'knex';
 import type { Passport } from 'passport';
 import { rateLimit } from 'express-rate-limit';
 import { z } from 'zod';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../seeds/support/demo-accounts';
 import { HttpError, NotFoundError, UnauthorizedError } from '../errors';
 import type { XsrfTokens } from '../middleware/xsrf';
 import { requireUser } from '../middleware/roles';
 import { parseInput } from '../validate';
 import type { UserRecord } from '../services/users';
+import { listDemoAccounts } from '../services/demo-accounts';
 
 const loginSchema = z.object({ username: z.string().trim().min(1).max(64), password: z.string().min(1).max(200) });
 
@@ -147,9 +147,10 @@ export function authRoutes(deps: AuthDeps): Router {
     res.json({ user: publicUser(req.user!) });
   });
 
-  router.get('/demo-accounts', (_req, res) => {
-    if (!deps.demo) throw new NotFoundError('Demo accounts exist only in demo mode.');
-    res.json({ password: DEMO_PASSWORD, accounts: DEMO_ACCOUNTS.map(({ username, role }) => ({ username, role })) });
+  router.get('/demo-accounts', async (_req, res) => {
+    const demo = deps.demo ? await listDemoAccounts(deps.db) : null;
+    if (!demo) throw new NotFoundError('Demo accounts exist only in demo mode.');
+    res.json(demo);
   });
 
   return router;

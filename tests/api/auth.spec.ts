@@ -124,6 +124,10 @@ describe('auth API', () => {
     const demo = await request(h.app).get('/api/auth/demo-accounts');
     expect(demo.status).toBe(200);
     expect(demo.body.accounts.map((a: { role: string }) => a.role).sort()).toEqual(['admin', 'charge', 'frontdesk', 'scheduler', 'tech']);
+    expect(demo.body.password).toBe(DEMO_PASSWORD);
+    // read from the table the demo seed writes: a deactivated demo user is no longer offered
+    await h.db('users').where({ username: 'tech' }).update({ active: false });
+    expect((await request(h.app).get('/api/auth/demo-accounts')).body.accounts.map((a: { username: string }) => a.username)).not.toContain('tech');
     await h.close();
     h = await startHarness({ demo: false });
     expect((await request(h.app).get('/api/auth/demo-accounts')).status).toBe(404);
