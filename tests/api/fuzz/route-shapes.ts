@@ -1,0 +1,102 @@
+import fc from 'fast-check';
+import { dayText, isoInstant } from './values';
+
+/** Ids that exist in the fuzzed database, so some requests reach the logic behind the checks. */
+export interface KnownIds {
+  exams: number[];
+  rooms: number[];
+  turnovers: number[];
+  logEntries: number[];
+  shiftTasks: number[];
+}
+
+/** A route's inputs by name, each with plausible (mostly valid) values, the nasty ones being added by the fuzz: the body's fields, the query's, the path's. */
+export interface RouteShape {
+  body?: Record<string, fc.Arbitrary<unknown>>;
+  query?: Record<string, fc.Arbitrary<string>>;
+  params: Record<string, fc.Arbitrary<string>>;
+}
+
+const small = (min: number, max: number) => fc.integer({ min, max });
+const text = (max: number) => fc.string({ maxLength: max });
+const hhmm = fc.oneof(fc.constantFrom('07:00', '19:00', '00:00', '23:59', '12:00'), fc.tuple(fc.nat(23), fc.nat(59)).map(([h, m]) => `${String(h).padStart(2, '0')}:${String(m).padStart(2, '0')}`));
+const zones = fc.constantFrom('America/Chicago', 'UTC', 'Etc/GMT+12', 'Etc/GMT-14', 'Pacific/Kiritimati', 'Asia/Kathmandu', 'America/St_Johns', 'Australia/Lord_Howe', 'Europe/London', 'utc');
+const stepKeys = fc.constantFrom('don', 'linen', 'table', 'coil', 'floor', 'doff', 'air-hold', 'wipe-start', 'DON', '');
+const productKeys = fc.constantFrom('standard', 'sporicidal', 'bleach', 'alcohol', '');
+const fixIds = fc.oneof(
+  fc.tuple(fc.constantFrom('push-later', 'other-room', 'add-helper', 'isolation-last', 'x'), fc.oneof(fc.nat(200), fc.constantFrom(999999999999999, 2 ** 53))).map(([kind, id]) => `${kind}:${id}`),
+  fc.constantFrom('add-helper:0', 'add-helper:-1', 'push-later:1e3', '::', 'add-helper:1:2', ':'),
+);
+
+function id(known: number[]): fc.Arbitrary<string> {
+  return fc.oneof(fc.constantFrom(...(known.length ? known : [1])), fc.integer({ min: 0, max: 10_000 })).map(String);
+}
+
+/**
+ * The shape of a route without one below, guessed from its path: `:date` a day, other params
+ * small ids; its body gets arbitrary JSON only. Enough to fuzz a new route; a shape here does better.
+ */
+export function guessedShape(path: string): RouteShape {
+  const names = [...path.matchAll(/:(\w+)/g)].map((m) => m[1]!);
+  return { params: Object.fromEntries(names.map((name) => [name, name === 'date' ? dayText : fc.integer({ min: 0, max: 60 }).map(String)])) };
+}
+
+/**
+ * Routes of the role matrix by `method path` (as tests/api/route-table.ts writes it), with their
+ * real field names; a route missing here is fuzzed with {@link guessedShape}.
+ */
+export function routeShapes(ids: KnownIds): Record<string, RouteShape> {
+  const date = { date: dayText };
+  const exam = { id: id(ids.exams) };
+  const room = { id: id(ids.rooms) };
+  const dayQuery = { date: dayText };
+  return {
+    'get /api/health': { params: {} },
+    'get /api/auth/demo-accounts': { params: {} },
+    'get /api/auth/me': { params: {} },
+    'get /api/rooms': { params: {} },
+    'post /api/rooms': {
+      params: {},
+      body: {
+        name: fc.oneof(fc.string({ minLength: 1, maxLength: 40 }), fc.constantFrom('MR 1', 'mr 1', ' MR 1 ', 'ＭＲ 1', 'İ', 'ß', 'SS')),
+        modality: fc.constantFrom('MR', 'CT', 'US', 'OT', 'NM', 'PT'),
+        airChangesPerHour: fc.oneof(fc.integer({ min: 1, max: 60 }), fc.double({ min: 1, max: 60, noNaN: true })),
+        staff: small(1, 4),
+        opensAt: hhmm,
+        closesAt: hhmm,
+      },
+    },
+    'get /api/settings': { params: {} },
+    'put /api/settings': { params: {}, body: { timezone: zones, snugMarginMinutes: small(0, 60), siteName: text(80) } },
+    'get /api/days/:date/plan': { params: date },
+    'post /api/days/:date/exams/import?dryRun=true': { params: date, query: { dryRun: fc.constantFrom('true', 'false'), dayVersion: fc.nat(50).map(String) } },
+    'post /api/days/:date/exams/import': { params: date, query: { dryRun: fc.constantFrom('true', 'false'), dayVersion: fc.nat(50).map(String) } },
+    'patch /api/exams/:id': {
+      params: exam,
+      body: { start: isoInstant, roomId: id(ids.rooms).map(Number), version: small(0, 5), reason: fc.constantFrom('drag', 'keyboard', 'api') },
+    },
+    'put /api/exams/:id/staffing': { params: exam, body: { staff: fc.oneof(small(1, 3), fc.constant(null)) } },
+    'patch /api/rooms/:id/staffing': { params: room, body: { staff: small(1, 3) } },
+    'get /api/days/:date/history': { params: date },
+    'post /api/days/:date/undo': { params: date },
+    'post /api/days/:date/redo': { params: date },
+    'get /api/days/:date/fixes': { params: date, query: { gap: id(ids.exams), after: id(ids.exams), limit: fc.integer({ min: 1, max: 20 }).map(String) } },
+    'post /api/days/:date/fixes/apply': { params: date, body: { fixId: fixIds, acceptNewProblems: fc.boolean() } },
+    'get /api/days/:date/events': { params: date },
+    'get /api/days/:date/board': { params: date },
+    'post /api/exams/:id/arrived': { params: exam },
+    'delete /api/exams/:id/arrived': { params: exam },
+    'get /api/rooms/:id/turnover': { params: room, query: dayQuery },
+    'post /api/exams/:id/finished': { params: exam },
+    'post /api/turnovers/:id/steps/:key/done': {
+      params: { id: id(ids.turnovers), key: stepKeys },
+      body: { productKey: productKeys, earlyReason: text(500) },
+    },
+    'post /api/turnovers/:id/complete': { params: { id: id(ids.turnovers) }, body: { overrideReason: text(500) } },
+    'get /api/log': { params: {}, query: { date: dayText, roomId: id(ids.rooms), user: fc.constantFrom('tech', 'admin', 'nobody', '') } },
+    'get /api/log.csv': { params: {}, query: { date: dayText, roomId: id(ids.rooms), user: fc.constantFrom('tech', 'admin', 'nobody', '') } },
+    'post /api/log/:id/corrections': { params: { id: id(ids.logEntries) }, body: { note: text(500) } },
+    'get /api/rooms/:id/tasks': { params: room, query: dayQuery },
+    'post /api/shift-tasks/:taskId/done': { params: { taskId: id(ids.shiftTasks) }, body: { due: isoInstant } },
+  };
+}
