@@ -89,7 +89,12 @@ const VIEWS: Record<string, View[]> = {
     },
   ],
   reports: [{ name: 'reports', url: '/reports', heading: 'Reports', loaded: async () => undefined }],
-  setup: [{ name: 'setup', url: '/setup', heading: 'Setup', loaded: async () => undefined }],
+  setup: ['rooms', 'equipment', 'users', 'site', 'audit'].map((tab) => ({
+    name: `setup-${tab}`,
+    url: `/setup?tab=${tab}`,
+    heading: 'Setup',
+    loaded: (page: Page) => page.getByRole('tabpanel').locator(tab === 'site' ? 'form' : 'table').first().waitFor(),
+  })),
 };
 
 const SIGNED_OUT_VIEWS: View[] = [

@@ -65,7 +65,7 @@ import { UserDialog } from './user-dialog';
           <td mat-cell *matCellDef="let user" class="actions">
             @if (user.active) {
               <button mat-button type="button" (click)="edit(user)" [attr.aria-label]="'Edit ' + user.username">Edit</button>
-              <button mat-button type="button" (click)="reset(user)" [attr.aria-label]="'Reset the password of ' + user.username">Reset password</button>
+              <button mat-button type="button" (click)="reset(user)" [attr.aria-label]="'Reset password of ' + user.username">Reset password</button>
               @if (user.username !== me()) {
                 <button mat-button type="button" (click)="deactivate(user)" [attr.aria-label]="'Deactivate ' + user.username">Deactivate</button>
               }
