@@ -41,5 +41,7 @@ export async function knownIds(h: Harness): Promise<KnownIds> {
     turnovers: await ids('turnovers'),
     logEntries: await ids('cleaning_log'),
     shiftTasks: await ids('shift_tasks'),
+    equipment: await ids('equipment'),
+    otherUsers: (await h.db('users').whereNotIn('username', [...ROLES]).orderBy('id').pluck('id')) as number[],
   };
 }

@@ -8,6 +8,9 @@ export interface KnownIds {
   turnovers: number[];
   logEntries: number[];
   shiftTasks: number[];
+  equipment: number[];
+  /** Users other than the demo accounts the fuzz signs in as (so it does not lock itself out). */
+  otherUsers: number[];
 }
 
 /** A route's inputs by name, each with plausible (mostly valid) values, the nasty ones being added by the fuzz: the body's fields, the query's, the path's. */
@@ -28,9 +31,18 @@ const fixIds = fc.oneof(
   fc.constantFrom('add-helper:0', 'add-helper:-1', 'push-later:1e3', '::', 'add-helper:1:2', ':'),
 );
 
-function id(known: number[]): fc.Arbitrary<string> {
-  return fc.oneof(fc.constantFrom(...(known.length ? known : [1])), fc.integer({ min: 0, max: 10_000 })).map(String);
+function id(known: number[], fallback = 1): fc.Arbitrary<string> {
+  return fc.oneof(fc.constantFrom(...(known.length ? known : [fallback])), fc.integer({ min: 0, max: 10_000 })).map(String);
 }
+
+const equipmentFields = {
+  name: fc.oneof(fc.string({ minLength: 1, maxLength: 80 }), fc.constantFrom('Knee coil', ' mop ', '')),
+  kind: fc.constantFrom('coil', 'cushion', 'cart', 'bucket', 'mop', 'spray-bottle'),
+  marking: fc.constantFrom('mr-safe', 'mr-conditional', 'mr-unsafe', 'not-marked'),
+  conditions: fc.string({ maxLength: 500 }),
+  notes: fc.string({ maxLength: 500 }),
+};
+const password = fc.oneof(fc.string({ minLength: 12, maxLength: 40 }), fc.constantFrom('short', 'p'.repeat(201)));
 
 /**
  * The shape of a route without one below, guessed from its path: `:date` a day, other params
@@ -98,5 +110,47 @@ export function routeShapes(ids: KnownIds): Record<string, RouteShape> {
     'post /api/log/:id/corrections': { params: { id: id(ids.logEntries) }, body: { note: text(500) } },
     'get /api/rooms/:id/tasks': { params: room, query: dayQuery },
     'post /api/shift-tasks/:taskId/done': { params: { taskId: id(ids.shiftTasks) }, body: { due: isoInstant } },
+    'get /api/rooms/setup': { params: {} },
+    'put /api/rooms/:id': {
+      params: room,
+      body: {
+        name: fc.oneof(fc.string({ minLength: 1, maxLength: 40 }), fc.constantFrom('MR 1', 'CT 1', 'mr 2')),
+        modality: fc.constantFrom('MR', 'CT', 'US', 'OT'),
+        airChangesPerHour: fc.integer({ min: 1, max: 60 }),
+        staff: small(1, 4),
+        opensAt: hhmm,
+        closesAt: hhmm,
+      },
+    },
+    'post /api/rooms/:id/retire': { params: room },
+    'post /api/rooms/:id/restore': { params: room },
+    'get /api/rooms/:id/kit': { params: room },
+    'put /api/rooms/:id/kit': { params: room, body: { equipmentIds: fc.array(id(ids.equipment).map(Number), { maxLength: 6 }) } },
+    'get /api/equipment': { params: {} },
+    'post /api/equipment': { params: {}, body: equipmentFields },
+    'put /api/equipment/:id': { params: { id: id(ids.equipment) }, body: equipmentFields },
+    'post /api/equipment/:id/retire': { params: { id: id(ids.equipment) } },
+    'get /api/users': { params: {} },
+    'post /api/users': {
+      params: {},
+      body: {
+        username: fc.oneof(fc.stringMatching(/^[a-z0-9._-]{2,20}$/), fc.constantFrom('admin', 'ADMIN', 'a', 'x'.repeat(65))),
+        displayName: fc.string({ minLength: 1, maxLength: 120 }),
+        email: fc.oneof(fc.emailAddress(), fc.constantFrom('not-an-email', '')),
+        role: fc.constantFrom('admin', 'charge', 'tech', 'scheduler', 'frontdesk', 'root'),
+        password,
+      },
+    },
+    'patch /api/users/:id': {
+      params: { id: id(ids.otherUsers, 999) },
+      body: { displayName: fc.string({ minLength: 1, maxLength: 120 }), email: fc.emailAddress(), role: fc.constantFrom('admin', 'charge', 'tech', 'scheduler', 'frontdesk') },
+    },
+    'post /api/users/:id/password': { params: { id: id(ids.otherUsers, 999) }, body: { password } },
+    'post /api/users/:id/deactivate': { params: { id: id(ids.otherUsers, 999) } },
+    'post /api/users/:id/reactivate': { params: { id: id(ids.otherUsers, 999) } },
+    'get /api/profile': { params: {} },
+    // a wrong current password only: the fuzz keeps the demo accounts' passwords
+    'put /api/profile/password': { params: {}, body: { currentPassword: fc.string({ maxLength: 40 }), newPassword: password } },
+    'get /api/audit': { params: {}, query: { limit: fc.integer({ min: 1, max: 100 }).map(String), offset: fc.nat(1000).map(String) } },
   };
 }
