@@ -16,9 +16,7 @@ import { errorHandler } from './middleware/error-handler';
 import { xsrfTokens } from './middleware/xsrf';
 import { passwordGate } from './middleware/password-gate';
 import { authenticate, findActiveUser } from './services/users';
-import { authRoutes, type SignInLimits } from './routes/auth';
-import { roomRoutes } from './routes/rooms';
-import { settingsRoutes } from './routes/settings';
+import type { SignInLimits } from './routes/auth';
 import { apiRoutes } from './routes/api';
 import { DayEvents } from './services/day-events';
 import { SessionStore } from './services/session-store';
@@ -130,25 +128,24 @@ export function createApp(deps: AppDeps): Express {
   api.use(xsrf.middleware);
   api.use(passwordGate);
 
-  api.get('/health', (_req, res) => {
-    res.json({ status: 'ok', demo: Boolean(deps.demo), time: clock.now().toISOString() });
-  });
   api.use(
-    '/auth',
-    authRoutes({
+    apiRoutes({
       db: deps.db,
-      passport,
+      clock,
+      events,
+      workers,
+      fixesPool,
       demo: Boolean(deps.demo),
-      limits: { perAccount: 10, perAddress: 30, ...deps.signInLimits },
-      secret: deps.sessionSecret,
-      secure: production,
-      xsrf,
-      sessionCookie: SESSION_COOKIE,
+      auth: {
+        passport,
+        limits: { perAccount: 10, perAddress: 30, ...deps.signInLimits },
+        secret: deps.sessionSecret,
+        secure: production,
+        xsrf,
+        sessionCookie: SESSION_COOKIE,
+      },
     }),
   );
-  api.use('/rooms', roomRoutes({ db: deps.db, clock, events }));
-  api.use('/settings', settingsRoutes({ db: deps.db, clock }));
-  api.use(apiRoutes({ db: deps.db, clock, events, workers, fixesPool }));
   api.use(() => {
     throw new NotFoundError('No such API route.');
   });

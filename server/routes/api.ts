@@ -4,6 +4,7 @@ import type { Clock } from '../clock';
 import type { DayEvents } from '../services/day-events';
 import type { WorkerPool } from '../workers/pool';
 import type { FixesPool } from '../workers/fixes-pool';
+import { authRoutes, type AuthDeps } from './auth';
 import { dayChangeRoutes } from './day-changes';
 import { dayRoutes } from './days';
 import { examRoutes } from './exams';
@@ -15,15 +16,36 @@ import { turnoverRoutes } from './turnovers';
 import { auditRoutes } from './audit';
 import { equipmentRoutes } from './equipment';
 import { profileRoutes } from './profile';
+import { roomRoutes } from './rooms';
 import { roomSetupRoutes } from './room-setup';
+import { settingsRoutes } from './settings';
 import { userRoutes } from './users';
 
+export interface ApiDeps {
+  db: Knex;
+  clock: Clock;
+  events: DayEvents;
+  workers: WorkerPool;
+  fixesPool: FixesPool;
+  demo: boolean;
+  /** What sign-in needs from the app (sessions, XSRF, throttling). */
+  auth: Omit<AuthDeps, 'db' | 'demo'>;
+}
+
 /**
- * Day-plan routes: days (plan, import, history, fixes, events) and exams (moves, staffing);
- * the day itself: board, arrivals, turnovers, shift tasks and the cleaning log.
+ * Every router of the API, mounted in one place (app.ts adds only the middleware around them):
+ * health and sign-in; rooms and settings; days (plan, import, history, fixes, events) and exams
+ * (moves, staffing); the day itself: board, arrivals, turnovers, shift tasks and the cleaning
+ * log; Setup and each user's own profile.
  */
-export function apiRoutes(deps: { db: Knex; clock: Clock; events: DayEvents; workers: WorkerPool; fixesPool: FixesPool }): Router {
+export function apiRoutes(deps: ApiDeps): Router {
   const router = Router();
+  router.get('/health', (_req, res) => {
+    res.json({ status: 'ok', demo: deps.demo, time: deps.clock.now().toISOString() });
+  });
+  router.use('/auth', authRoutes({ ...deps.auth, db: deps.db, demo: deps.demo }));
+  router.use('/rooms', roomRoutes(deps));
+  router.use('/settings', settingsRoutes(deps));
   router.use('/days', dayRoutes(deps), dayChangeRoutes(deps));
   router.use('/exams', examRoutes(deps), examProgressRoutes(deps));
   // Rooms now, checklists, the cleaning log and shift tasks

@@ -5,11 +5,8 @@ import { requireUser } from '../middleware/roles';
 import { loadBoard } from '../services/board';
 import { loadChecklist } from '../services/checklist';
 import type { DayEvents } from '../services/day-events';
-import { readSettings } from '../services/settings';
-import { shiftTasksOfDay } from '../services/shift-tasks';
-import { NotFoundError } from '../errors';
-import { dayOrToday, idParam } from './params';
-import { parseDay } from './days';
+import { roomTasksOfDay } from '../services/shift-tasks';
+import { dayOrToday, idParam, parseDay } from './params';
 
 /** Rooms now, a room's turnover checklist and its shift tasks: every signed-in role reads them. */
 export function boardRoutes(deps: { db: Knex; clock: Clock; events: DayEvents }): Router {
@@ -27,11 +24,8 @@ export function boardRoutes(deps: { db: Knex; clock: Clock; events: DayEvents })
 
   router.get('/rooms/:id/tasks', requireUser, async (req, res) => {
     const now = deps.clock.now();
-    const roomId = idParam(req.params['id'], 'a room');
     const day = await dayOrToday(deps.db, req.query['date'], now);
-    if (!(await deps.db('rooms').where({ id: roomId, active: true }).first('id'))) throw new NotFoundError(`No room ${roomId}.`);
-    const { timezone } = await readSettings(deps.db);
-    res.json({ tasks: (await shiftTasksOfDay(deps.db, [roomId], day, timezone, now)).get(roomId)! });
+    res.json({ tasks: await roomTasksOfDay(deps.db, idParam(req.params['id'], 'a room'), day, now) });
   });
 
   return router;

@@ -11,7 +11,8 @@ import { dayHistory, undoOrRedo } from '../services/plan-changes';
 import { parseInput } from '../validate';
 import type { FixesPool } from '../workers/fixes-pool';
 import { MAX_FIX_GAPS_PER_CALL } from '../../shared/fixes/model';
-import { parseDay } from './days';
+import { publishDayEvent } from './announce';
+import { parseDay } from './params';
 
 const examId = z.coerce.number().int().positive().max(Number.MAX_SAFE_INTEGER);
 /** `?gap=` (one gap's fixes) alone, or a page: `?limit=` problem gaps (at most 20) `&after=` a page's `next`. */
@@ -27,7 +28,6 @@ const applySchema = z.object({ fixId: z.string().min(1).max(80), acceptNewProble
 /** History, undo/redo, suggested fixes and the live event stream of a day. */
 export function dayChangeRoutes(deps: { db: Knex; clock: Clock; events: DayEvents; fixesPool: FixesPool }): Router {
   const router = Router();
-  const publish = (date: string, reason: string, by: string) => deps.events.publish({ date, kind: 'plan', reason, by, at: deps.clock.now().toISOString() });
 
   router.get('/:date/history', requireUser, async (req, res) => {
     res.json({ changes: await dayHistory(deps.db, parseDay(req.params['date'])) });
@@ -39,7 +39,7 @@ export function dayChangeRoutes(deps: { db: Knex; clock: Clock; events: DayEvent
       const user = currentUser(req);
       const done = await undoOrRedo(deps.db, day, user.id, mode, deps.clock.now());
       if (!done) throw mode === 'undo' ? new Refusal('nothing_to_undo', 'You have nothing to undo on this day.', undefined) : new Refusal('nothing_to_redo', 'You have nothing to redo on this day.', undefined);
-      publish(day, mode, user.displayName || user.username);
+      publishDayEvent(deps, day, 'plan', mode, user);
       res.json(await loadDayPlan(deps.db, day));
     });
   }
@@ -56,7 +56,7 @@ export function dayChangeRoutes(deps: { db: Knex; clock: Clock; events: DayEvent
     const { fixId, acceptNewProblems } = parseInput(applySchema, req.body, 'fix');
     const user = currentUser(req);
     const fix = await applyFix(deps.db, deps.fixesPool, day, fixId, acceptNewProblems, user.id, deps.clock.now());
-    publish(day, 'suggestion', user.displayName || user.username);
+    publishDayEvent(deps, day, 'plan', 'suggestion', user);
     res.json({ applied: fix, plan: await loadDayPlan(deps.db, day) });
   });
 

@@ -1,7 +1,6 @@
 import { Router, type RequestHandler } from 'express';
 import type { Knex } from 'knex';
 import multer from 'multer';
-import { DateTime } from 'luxon';
 import type { Clock } from '../clock';
 import type { DayEvents } from '../services/day-events';
 import { z } from 'zod';
@@ -13,22 +12,13 @@ import { parseInput } from '../validate';
 import { currentUser, requireRole, requireUser } from '../middleware/roles';
 import { loadCachedDayPlan } from '../services/day-plan';
 import { importExamList } from '../services/exam-import';
+import { publishDayEvent } from './announce';
+import { parseDay } from './params';
 
 const dryRunQuery = z.object({
   dryRun: z.enum(['true', 'false']).optional(),
   dayVersion: z.coerce.number().int().min(0).optional(),
 });
-
-/** Rooms may close after midnight, so a day's plan reaches into the next: that day must be writable too. */
-const LAST_DAY = '9999-12-30';
-
-/** `YYYY-MM-DD` that is a real calendar day (up to {@link LAST_DAY}). */
-export function parseDay(value: unknown): string {
-  if (typeof value !== 'string' || !/^\d{4}-\d{2}-\d{2}$/.test(value) || !DateTime.fromISO(value).isValid || value > LAST_DAY) {
-    throw new ValidationError(`"${String(value ?? '')}" is not a date; use YYYY-MM-DD.`);
-  }
-  return value;
-}
 
 export function dayRoutes(deps: { db: Knex; clock: Clock; events: DayEvents; workers: WorkerPool }): Router {
   const router = Router();
@@ -64,7 +54,7 @@ export function dayRoutes(deps: { db: Knex; clock: Clock; events: DayEvents; wor
       now: deps.clock.now(),
       expectedDayVersion: query.dayVersion,
     });
-    if (!result.dryRun) deps.events.publish({ date: day, kind: 'plan', reason: 'import', by: user.displayName || user.username, at: deps.clock.now().toISOString() });
+    if (!result.dryRun) publishDayEvent(deps, day, 'plan', 'import', user);
     res.json(result);
   });
 

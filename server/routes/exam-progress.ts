@@ -8,7 +8,7 @@ import { loadChecklist } from '../services/checklist';
 import type { DayEvents } from '../services/day-events';
 import { finishExam } from '../services/turnovers';
 import { parseInput } from '../validate';
-import { announcer } from './announce';
+import { publishDayEvent } from './announce';
 import { idParam } from './params';
 
 /** Only needed to record an end before the slot's start: why (logged). */
@@ -17,19 +17,18 @@ const finishSchema = z.object({ earlyReason: z.string().max(500).optional() });
 /** What happens to an exam on the day itself: the patient arrives, the exam finishes. */
 export function examProgressRoutes(deps: { db: Knex; clock: Clock; events: DayEvents }): Router {
   const router = Router();
-  const announce = announcer(deps);
 
   router.post('/:id/arrived', requireRole('frontdesk', 'charge', 'tech'), async (req, res) => {
     const user = currentUser(req);
     const { arrivedAt, day } = await markArrived(deps.db, idParam(req.params['id'], 'an exam'), user.id, deps.clock.now());
-    announce(day, ['board'], 'arrived', user);
+    publishDayEvent(deps, day, ['board'], 'arrived', user);
     res.json({ arrivedAt });
   });
 
   router.delete('/:id/arrived', requireRole('frontdesk', 'charge', 'tech'), async (req, res) => {
     const user = currentUser(req);
     const day = await unmarkArrived(deps.db, idParam(req.params['id'], 'an exam'));
-    announce(day, ['board'], 'arrival undone', user);
+    publishDayEvent(deps, day, ['board'], 'arrival undone', user);
     res.json({ arrivedAt: null });
   });
 
@@ -39,7 +38,7 @@ export function examProgressRoutes(deps: { db: Knex; clock: Clock; events: DayEv
     const user = currentUser(req);
     const now = deps.clock.now();
     const ref = await finishExam(deps.db, idParam(req.params['id'], 'an exam'), user, now, earlyReason);
-    announce(ref.day, ['board', 'log'], 'exam finished', user);
+    publishDayEvent(deps, ref.day, ['board', 'log'], 'exam finished', user);
     res.status(201).json(await loadChecklist(deps.db, ref.roomId, ref.day, now, ref.turnoverId));
   });
 

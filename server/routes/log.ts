@@ -9,11 +9,11 @@ import { logCsv } from '../services/log-csv';
 import { readSettings } from '../services/settings';
 import { localIso } from '../services/turnovers';
 import { parseInput } from '../validate';
-import { announcer } from './announce';
-import { idParam } from './params';
+import { publishDayEvent } from './announce';
+import { idParam, parseDay } from './params';
 
 const filterSchema = z.object({
-  date: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'use YYYY-MM-DD').optional(),
+  date: z.string().optional(),
   roomId: z.coerce.number().int().positive().optional(),
   user: z.string().min(1).max(64).optional(),
 });
@@ -21,7 +21,8 @@ const correctionSchema = z.object({ note: z.string().trim().min(1, 'say what was
 
 function filterOf(req: Request): LogFilter {
   const { date, roomId, user } = parseInput(filterSchema, req.query, 'filter');
-  return { day: date, roomId, username: user };
+  // the same day check as every other route (a real calendar day, not just its shape)
+  return { day: date === undefined ? undefined : parseDay(date), roomId, username: user };
 }
 
 /**
@@ -30,7 +31,6 @@ function filterOf(req: Request): LogFilter {
  */
 export function logRoutes(deps: { db: Knex; clock: Clock; events: DayEvents }): Router {
   const router = Router();
-  const announce = announcer(deps);
   const readers = requireRole('tech', 'charge');
 
   router.get('/log', readers, async (req, res) => {
@@ -49,7 +49,7 @@ export function logRoutes(deps: { db: Knex; clock: Clock; events: DayEvents }): 
     const now = deps.clock.now();
     const { timezone } = await readSettings(deps.db);
     const entry = await correctLog(deps.db, idParam(req.params['id'], 'a log entry'), note, user, { at: localIso(now, timezone), atMs: now.getTime() });
-    announce(entry.day, ['log'], 'correction', user);
+    publishDayEvent(deps, entry.day, ['log'], 'correction', user);
     res.status(201).json(entry);
   });
 

@@ -8,14 +8,14 @@ import { currentUser, requireRole, requireUser } from '../middleware/roles';
 import { roomKit, setRoomKit } from '../services/equipment';
 import { listSetupRooms, restoreRoom, retireRoom, updateRoom } from '../services/room-setup';
 import { parseInput } from '../validate';
+import { publishDayEvent } from './announce';
 import { dayOrToday, idParam } from './params';
 
 /** Setup → Rooms (admin): edit, retire, restore, and each room's cleaning kit. */
 export function roomSetupRoutes(deps: { db: Knex; clock: Clock; events: DayEvents }): Router {
   const router = Router();
-  const replanned = (by: string) =>
-    // rooms shape every day's plan and the board: open screens refetch
-    deps.events.publish({ date: '*', kind: 'plan', reason: 'setup', by, at: deps.clock.now().toISOString() });
+  // rooms shape every day's plan and the board: open screens refetch
+  const replanned = (user: { displayName: string; username: string }) => publishDayEvent(deps, '*', 'plan', 'setup', user);
 
   router.get('/setup', requireRole('admin'), async (_req, res) => {
     res.json({ rooms: await listSetupRooms(deps.db) });
@@ -24,7 +24,7 @@ export function roomSetupRoutes(deps: { db: Knex; clock: Clock; events: DayEvent
   router.put('/:id', requireRole('admin'), async (req, res) => {
     const input = parseInput(roomInputSchema, req.body, 'room');
     const room = await updateRoom(deps.db, idParam(req.params['id'], 'a room'), input, currentUser(req), deps.clock.now());
-    replanned(currentUser(req).displayName || currentUser(req).username);
+    replanned(currentUser(req));
     res.json({ room });
   });
 
@@ -32,13 +32,13 @@ export function roomSetupRoutes(deps: { db: Knex; clock: Clock; events: DayEvent
     const now = deps.clock.now();
     const today = await dayOrToday(deps.db, undefined, now);
     const room = await retireRoom(deps.db, idParam(req.params['id'], 'a room'), today, currentUser(req), now);
-    replanned(currentUser(req).displayName || currentUser(req).username);
+    replanned(currentUser(req));
     res.json({ room });
   });
 
   router.post('/:id/restore', requireRole('admin'), async (req, res) => {
     const room = await restoreRoom(deps.db, idParam(req.params['id'], 'a room'), currentUser(req), deps.clock.now());
-    replanned(currentUser(req).displayName || currentUser(req).username);
+    replanned(currentUser(req));
     res.json({ room });
   });
 

@@ -7,7 +7,7 @@ import type { DayEvents } from '../services/day-events';
 import { readSettings } from '../services/settings';
 import { markShiftTaskDone } from '../services/shift-tasks';
 import { parseInput } from '../validate';
-import { announcer } from './announce';
+import { publishDayEvent } from './announce';
 import { idParam } from './params';
 
 const doneSchema = z.object({ due: z.string().datetime({ offset: true, message: 'due must be ISO 8601 with an offset' }) });
@@ -15,14 +15,13 @@ const doneSchema = z.object({ due: z.string().datetime({ offset: true, message: 
 /** Ticking off a recurring shift task's occurrence (logged as a `shift task` entry). */
 export function shiftTaskRoutes(deps: { db: Knex; clock: Clock; events: DayEvents }): Router {
   const router = Router();
-  const announce = announcer(deps);
 
   router.post('/:taskId/done', requireRole('tech', 'charge'), async (req, res) => {
     const { due } = parseInput(doneSchema, req.body ?? {}, 'shift task');
     const user = currentUser(req);
     const { timezone } = await readSettings(deps.db);
     const result = await markShiftTaskDone(deps.db, idParam(req.params['taskId'], 'a shift task'), due, user, timezone, deps.clock.now());
-    announce(result.day, ['board', 'log'], 'shift task', user);
+    publishDayEvent(deps, result.day, ['board', 'log'], 'shift task', user);
     res.status(201).json({ task: result.task });
   });
 

@@ -8,7 +8,7 @@ import type { DayEvents } from '../services/day-events';
 import { completeTurnover } from '../services/turnover-complete';
 import { tickStep } from '../services/turnover-ticks';
 import { parseInput } from '../validate';
-import { announcer } from './announce';
+import { publishDayEvent } from './announce';
 import { idParam } from './params';
 
 const tickSchema = z.object({
@@ -20,14 +20,13 @@ const completeSchema = z.object({ overrideReason: z.string().max(500).optional()
 /** The technologist's checklist: tick steps, complete the turnover. */
 export function turnoverRoutes(deps: { db: Knex; clock: Clock; events: DayEvents }): Router {
   const router = Router();
-  const announce = announcer(deps);
 
   router.post('/:id/steps/:key/done', requireRole('tech', 'charge'), async (req, res) => {
     const input = parseInput(tickSchema, req.body ?? {}, 'step');
     const user = currentUser(req);
     const now = deps.clock.now();
     const ref = await tickStep(deps.db, idParam(req.params['id'], 'a turnover'), String(req.params['key']), input, user, now);
-    announce(ref.day, ['board', 'log'], 'step done', user);
+    publishDayEvent(deps, ref.day, ['board', 'log'], 'step done', user);
     res.json(await loadChecklist(deps.db, ref.roomId, ref.day, now, ref.turnoverId));
   });
 
@@ -36,7 +35,7 @@ export function turnoverRoutes(deps: { db: Knex; clock: Clock; events: DayEvents
     const user = currentUser(req);
     const now = deps.clock.now();
     const ref = await completeTurnover(deps.db, idParam(req.params['id'], 'a turnover'), overrideReason, user, now);
-    announce(ref.day, ['board', 'log'], 'turnover complete', user);
+    publishDayEvent(deps, ref.day, ['board', 'log'], 'turnover complete', user);
     res.json(await loadChecklist(deps.db, ref.roomId, ref.day, now, ref.turnoverId));
   });
 

@@ -3,6 +3,7 @@ import { DateTime } from 'luxon';
 import type { BoardShiftTask } from '../../shared/api/board';
 import { NotFoundError, Refusal, ValidationError } from '../errors';
 import { appendLog } from './cleaning-log';
+import { readSettings } from './settings';
 import { defaultShiftTasks, occurrencesOn } from './shift-task-rules';
 import type { UserRecord } from './users';
 
@@ -26,6 +27,17 @@ export async function addDefaultShiftTasks(db: Knex, roomId: number, room: { ope
     created_at: now.toISOString(),
   }));
   await db('shift_tasks').insert(rows).onConflict(['room_id', 'key']).ignore();
+}
+
+/**
+ * One active room's shift tasks on a day (the Turnover screen's list), at the site's zone.
+ *
+ * @throws NotFoundError when there is no such active room
+ */
+export async function roomTasksOfDay(db: Knex, roomId: number, day: string, now: Date): Promise<BoardShiftTask[]> {
+  if (!(await db('rooms').where({ id: roomId, active: true }).first('id'))) throw new NotFoundError(`No room ${roomId}.`);
+  const { timezone } = await readSettings(db);
+  return (await shiftTasksOfDay(db, [roomId], day, timezone, now)).get(roomId) ?? [];
 }
 
 /**

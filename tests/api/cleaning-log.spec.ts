@@ -80,6 +80,9 @@ describe('the append-only cleaning log', () => {
     expect(await log('&user=charge')).toEqual([]);
     expect((await log('&user=tech')).length).toBe(all.length);
     expect((await tech.get('/api/log?date=2027-03-11')).body.entries).toEqual([]);
+    // the same day check as every route: a real calendar day, not only its shape
+    const bad = await tech.get('/api/log?date=2027-02-30');
+    expect([bad.status, bad.body.error.code]).toEqual([422, 'validation_failed']);
   });
 
   it('has no route that updates or deletes an entry', async () => {
