@@ -1,89 +1,12 @@
 /**
  * `GET /api/days/:date/plan` and `PATCH /api/exams/:id` response types (the public contract).
- * Every time is ISO 8601 with the site's offset, e.g. `2027-03-15T07:00:00-05:00`.
+ * The plan's own types are the engine's (`shared/turnover/day-plan-types.ts`).
  */
 import type { DayPlanInput } from '../turnover/day-plan-input';
-import type { Mobility, Precaution, Verdict } from '../turnover/model';
+import type { DayPlan } from '../turnover/day-plan-types';
 
-export type { Mobility, Precaution, Verdict };
-
-/** A turnover step placed in time. */
-export interface PlanStep {
-  key: string;
-  label: string;
-  start: string;
-  end: string;
-  /** When the surface may be used again (equals `end` for a step with no wait). */
-  dryAt: string;
-  /** 0-based person on the turnover. */
-  person: number;
-}
-
-/** The turnover between two exams of a room (or the room's opening and its first exam). */
-export interface PlanGap {
-  /** null for the opening gap of the day. */
-  fromExamId: number | null;
-  toExamId: number;
-  /** Real elapsed whole minutes from A's end (or opening) to B's start; negative on overlap. */
-  availableMinutes: number;
-  requiredMinutes: number;
-  verdict: Verdict;
-  shortByMinutes: number;
-  /** A's end (or opening) + required. */
-  readyAt: string;
-  /** 0 unless A was under airborne precautions. */
-  airHoldMinutes: number;
-  staff: number;
-  steps: PlanStep[];
-}
-
-export interface PlanExam {
-  id: number;
-  accession: string;
-  roomId: number;
-  start: string;
-  end: string;
-  durationMinutes: number;
-  procedure: string;
-  coil: string | null;
-  precaution: Precaution;
-  mobility: Mobility;
-  contrast: boolean;
-  notes: string | null;
-  version: number;
-  /** Starts before the room opens or ends after it closes (flagged, never refused). */
-  outsideHours: boolean;
-}
-
-export interface PlanRoom {
-  id: number;
-  name: string;
-  modality: string;
-  staff: number;
-  /** The room's opening and closing on this date. */
-  opensAt: string;
-  closesAt: string;
-  exams: PlanExam[];
-  gaps: PlanGap[];
-}
-
-export interface PlanSummary {
-  fits: number;
-  snug: number;
-  short: number;
-  overlap: number;
-  /** Sum of every gap's shortBy. */
-  minutesShort: number;
-}
-
-export interface DayPlan {
-  /** `YYYY-MM-DD`, the site's local date. */
-  date: string;
-  /** IANA zone of the site. */
-  timezone: string;
-  rooms: PlanRoom[];
-  summary: PlanSummary;
-}
+export type { Mobility, Precaution, Verdict } from '../turnover/model';
+export type { DayPlan, PlanExam, PlanGap, PlanRoom, PlanStep, PlanSummary } from '../turnover/day-plan-types';
 
 /**
  * A day's plan as the API answers it (`GET /api/days/:date/plan` and every change): the plan and

@@ -1,4 +1,4 @@
-import type { PlanExam, PlanGap, PlanStep } from '../api/plan';
+import type { PlanExam, PlanGap, PlanStep } from './day-plan-types';
 import type { DayPlanExam } from './day-plan-input';
 import type { TurnoverPlan } from './model';
 import type { GapVerdict } from './verdict';

@@ -1,5 +1,5 @@
 import { DateTime } from 'luxon';
-import type { DayPlan, PlanGap, PlanRoom, PlanSummary } from '../api/plan';
+import type { DayPlan, PlanGap, PlanRoom, PlanSummary } from './day-plan-types';
 import { DEFAULT_CLOSES_AT, DEFAULT_OPENS_AT, type DayPlanInput, type DayPlanRoom } from './day-plan-input';
 import type { Protocol } from './model';
 import { turnoverCaches, turnoverFor, type TurnoverCache } from './day-plan-cache';
