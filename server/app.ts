@@ -104,6 +104,8 @@ export function createApp(deps: AppDeps): Express {
 
   const SESSION_COOKIE = 'turnwise.sid';
   const xsrf = xsrfTokens({ secret: deps.sessionSecret, secure: production });
+  // Expired sessions are swept in production only; closeApp stops the sweep before the database closes.
+  const sessionStore = new SessionStore({ knex: deps.db, createTable: false, cleanupInterval: production ? 60_000 : 0 });
   const api = express.Router();
   // set first so that a route (the plan, with its ETag) can replace it
   api.use((_req, res, next) => {
@@ -116,7 +118,7 @@ export function createApp(deps: AppDeps): Express {
     session({
       name: SESSION_COOKIE,
       secret: deps.sessionSecret,
-      store: new SessionStore({ knex: deps.db, createTable: false, cleanupInterval: production ? 60_000 : 0 }),
+      store: sessionStore,
       resave: false,
       saveUninitialized: false,
       rolling: true,
@@ -159,7 +161,10 @@ export function createApp(deps: AppDeps): Express {
 
   app.use(errorHandler(logError));
   // Whoever ends the app (main.ts on a signal, a test's afterAll) closes its worker threads.
-  app.locals['close'] = () => Promise.all([workers.close(), fixesPool.close()]).then(() => undefined);
+  app.locals['close'] = () => {
+    sessionStore.close();
+    return Promise.all([workers.close(), fixesPool.close()]).then(() => undefined);
+  };
   return app;
 }
 

@@ -26,6 +26,13 @@ export class SessionStore extends ConnectSessionKnexStore {
     await super.touch(sid, session, callback);
   }
 
+  /** Stops the periodic removal of expired sessions, before the database is closed. */
+  close(): void {
+    clearTimeout(this.nextDbCleanup);
+    // A cleanup already under way finishes; the library schedules the next only while the interval is set.
+    this.options.cleanupInterval = 0;
+  }
+
   override destroy(sid: string, callback?: (err?: unknown) => void): Promise<number> {
     this.touched.delete(sid);
     return super.destroy(sid, callback);

@@ -1,3 +1,4 @@
+/// <reference lib="dom" />
 import assert from 'node:assert/strict';
 import { after, before, describe, test } from 'node:test';
 import type { Browser } from 'playwright-core';
