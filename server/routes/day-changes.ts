@@ -30,7 +30,7 @@ export function dayChangeRoutes(deps: { db: Knex; clock: Clock; events: DayEvent
   const router = Router();
 
   router.get('/:date/history', requireUser, async (req, res) => {
-    res.json({ changes: await dayHistory(deps.db, parseDay(req.params['date'])) });
+    res.json(await dayHistory(deps.db, parseDay(req.params['date']), currentUser(req).id));
   });
 
   for (const mode of ['undo', 'redo'] as const) {

@@ -1,7 +1,9 @@
 import type { Knex } from 'knex';
-import type { ChangeReason, PlanChange, PlanChangeRecord } from '../../shared/api/changes';
+import { DateTime } from 'luxon';
+import type { ChangeReason, DayHistory, ExamMove, PlanChange, PlanChangeRecord } from '../../shared/api/changes';
 import { Refusal } from '../errors';
 import { examColumnsForMove } from './exams';
+import { readSettings } from './settings';
 
 interface ChangeRow {
   id: number;
@@ -35,24 +37,71 @@ export async function recordChange(
   return id as number;
 }
 
-export async function dayHistory(db: Knex, day: string): Promise<PlanChangeRecord[]> {
+/**
+ * The day's changes, newest first, with every time at the site's offset (the API's contract;
+ * rows store UTC), and whether `userId` has an action of their own to undo or redo.
+ */
+export async function dayHistory(db: Knex, day: string, userId: number): Promise<DayHistory> {
+  const { timezone } = await readSettings(db);
   const rows: ChangeRow[] = await db('plan_changes')
     .join('users', 'users.id', 'plan_changes.user_id')
     .where('plan_changes.day', day)
     .orderBy('plan_changes.id', 'desc')
     .select('plan_changes.*', 'users.username', 'users.display_name');
-  return rows.map((r) => ({
-    id: r.id,
-    day: r.day,
-    username: r.username,
-    displayName: r.display_name,
-    reason: r.reason,
-    summary: r.summary,
-    changes: JSON.parse(r.changes) as PlanChange[],
-    revertsId: r.reverts_id,
-    undone: r.undone_at !== null,
-    at: r.created_at,
-  }));
+  // Retired rooms too: an old move still names the room it left.
+  const rooms = new Map<number, string>((await db('rooms').select('id', 'name')).map((r: { id: number; name: string }) => [r.id, r.name]));
+  const byId = new Map(rows.map((r) => [r.id, r]));
+  const siteTime = (iso: string) => DateTime.fromISO(iso, { zone: timezone }).toISO({ suppressMilliseconds: true })!;
+  const changes = rows.map((r): PlanChangeRecord => {
+    const list = (JSON.parse(r.changes) as PlanChange[]).map((c) => (c.type === 'move' ? { ...c, from: { ...c.from, start: siteTime(c.from.start) }, to: { ...c.to, start: siteTime(c.to.start) } } : c));
+    return {
+      id: r.id,
+      day: r.day,
+      username: r.username,
+      displayName: r.display_name,
+      reason: r.reason,
+      summary: summaryOf(r, byId, rooms, timezone),
+      changes: list,
+      revertsId: r.reverts_id,
+      undone: r.undone_at !== null,
+      at: siteTime(r.created_at),
+    };
+  });
+  const targets = await undoTargets(db, day, userId);
+  return { changes, canUndo: targets.undo !== undefined, canRedo: targets.redo !== undefined };
+}
+
+/**
+ * A single move is worded from what moved, not from the text stored at the time, so every
+ * entry reads alike: "Moved A-2 from MR 1 10:05 to 10:20" (the room named again only when it
+ * changed). Undo and redo word the action they revert. Anything else keeps its stored summary.
+ */
+function summaryOf(row: ChangeRow, byId: Map<number, ChangeRow>, rooms: Map<number, string>, zone: string): string {
+  const reverted = row.reverts_id === null ? undefined : byId.get(row.reverts_id);
+  if ((row.reason === 'undo' || row.reason === 'redo') && reverted) {
+    return `${row.reason === 'undo' ? 'Undid' : 'Redid'}: ${summaryOf(reverted, byId, rooms, zone)}`;
+  }
+  const changes = JSON.parse(row.changes) as PlanChange[];
+  if (row.reason === 'suggestion' || changes.length !== 1 || changes[0]!.type !== 'move') return row.summary;
+  return moveWords(changes[0]!, rooms, zone);
+}
+
+function moveWords(move: ExamMove, rooms: Map<number, string>, zone: string): string {
+  const clock = (iso: string) => DateTime.fromISO(iso, { zone }).toFormat('HH:mm');
+  const room = (id: number) => rooms.get(id) ?? `room ${id}`;
+  const to = move.to.roomId === move.from.roomId ? clock(move.to.start) : `${room(move.to.roomId)} ${clock(move.to.start)}`;
+  return `Moved ${move.accession} from ${room(move.from.roomId)} ${clock(move.from.start)} to ${to}`;
+}
+
+/**
+ * The user's own action an undo would revert (latest not undone) and the one a redo would
+ * re-apply (most recently undone, unless they made a new action since).
+ */
+async function undoTargets(db: Knex, day: string, userId: number): Promise<{ undo?: ChangeRow; redo?: ChangeRow }> {
+  const own = db('plan_changes').where({ day, user_id: userId }).whereNotIn('reason', ['undo', 'redo']);
+  const undo: ChangeRow | undefined = await own.clone().whereNull('undone_at').orderBy('id', 'desc').first();
+  const undone: ChangeRow | undefined = await own.clone().whereNotNull('undone_at').orderBy('undone_at', 'desc').orderBy('id', 'desc').first();
+  return { undo, redo: undone && !(undo && undo.id > undone.id) ? undone : undefined };
 }
 
 /** Applies changes as they are described (moves to `to`, staffing to `to`); checks nothing moved meanwhile. */
@@ -89,15 +138,7 @@ export function invert(changes: PlanChange[]): PlanChange[] {
  */
 export async function undoOrRedo(db: Knex, day: string, userId: number, mode: 'undo' | 'redo', now: Date): Promise<PlanChangeRecord | null> {
   return db.transaction(async (trx) => {
-    const own = trx('plan_changes').where({ day, user_id: userId }).whereNotIn('reason', ['undo', 'redo']);
-    let target: ChangeRow | undefined;
-    if (mode === 'undo') {
-      target = await own.clone().whereNull('undone_at').orderBy('id', 'desc').first();
-    } else {
-      const latestAction = await own.clone().whereNull('undone_at').orderBy('id', 'desc').first();
-      target = await own.clone().whereNotNull('undone_at').orderBy('undone_at', 'desc').orderBy('id', 'desc').first();
-      if (target && latestAction && latestAction.id > target.id) target = undefined;
-    }
+    const target = (await undoTargets(trx, day, userId))[mode];
     if (!target) return null;
     const original = JSON.parse(target.changes) as PlanChange[];
     const changes = mode === 'undo' ? invert(original) : original;

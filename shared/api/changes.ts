@@ -37,6 +37,15 @@ export interface PlanChangeRecord {
   at: string;
 }
 
+/** `GET /api/days/:date/history`: the day's changes, and what the signed-in user may undo or redo. */
+export interface DayHistory {
+  changes: PlanChangeRecord[];
+  /** The user has an action of their own on this day that `POST …/undo` would revert. */
+  canUndo: boolean;
+  /** `POST …/redo` would re-apply the user's last undone action (no new action of theirs since). */
+  canRedo: boolean;
+}
+
 /** `PATCH /api/exams/:id` body. */
 export const examMoveSchema = z
   .object({
