@@ -3,6 +3,7 @@ import { readConfig } from './config';
 import { createDb, migrateToLatest } from './db';
 import { seedDemo, seedReferenceData } from './seeding';
 import { systemClock } from './clock';
+import { listDemoAccounts } from './services/demo-accounts';
 
 async function main(): Promise<void> {
   const config = readConfig();
@@ -24,8 +25,12 @@ async function main(): Promise<void> {
   if (config.production && config.trustProxy.length === 0) {
     console.warn('TRUST_PROXY is unset: X-Forwarded-For is ignored. Behind a TLS-terminating proxy, set it to the proxy address (README, Security).');
   }
+  const demoAccounts = config.demo ? await listDemoAccounts(db) : null;
   const server = app.listen(config.port, () => {
-    console.log(`Turnwise listening on http://localhost:${config.port} (${config.demo ? 'demo mode' : 'production'}; database ${config.databaseFile})`);
+    console.log(`Turnwise is ready at http://localhost:${config.port} (${config.demo ? 'demo mode' : 'production'}; database ${config.databaseFile})`);
+    if (demoAccounts) {
+      console.log(`Demo accounts (password "${demoAccounts.password}"): ${demoAccounts.accounts.map((a) => `${a.username} (${a.role})`).join(', ')}`);
+    }
   });
   const stop = () => server.close(() => Promise.all([closeApp(app), db.destroy()]).then(() => process.exit(0)));
   process.on('SIGINT', stop);
