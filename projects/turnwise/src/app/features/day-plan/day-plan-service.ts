@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 
-import type { PlanChangeRecord } from '@shared/api/changes';
+import type { DayHistory } from '@shared/api/changes';
 import type { PlannedDay } from '@shared/api/plan';
 import type { Room } from '@shared/api/rooms';
 import type { Fix } from '@shared/fixes/model';
@@ -47,9 +47,9 @@ export class DayPlanService {
     return this.http.post<PlannedDay>(`${day(date)}/redo`, {}, this.quiet);
   }
 
-  /** The day's changes, newest first. */
-  history(date: string): Observable<PlanChangeRecord[]> {
-    return this.http.get<{ changes: PlanChangeRecord[] }>(`${day(date)}/history`, this.quiet).pipe(map((body) => body.changes));
+  /** The day's changes, newest first, and whether the signed-in user has anything to undo or redo. */
+  history(date: string): Observable<DayHistory> {
+    return this.http.get<DayHistory>(`${day(date)}/history`, this.quiet);
   }
 
   /** The suggested fixes of one gap (the one before exam `toExamId`); none when it is not short or overlapping. */

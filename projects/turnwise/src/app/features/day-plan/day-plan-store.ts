@@ -42,6 +42,9 @@ export class DayPlanStore {
   private readonly day = serverState((date: string) => this.api.plan(date), 'The day plan could not be shown. Try again.');
   private readonly change = action((request: Observable<PlannedDay | null>) => request, 'That change could not be made. Try again.');
 
+  /** The day's changes and the user's undo/redo, per user on the server (never in the shared plan). */
+  private readonly changes = serverState((date: string) => this.api.history(date), 'The changes could not be loaded.');
+
   readonly date = this.day.key;
   readonly plan = this.day.value;
   readonly status = computed(() => (this.day.status() === 'idle' ? 'loading' : this.day.status()));
@@ -55,6 +58,11 @@ export class DayPlanStore {
   readonly updatedBy = signal<string | null>(null);
   /** Patients whose slot this screen's moves, fixes, undos and redos changed, since the day was opened or the list cleared. */
   readonly calls = signal<PatientToCall[]>([]);
+  readonly history = this.changes.value;
+  readonly historyStatus = computed(() => (this.changes.status() === 'idle' ? 'loading' : this.changes.status()));
+  readonly historyError = this.changes.error;
+  readonly canUndo = computed(() => this.history()?.canUndo ?? false);
+  readonly canRedo = computed(() => this.history()?.canRedo ?? false);
   /** The engine input for live previews while dragging: the server's own, sent with the plan. */
   readonly previewInput = computed(() => this.plan()?.input ?? null);
 
@@ -74,12 +82,14 @@ export class DayPlanStore {
     this.notice.set(null);
     this.calls.set([]);
     this.day.show(date);
+    this.changes.show(date);
     this.listen(date);
   }
 
   /** Fetches the day again, keeping the current plan on screen until the new one arrives. */
   reload(): void {
     this.day.reload();
+    this.changes.reload();
   }
 
   move(exam: PlanExam, roomId: number, start: string, reason: MoveReason): Promise<boolean> {
@@ -134,6 +144,8 @@ export class DayPlanStore {
       if (before) this.calls.update((list) => withMoves(list, movedExams(before, result.value!)));
       this.day.set(result.value);
     }
+    // Whatever changed, the user's undo and redo may have too.
+    this.changes.reload();
     this.notice.set(null);
     return true;
   }

@@ -4,7 +4,7 @@ import { DateTime } from 'luxon';
 
 import type { Fix } from '@shared/fixes/model';
 import { examplePlan, exampleRoom } from './testing/example-plan';
-import { DAY_INPUT, FakeEventSource, block, dayPlan, marker, renderDay, settle, text } from './testing/day-plan-harness';
+import { DAY_INPUT, FakeEventSource, answerHistory, block, dayPlan, marker, renderDay, settle, text } from './testing/day-plan-harness';
 
 const fix = (id: string, newProblems: number): Fix => ({
   id,
@@ -202,20 +202,49 @@ describe('DayPlan timeline', () => {
     await settle(fixture);
   });
 
-  it('shows the day\'s changes in the history panel: time, who, summary, reason', async () => {
-    const { page, fixture, backend } = await renderDay();
-    page.querySelector<HTMLButtonElement>('button.history')!.click();
-    await settle(fixture);
-    backend.expectOne('/api/days/2027-03-15/history').flush({
-      changes: [
-        { id: 4, day: '2027-03-15', username: 'sam', displayName: 'Sam Scheduler', reason: 'drag', summary: 'Moved ACC-2 from MR 1 08:45 08:55', changes: [], revertsId: null, undone: false, at: '2027-03-15T07:58:00-05:00' },
-      ],
+  it('shows the day\'s changes in the history panel: site time, who, summary, reason', async () => {
+    const { page, fixture } = await renderDay({
+      history: {
+        changes: [
+          { id: 4, day: '2027-03-15', username: 'sam', displayName: 'Sam Scheduler', reason: 'drag', summary: 'Moved ACC-2 from MR 1 08:45 to 08:55', changes: [], revertsId: null, undone: false, at: '2027-03-15T07:58:00-05:00' },
+        ],
+      },
     });
+    page.querySelector<HTMLButtonElement>('button.history')!.click();
     await settle(fixture);
     const row = page.querySelector('tw-history-panel li')!;
     expect(['.when', '.who', '.what', '.how'].map((part) => text(row.querySelector(part)))).toEqual([
-      '07:58', 'Sam Scheduler', 'Moved ACC-2 from MR 1 08:45 08:55', 'dragged',
+      '07:58', 'Sam Scheduler', 'Moved ACC-2 from MR 1 08:45 to 08:55', 'dragged',
     ]);
+  });
+
+  it('disables Undo and Redo when the server says the user has nothing to undo or redo', async () => {
+    const { page } = await renderDay({ history: { canUndo: false, canRedo: false } });
+    expect(page.querySelector<HTMLButtonElement>('button.undo')!.disabled).toBe(true);
+    expect(page.querySelector<HTMLButtonElement>('button.redo')!.disabled).toBe(true);
+  });
+
+  it('asks again after each change and each live event, and enables Undo / Redo as the answer says', async () => {
+    const { page, fixture, backend } = await renderDay({ history: { canUndo: false, canRedo: false } });
+    const undo = () => page.querySelector<HTMLButtonElement>('button.undo')!;
+    const redo = () => page.querySelector<HTMLButtonElement>('button.redo')!;
+    // A move of the user's own: now there is something to undo.
+    answerHistory({ canUndo: true });
+    page.querySelector<HTMLButtonElement>('button.history')!.click(); // any later refetch also feeds the panel
+    await settle(fixture);
+    const stream = FakeEventSource.last!;
+    stream.onopen!();
+    stream.emit({ date: '2027-03-15', kind: 'plan', reason: 'drag', by: 'Jo Charge', at: '2027-03-15T08:00:00-05:00' });
+    await settle(fixture);
+    backend.expectOne('/api/days/2027-03-15/plan').flush(dayPlan());
+    await settle(fixture);
+    expect([undo().disabled, redo().disabled]).toEqual([false, true]);
+    // Undone: now only a redo.
+    answerHistory({ canUndo: false, canRedo: true });
+    undo().click();
+    backend.expectOne({ method: 'POST', url: '/api/days/2027-03-15/undo' }).flush(dayPlan());
+    await settle(fixture);
+    expect([undo().disabled, redo().disabled]).toEqual([true, false]);
   });
 
   it('refetches the day on a change from the event stream and says who made it', async () => {

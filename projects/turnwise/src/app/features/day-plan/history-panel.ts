@@ -1,15 +1,12 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, output } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { catchError, map, of, switchMap } from 'rxjs';
 
-import type { ChangeReason, PlanChangeRecord } from '@shared/api/changes';
+import type { ChangeReason, DayHistory } from '@shared/api/changes';
+import type { ApiError } from '@shared/api/errors';
+import type { LoadStatus } from '../../core/state/server-state';
 import { SiteTime } from '../../shared/ui/site-time';
-import { DayPlanService } from './day-plan-service';
-
-type HistoryState = { status: 'loading' } | { status: 'loaded'; changes: PlanChangeRecord[] } | { status: 'failed'; message: string };
 
 const REASONS: Readonly<Record<ChangeReason, string>> = {
   drag: 'dragged',
@@ -21,7 +18,10 @@ const REASONS: Readonly<Record<ChangeReason, string>> = {
   staffing: 'staffing',
 };
 
-/** The day's changes, newest first: when, who, what and how. Refetched with every new plan. */
+/**
+ * The day's changes, newest first: when (site time), who, what and how. The store fetches them
+ * (after every change and live event, since they also say whether Undo and Redo have anything to do).
+ */
 @Component({
   selector: 'tw-history-panel',
   imports: [MatButtonModule, MatIconModule, MatProgressBarModule, SiteTime],
@@ -32,24 +32,23 @@ const REASONS: Readonly<Record<ChangeReason, string>> = {
       <h2>Changes to this day</h2>
       <button mat-icon-button type="button" aria-label="Close the changes" (click)="closed.emit()"><mat-icon svgIcon="close" /></button>
     </header>
-    @let state = history();
-    @switch (state.status) {
-      @case ('loading') { <mat-progress-bar mode="indeterminate" aria-label="Loading the changes" /> }
-      @case ('failed') { <p class="quiet" role="alert">{{ state.message }}</p> }
-      @case ('loaded') {
-        <ol>
-          @for (change of state.changes; track change.id) {
-            <li [class.undone]="change.undone">
-              <span class="when">{{ change.at | siteTime }}</span>
-              <span class="who">{{ change.displayName || change.username }}</span>
-              <span class="what">{{ change.summary }}</span>
-              <span class="how">{{ reason(change.reason) }}{{ change.undone ? ' · undone' : '' }}</span>
-            </li>
-          } @empty {
-            <li class="quiet">No changes yet.</li>
-          }
-        </ol>
-      }
+    @if (history(); as shown) {
+      <ol>
+        @for (change of shown.changes; track change.id) {
+          <li [class.undone]="change.undone">
+            <span class="when">{{ change.at | siteTime }}</span>
+            <span class="who">{{ change.displayName || change.username }}</span>
+            <span class="what">{{ change.summary }}</span>
+            <span class="how">{{ reason(change.reason) }}{{ change.undone ? ' · undone' : '' }}</span>
+          </li>
+        } @empty {
+          <li class="quiet">No changes yet.</li>
+        }
+      </ol>
+    } @else if (status() === 'failed') {
+      <p class="quiet" role="alert">{{ error()?.message ?? 'The changes could not be loaded.' }}</p>
+    } @else {
+      <mat-progress-bar mode="indeterminate" aria-label="Loading the changes" />
     }
   `,
   styles: `
@@ -65,25 +64,11 @@ const REASONS: Readonly<Record<ChangeReason, string>> = {
   `,
 })
 export class HistoryPanel {
-  private readonly api = inject(DayPlanService);
-
-  readonly date = input.required<string>();
-  readonly revision = input(0);
+  /** Kept on screen while a refetch runs, so the list is replaced, never blanked. */
+  readonly history = input.required<DayHistory | null>();
+  readonly status = input<LoadStatus>('loading');
+  readonly error = input<ApiError | null>(null);
   readonly closed = output<void>();
-
-  private readonly request = computed(() => ({ date: this.date(), revision: this.revision() }));
-  protected readonly history = toSignal(
-    toObservable(this.request).pipe(
-      switchMap(({ date }) =>
-        this.api.history(date).pipe(
-          map((changes): HistoryState => ({ status: 'loaded', changes })),
-          // No "loading" in between: a refetch after each change keeps the list on screen until it is replaced.
-          catchError((error: { message?: string }) => of<HistoryState>({ status: 'failed', message: error.message ?? 'The changes could not be loaded.' })),
-        ),
-      ),
-    ),
-    { initialValue: { status: 'loading' } as HistoryState },
-  );
 
   protected reason(reason: ChangeReason): string {
     return REASONS[reason] ?? reason;

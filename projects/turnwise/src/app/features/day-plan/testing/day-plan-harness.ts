@@ -4,6 +4,7 @@ import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { provideRouter } from '@angular/router';
 
+import type { DayHistory } from '@shared/api/changes';
 import type { DayPlan as Plan } from '@shared/api/plan';
 import { AuthService } from '../../../core/auth/auth-service';
 import { SessionUser } from '../../../core/auth/roles';
@@ -39,15 +40,31 @@ export class FakeEventSource {
   }
 }
 
+/** What `GET …/history` answers in these specs unless a spec says otherwise (reset by `renderDay`). */
+export let historyAnswer: DayHistory = { changes: [], canUndo: true, canRedo: true };
+export function answerHistory(answer: Partial<DayHistory>): void {
+  historyAnswer = { ...historyAnswer, ...answer };
+}
+
+/**
+ * Lets the page settle. The store refetches the day's history (undo/redo state) after every
+ * change and live event; those fetches are answered here with {@link historyAnswer}, so each
+ * spec only answers the calls it is about.
+ */
 export async function settle(fixture: ComponentFixture<unknown>) {
-  await new Promise((resolve) => setTimeout(resolve));
-  await fixture.whenStable();
-  await new Promise((resolve) => setTimeout(resolve));
+  for (let round = 0; round < 2; round++) {
+    await new Promise((resolve) => setTimeout(resolve));
+    await fixture.whenStable();
+    for (const request of TestBed.inject(HttpTestingController).match((r) => r.method === 'GET' && r.url.endsWith('/history'))) {
+      if (!request.cancelled) request.flush(historyAnswer);
+    }
+  }
   await fixture.whenStable();
 }
 
 /** The Day plan on 2027-03-15 for `user`, with settings, rooms and the plan answered. */
-export async function renderDay(options: { user?: SessionUser; plan?: Plan | null; date?: string; exam?: string } = {}) {
+export async function renderDay(options: { user?: SessionUser; plan?: Plan | null; date?: string; exam?: string; history?: Partial<DayHistory> } = {}) {
+  historyAnswer = { changes: [], canUndo: true, canRedo: true, ...options.history };
   TestBed.configureTestingModule({
     imports: [DayPlan],
     providers: [
