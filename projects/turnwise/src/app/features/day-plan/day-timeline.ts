@@ -14,7 +14,7 @@ import { DragPointer, PointerDrag } from './pointer-drag';
 import { markStart, measureSinceStart } from './render-marks';
 import { RoomLane } from './room-lane';
 import { PendingMove, clampStart, moveStatus, movedWithoutGaps, nextLane } from './slot-moves';
-import { SNAP_MINUTES, Zoom, axisTicks, dayRange, scaleFor, siteIso, snapToMinutes, xOf } from './timeline-scale';
+import { SNAP_MINUTES, Zoom, axisTicks, dayRange, readablePxPerMinute, scaleFor, siteIso, snapToMinutes, xOf } from './timeline-scale';
 
 const MINUTE = 60_000;
 
@@ -58,7 +58,11 @@ export class DayTimeline {
   /** While dragging: the lane under the pointer when it cannot take the slot (another modality). */
   private readonly refusedLane = signal<PlanRoom | null>(null);
   protected readonly range = computed(() => dayRange(this.plan()));
-  protected readonly scale = computed(() => scaleFor(this.range(), this.zoom(), this.viewportPx() - LANE_HEADER_PX));
+  private readonly shortestExam = computed(() => {
+    const minutes = this.plan().rooms.flatMap((room) => room.exams.map((exam) => exam.durationMinutes));
+    return minutes.length ? Math.min(...minutes) : null;
+  });
+  protected readonly scale = computed(() => scaleFor(this.range(), this.zoom(), this.viewportPx() - LANE_HEADER_PX, readablePxPerMinute(this.shortestExam())));
   protected readonly ticks = computed(() => axisTicks(this.scale(), this.plan().timezone));
   protected readonly nowX = computed(() => {
     const now = this.nowMs();

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, input, output } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 
 import type { GapView } from './gap-view';
@@ -47,7 +47,7 @@ import type { GapView } from './gap-view';
       }
     </button>
     @if (v.badge) {
-      <span class="badge" aria-hidden="true" [title]="v.label" [style.left.px]="v.marker.left + v.marker.width / 2" (click)="opened.emit()">{{ v.badge }}</span>
+      <span class="badge" aria-hidden="true" [title]="badgeTitle()" [style.left.px]="v.badgeLeft" (click)="opened.emit()">{{ v.badge }}@if (v.badgeMore) {<span class="more"> +{{ v.badgeMore }}</span>}</span>
     }
     <div class="band" aria-hidden="true" [style.left.px]="v.band.left" [style.width.px]="v.band.width" (click)="opened.emit()">
       @for (piece of v.band.pieces; track piece.part) {
@@ -61,4 +61,9 @@ export class GapMarker {
   readonly view = input.required<GapView>();
   readonly selected = input(false);
   readonly opened = output<void>();
+
+  protected readonly badgeTitle = computed(() => {
+    const { label, badgeMore } = this.view();
+    return badgeMore ? `${label}; and ${badgeMore} more problem ${badgeMore === 1 ? 'gap' : 'gaps'} just after (on their markers)` : label;
+  });
 }

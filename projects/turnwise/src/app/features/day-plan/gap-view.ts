@@ -1,6 +1,7 @@
 import type { PlanGap } from '@shared/api/plan';
 
 import { VERDICT_DISPLAY } from '../../shared/ui/verdict-chip';
+import { badgeWidth } from './badge-layout';
 import { BAND_PART_LABELS, BandPart, turnoverBand } from './turnover-band';
 import { TimelineScale, xOf } from './timeline-scale';
 
@@ -31,6 +32,10 @@ export interface GapView {
   shortBy: string | null;
   /** "short by 10 min" ("−10" at the widest zooms) above a short or overlapping gap, readable at any width; null otherwise. */
   badge: string | null;
+  /** Where the badge starts, in pixels: centred on the gap until {@link layOutBadges} moves it clear of its neighbours. */
+  badgeLeft: number;
+  /** Problem gaps just after this one whose badges did not fit beside it: "+N" on this badge. */
+  badgeMore: number;
   band: { left: number; width: number; pieces: BandPiece[] };
   /** "Turnover before ACC-123: short by 4 min, needs 24, has 20" */
   label: string;
@@ -69,6 +74,7 @@ export function gapView(gap: PlanGap, toAccession: string, fromIso: string, scal
   const marker = quiet
     ? { left, width: Math.max(MIN_OPENING_PX, Math.min(freePx, gap.requiredMinutes * ppm)) }
     : { left: freePx < 0 ? left + freePx : left + (freePx - width) / 2, width };
+  const badge = late ? badgeText(gap, ppm) : null;
   return {
     gap,
     toAccession,
@@ -79,7 +85,9 @@ export function gapView(gap: PlanGap, toAccession: string, fromIso: string, scal
     raised: !quiet && marker.width > freePx,
     word: marker.width >= WORD_PX ? (quiet ? 'opening' : gap.verdict) : null,
     shortBy: late && marker.width >= SHORT_BY_PX ? `short by ${gap.shortByMinutes} min` : null,
-    badge: late ? badgeText(gap, ppm) : null,
+    badge,
+    badgeLeft: marker.left + marker.width / 2 - (badge ? badgeWidth(badge) / 2 : 0),
+    badgeMore: 0,
     band: bandOf(gap, fromIso, left, ppm),
     label: gapLabel(gap, toAccession),
     dimmed,

@@ -60,6 +60,7 @@ const REASONS: Readonly<Record<ChangeReason, string>> = {
     .when { font-variant-numeric: tabular-nums; grid-row: span 3; }
     .who { font-weight: 600; }
     .how, .quiet { color: var(--mat-sys-on-surface-variant); }
+    li.quiet { display: block; }
     .undone .what { text-decoration: line-through; }
   `,
 })

@@ -1,6 +1,7 @@
 import type { PlanExam, PlanRoom } from '@shared/api/plan';
 
 import { ExamFlag, examFlags } from './exam-flags';
+import { layOutBadges } from './badge-layout';
 import { GapView, gapView } from './gap-view';
 import { TimelineScale, xOf } from './timeline-scale';
 
@@ -80,7 +81,7 @@ export function laneView(room: PlanRoom, scale: TimelineScale, onlyProblems: boo
     problemNeighbours.add(gap.toExamId);
     if (gap.fromExamId !== null) problemNeighbours.add(gap.fromExamId);
   }
-  return room.exams.map((exam) => {
+  const slots = room.exams.map((exam) => {
     const gap = gapBefore.get(exam.id);
     const from = gap ? (gap.fromExamId === null ? room.opensAt : byId.get(gap.fromExamId)?.end) : undefined;
     return {
@@ -88,6 +89,11 @@ export function laneView(room: PlanRoom, scale: TimelineScale, onlyProblems: boo
       gap: gap && from ? gapView(gap, exam.accession, from, scale, onlyProblems && gap.verdict === 'fits') : null,
     };
   });
+  // Badges share one row per lane: laid out together so they never cover each other.
+  const withGaps = slots.filter((slot): slot is LaneSlot & { gap: GapView } => slot.gap !== null);
+  const laidOut = layOutBadges(withGaps.map((slot) => slot.gap));
+  withGaps.forEach((slot, i) => (slot.gap = laidOut[i]!));
+  return slots;
 }
 
 function blockView(roomName: string, exam: PlanExam, scale: TimelineScale, dimmed: boolean): BlockView {

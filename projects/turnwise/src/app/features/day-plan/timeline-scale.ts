@@ -59,11 +59,33 @@ export function dayRange(plan: DayPlan): { startMs: number; endMs: number } {
   return { startMs: first.toMillis(), endMs: (lastHour.equals(last) ? lastHour : lastHour.plus({ hours: 1 })).toMillis() };
 }
 
-/** A scale for a zoom level, given the width the lanes have on screen (never below 1 px/min at "whole day"). */
-export function scaleFor(range: { startMs: number; endMs: number }, zoom: Zoom, viewportPx: number): TimelineScale {
+/**
+ * Narrowest an exam block is drawn, in pixels: room for its start time ("08:00") and a pointer
+ * target well above WCAG 2.2's 24 px (2.5.8). Below it a block shrank to one letter.
+ */
+export const MIN_SLOT_PX = 48;
+/** A day of 5-minute exams would otherwise ask for ~10 px a minute; past this the axis scrolls enough. */
+const MAX_MIN_PX_PER_MINUTE = 4;
+
+/**
+ * The least px per minute that keeps the day's shortest exam `MIN_SLOT_PX` wide: on a narrow
+ * screen (or with the side panel open) the timeline scrolls sideways instead of drawing slots no
+ * one can read.
+ */
+export function readablePxPerMinute(shortestExamMinutes: number | null): number {
+  if (!shortestExamMinutes || shortestExamMinutes <= 0) return 0;
+  return Math.min(MAX_MIN_PX_PER_MINUTE, MIN_SLOT_PX / shortestExamMinutes);
+}
+
+/**
+ * A scale for a zoom level, given the width the lanes have on screen (never below 1 px/min at
+ * "whole day"), and never below `minPxPerMinute` (see {@link readablePxPerMinute}).
+ */
+export function scaleFor(range: { startMs: number; endMs: number }, zoom: Zoom, viewportPx: number, minPxPerMinute = 0): TimelineScale {
   const minutes = Math.max(60, (range.endMs - range.startMs) / MINUTE);
   const usable = Math.max(320, viewportPx);
-  const pxPerMinute = zoom === 'day' ? usable / minutes : usable / ZOOM_MINUTES[zoom];
+  const fitted = zoom === 'day' ? usable / minutes : usable / ZOOM_MINUTES[zoom];
+  const pxPerMinute = Math.max(fitted, minPxPerMinute);
   return { ...range, pxPerMinute, widthPx: Math.ceil(minutes * pxPerMinute) };
 }
 
