@@ -9,8 +9,11 @@ import { homeFor } from './screens';
 /** Git-ignored; the screenshots are for people to look at, not compared pixel by pixel. */
 export const SCREENSHOT_DIR = path.resolve(__dirname, '..', 'screenshots');
 
-/** Per-step ceiling: a step that hangs fails in seconds instead of stalling the run. */
-export const STEP_TIMEOUT_MS = 5_000;
+/**
+ * Per-step ceiling: a step that hangs fails in seconds instead of stalling the run. Generous,
+ * because CI runs on a busy 2-core machine where a first page load alone can take five seconds.
+ */
+export const STEP_TIMEOUT_MS = 15_000;
 
 export const DESKTOP = { width: 1280, height: 800 };
 export const TABLET = { width: 768, height: 1024 };
