@@ -10,7 +10,9 @@ import { FileLimitError } from '../services/file-limits';
 import type { WorkerPool } from '../workers/pool';
 import { parseInput } from '../validate';
 import { currentUser, requireRole, requireUser } from '../middleware/roles';
-import { loadCachedDayPlan } from '../services/day-plan';
+import { loadCachedDayPlan, loadDayPlan } from '../services/day-plan';
+import { addExam } from '../services/exam-edits';
+import { examFormSchema } from '../../shared/api/changes';
 import { importExamList } from '../services/exam-import';
 import { publishDayEvent } from './announce';
 import { parseDay } from './params';
@@ -56,6 +58,16 @@ export function dayRoutes(deps: { db: Knex; clock: Clock; events: DayEvents; wor
     });
     if (!result.dryRun) publishDayEvent(deps, day, 'plan', 'import', user);
     res.json(result);
+  });
+
+  /** Adds one exam by hand, checked by the import's rules. Answers the day's new plan. */
+  router.post('/:date/exams', requireRole('scheduler', 'charge'), async (req, res) => {
+    const day = parseDay(req.params['date']);
+    const input = parseInput(examFormSchema, req.body ?? {}, 'exam');
+    const user = currentUser(req);
+    await addExam(deps.db, day, input, { userId: user.id, now: deps.clock.now() });
+    publishDayEvent(deps, day, 'plan', 'exam added', user);
+    res.status(201).json(await loadDayPlan(deps.db, day));
   });
 
   return router;

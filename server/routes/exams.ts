@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import type { Knex } from 'knex';
-import { examMoveSchema, gapStaffingSchema } from '../../shared/api/changes';
+import { examCancelQuery, examEditSchema, examMoveSchema, gapStaffingSchema } from '../../shared/api/changes';
+import { cancelExam, editExam } from '../services/exam-edits';
 import type { Clock } from '../clock';
 import { currentUser, requireRole } from '../middleware/roles';
 import type { DayEvents } from '../services/day-events';
@@ -20,6 +21,24 @@ export function examRoutes(deps: { db: Knex; clock: Clock; events: DayEvents }):
     const user = currentUser(req);
     const day = await moveExam(deps.db, idParam(req.params['id'], 'an exam'), input, user.id, deps.clock.now());
     publishDayEvent(deps, day, 'plan', input.reason, user);
+    res.json(await loadDayPlan(deps.db, day));
+  });
+
+  /** Edits an exam's fields (the import's columns) at the version read. Answers the day's new plan. */
+  router.put('/:id', requireRole('scheduler', 'charge'), async (req, res) => {
+    const input = parseInput(examEditSchema, req.body ?? {}, 'exam');
+    const user = currentUser(req);
+    const day = await editExam(deps.db, idParam(req.params['id'], 'an exam'), input, { userId: user.id, now: deps.clock.now() });
+    publishDayEvent(deps, day, 'plan', 'exam edited', user);
+    res.json(await loadDayPlan(deps.db, day));
+  });
+
+  /** Cancels an exam (`?version=`, the version read). Answers the day's new plan. */
+  router.delete('/:id', requireRole('scheduler', 'charge'), async (req, res) => {
+    const { version } = parseInput(examCancelQuery, req.query, 'cancel');
+    const user = currentUser(req);
+    const day = await cancelExam(deps.db, idParam(req.params['id'], 'an exam'), version, { userId: user.id, now: deps.clock.now() });
+    publishDayEvent(deps, day, 'plan', 'exam cancelled', user);
     res.json(await loadDayPlan(deps.db, day));
   });
 

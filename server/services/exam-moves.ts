@@ -11,6 +11,22 @@ function hhmm(iso: string, zone: string): string {
 }
 
 /**
+ * The 409 for a change made at an exam's old version: names who changed it last (from the day's
+ * history), or an import when no hand change touched it.
+ */
+export async function staleVersion(trx: Knex, exam: { id: number; day: string; accession: string; version: number }, timezone: string): Promise<Refusal<'stale_version'>> {
+  const last = await trx('plan_changes')
+    .join('users', 'users.id', 'plan_changes.user_id')
+    .where('plan_changes.day', exam.day)
+    .andWhereRaw('plan_changes.changes like ?', [`%"examId":${exam.id},%`])
+    .orderBy('plan_changes.id', 'desc')
+    .first('users.display_name', 'users.username', 'plan_changes.created_at', 'plan_changes.summary');
+  const who = last ? `${last.display_name || last.username} changed it at ${hhmm(last.created_at, timezone)} (${last.summary})` : 'it was changed by an import';
+  const changedBy = last ? { username: last.username, displayName: last.display_name || last.username, at: last.created_at, summary: last.summary } : null;
+  return new Refusal('stale_version', `Exam ${exam.accession} was changed meanwhile: ${who}. The day has been reloaded.`, { currentVersion: exam.version, changedBy });
+}
+
+/**
  * Moves an exam along its lane or to another room of the same modality on the same day.
  * Optimistic locking: a stale `version` is a 409 that names who moved the exam last.
  * Returns the exam's day.
@@ -26,17 +42,7 @@ export async function moveExam(
   return db.transaction(async (trx) => {
     const exam = await trx('exams').where({ id: examId }).first();
     if (!exam) throw new NotFoundError(`No exam ${examId}.`);
-    if (exam.version !== input.version) {
-      const last = await trx('plan_changes')
-        .join('users', 'users.id', 'plan_changes.user_id')
-        .where('plan_changes.day', exam.day)
-        .andWhereRaw("plan_changes.changes like ?", [`%"examId":${examId},%`])
-        .orderBy('plan_changes.id', 'desc')
-        .first('users.display_name', 'users.username', 'plan_changes.created_at', 'plan_changes.summary');
-      const who = last ? `${last.display_name || last.username} changed it at ${hhmm(last.created_at, timezone)} (${last.summary})` : 'it was changed by an import';
-      const changedBy = last ? { username: last.username, displayName: last.display_name || last.username, at: last.created_at, summary: last.summary } : null;
-      throw new Refusal('stale_version', `Exam ${exam.accession} was changed meanwhile: ${who}. The day has been reloaded.`, { currentVersion: exam.version, changedBy });
-    }
+    if (exam.version !== input.version) throw await staleVersion(trx, exam, timezone);
     const fromRoom = await trx('rooms').where({ id: exam.room_id }).first();
     const toRoomId = input.roomId ?? exam.room_id;
     const toRoom = toRoomId === exam.room_id ? fromRoom : await trx('rooms').where({ id: toRoomId, active: true }).first();

@@ -1,6 +1,9 @@
 import type { Knex } from 'knex';
 import type { DayPlanExam } from '../../shared/turnover';
 import type { ExamListKeyed, ExamListRow } from '../../shared/exam-list';
+import type { ExamFields } from '../../shared/api/changes';
+
+type Exam = ExamFields & { accession: string };
 
 export interface ExamRow {
   id: number;
@@ -77,3 +80,37 @@ export function examColumns(row: ExamListRow | ExamListKeyed, roomId: number) {
 export function examColumnsForMove(roomId: number, start: string) {
   return { room_id: roomId, start_at: start, start_ms: Date.parse(start) };
 }
+
+/** An exam's stored fields, as a change records them. */
+export function storedFields(row: ExamRow): Exam {
+  return {
+    accession: row.accession,
+    roomId: row.room_id,
+    start: row.start_at,
+    durationMinutes: row.duration_minutes,
+    procedure: row.procedure,
+    coil: row.coil,
+    precaution: row.precaution,
+    mobility: row.mobility,
+    contrast: Boolean(row.contrast),
+    notes: row.notes,
+  };
+}
+
+/** The columns of an exam as a change describes it. */
+export function columnsOfFields(fields: Exam) {
+  return {
+    accession: fields.accession,
+    room_id: fields.roomId,
+    start_at: fields.start,
+    start_ms: Date.parse(fields.start),
+    duration_minutes: fields.durationMinutes,
+    procedure: fields.procedure,
+    coil: fields.coil,
+    precaution: fields.precaution,
+    mobility: fields.mobility,
+    contrast: fields.contrast,
+    notes: fields.notes,
+  };
+}
+

@@ -1,8 +1,8 @@
 import type { Knex } from 'knex';
 import { DateTime } from 'luxon';
-import type { ChangeReason, DayHistory, ExamMove, PlanChange, PlanChangeRecord } from '../../shared/api/changes';
+import type { ChangeReason, DayHistory, ExamEdit, ExamFields, ExamMove, PlanChange, PlanChangeRecord } from '../../shared/api/changes';
 import { Refusal } from '../errors';
-import { examColumnsForMove } from './exams';
+import { columnsOfFields, examColumnsForMove, storedFields, type ExamRow } from './exams';
 import { readSettings } from './settings';
 
 interface ChangeRow {
@@ -53,7 +53,11 @@ export async function dayHistory(db: Knex, day: string, userId: number): Promise
   const byId = new Map(rows.map((r) => [r.id, r]));
   const siteTime = (iso: string) => DateTime.fromISO(iso, { zone: timezone }).toISO({ suppressMilliseconds: true })!;
   const changes = rows.map((r): PlanChangeRecord => {
-    const list = (JSON.parse(r.changes) as PlanChange[]).map((c) => (c.type === 'move' ? { ...c, from: { ...c.from, start: siteTime(c.from.start) }, to: { ...c.to, start: siteTime(c.to.start) } } : c));
+    const list = (JSON.parse(r.changes) as PlanChange[]).map((c): PlanChange => {
+      if (c.type === 'move') return { ...c, from: { ...c.from, start: siteTime(c.from.start) }, to: { ...c.to, start: siteTime(c.to.start) } };
+      if (c.type === 'exam') return { ...c, from: c.from && { ...c.from, start: siteTime(c.from.start) }, to: c.to && { ...c.to, start: siteTime(c.to.start) } };
+      return c;
+    });
     return {
       id: r.id,
       day: r.day,
@@ -117,6 +121,8 @@ export async function applyChanges(trx: Knex, changes: PlanChange[], userId: num
       await trx('exams')
         .where({ id: change.examId })
         .update({ ...examColumnsForMove(change.to.roomId, change.to.start), version: exam.version + 1, updated_at: now.toISOString() });
+    } else if (change.type === 'exam') {
+      await applyExamEdit(trx, change, now);
     } else {
       const current = await trx('gap_staffing').where({ to_exam_id: change.toExamId }).first();
       if ((current?.staff ?? null) !== change.from) {
@@ -126,6 +132,33 @@ export async function applyChanges(trx: Knex, changes: PlanChange[], userId: num
       else await trx('gap_staffing').insert({ to_exam_id: change.toExamId, staff: change.to, user_id: userId, updated_at: now.toISOString() }).onConflict('to_exam_id').merge();
     }
   }
+}
+
+/**
+ * Re-applies (or, inverted, reverts) an exam added, edited or cancelled by hand, provided the
+ * exam is still as the change left it: a re-added exam gets its old id back, so later history
+ * entries still point at it. Staffing, arrivals and turnovers removed with a cancelled exam
+ * are not restored.
+ */
+async function applyExamEdit(trx: Knex, change: ExamEdit, now: Date): Promise<void> {
+  const exam: ExamRow | undefined = await trx('exams').where({ id: change.examId }).first();
+  const since = { accession: change.accession, examId: change.examId };
+  const asBefore = change.from === null ? exam === undefined : exam !== undefined && sameFields(storedFields(exam), change.from);
+  if (!asBefore) throw new Refusal('changed_since', `Exam ${change.accession} has been changed since; reload the day and try again.`, since);
+  const stamp = now.toISOString();
+  if (change.to === null) {
+    await trx('exams').where({ id: change.examId }).delete();
+    return;
+  }
+  const day = exam?.day ?? DateTime.fromISO(change.to.start, { setZone: true }).toISODate()!;
+  const taken = await trx('exams').where({ day, accession: change.to.accession }).whereNot({ id: change.examId }).first('id');
+  if (taken) throw new Refusal('changed_since', `Accession ${change.to.accession} is on the list again since; reload the day and try again.`, since);
+  if (exam) await trx('exams').where({ id: change.examId }).update({ ...columnsOfFields(change.to), version: exam.version + 1, updated_at: stamp });
+  else await trx('exams').insert({ id: change.examId, day, ...columnsOfFields(change.to), version: 1, updated_at: stamp });
+}
+
+function sameFields(a: ExamFields & { accession: string }, b: ExamFields & { accession: string }): boolean {
+  return (Object.keys(b) as (keyof typeof b)[]).every((key) => (key === 'start' ? Date.parse(a.start) === Date.parse(b.start) : a[key] === b[key]));
 }
 
 export function invert(changes: PlanChange[]): PlanChange[] {

@@ -21,7 +21,32 @@ export interface StaffingChange {
   to: number | null;
 }
 
-export type PlanChange = ExamMove | StaffingChange;
+/** An exam as the day list stores it (the import's columns), room by id and start with the site's offset. */
+export interface ExamFields {
+  roomId: number;
+  start: string;
+  durationMinutes: number;
+  procedure: string;
+  coil: string | null;
+  precaution: string;
+  mobility: string;
+  contrast: boolean;
+  notes: string | null;
+}
+
+/**
+ * One exam added (`from: null`), edited, or cancelled (`to: null`) by hand, outside an import.
+ * `accession` is the one it has after the change (before it, for a cancel).
+ */
+export interface ExamEdit {
+  type: 'exam';
+  examId: number;
+  accession: string;
+  from: (ExamFields & { accession: string }) | null;
+  to: (ExamFields & { accession: string }) | null;
+}
+
+export type PlanChange = ExamMove | StaffingChange | ExamEdit;
 
 /** One row of the day's history. */
 export interface PlanChangeRecord {
@@ -56,6 +81,34 @@ export const examMoveSchema = z
   })
   .refine((b) => b.start !== undefined || b.roomId !== undefined, 'give start, roomId or both');
 export type ExamMoveInput = z.input<typeof examMoveSchema>;
+
+const cell = z.union([z.string(), z.null()]).optional();
+
+/**
+ * `POST /api/days/:date/exams` body: one exam in the import's columns, as the file spells them.
+ * Cells are checked by the import's own rules (`shared/exam-list`), so only their types are
+ * checked here; `duration_min` may be a number and `contrast` a boolean.
+ */
+export const examFormSchema = z.object({
+  accession: cell,
+  room: cell,
+  start: cell,
+  duration_min: z.union([z.string(), z.number(), z.null()]).optional(),
+  procedure: cell,
+  coil: cell,
+  precaution: cell,
+  mobility: cell,
+  contrast: z.union([z.string(), z.boolean(), z.null()]).optional(),
+  notes: cell,
+});
+export type ExamFormInput = z.input<typeof examFormSchema>;
+
+/** `PUT /api/exams/:id` body: the whole exam again, with the version it was read at. */
+export const examEditSchema = examFormSchema.extend({ version: z.number().int().min(0) });
+export type ExamEditInput = z.input<typeof examEditSchema>;
+
+/** `DELETE /api/exams/:id?version=N` query. */
+export const examCancelQuery = z.object({ version: z.coerce.number().int().min(0) });
 
 const staff = z.number().int().min(TURNOVER_STAFF.min).max(TURNOVER_STAFF.max);
 

@@ -24,5 +24,5 @@ export const MOVE_REASONS = ['drag', 'keyboard', 'api'] as const;
 export type MoveReason = (typeof MOVE_REASONS)[number];
 
 /** Why a day's plan changed: a move's reason, or an action that is not a single move. */
-export const CHANGE_REASONS = [...MOVE_REASONS, 'suggestion', 'undo', 'redo', 'staffing'] as const;
+export const CHANGE_REASONS = [...MOVE_REASONS, 'suggestion', 'undo', 'redo', 'staffing', 'exam added', 'exam edited', 'exam cancelled'] as const;
 export type ChangeReason = (typeof CHANGE_REASONS)[number];

@@ -13,7 +13,9 @@ export function withChanges(input: DayPlanInput, changes: readonly PlanChange[])
   const moves = new Map<number, { roomId: number; start: string }>();
   const staffOverrides: Record<number, number> = { ...input.staffOverrides };
   for (const change of changes) {
+    // Exams added, edited or cancelled by hand are never previewed: fixes and drags only move and staff.
     if (change.type === 'move') moves.set(change.examId, change.to);
+    else if (change.type !== 'staffing') continue;
     else if (change.to === null) delete staffOverrides[change.toExamId];
     else staffOverrides[change.toExamId] = change.to;
   }

@@ -64,6 +64,26 @@ export const ROUTE_TABLE: RouteCase[] = [
     send: (c, e) => c.patch(`/api/exams/${(e as Exam).id}`, { start: (e as Exam).start, version: (e as Exam).version }),
   },
   {
+    method: 'post',
+    path: '/api/days/:date/exams',
+    allowed: ['scheduler', 'charge', 'admin'],
+    send: (c) => c.post('/api/days/2027-03-10/exams', { accession: `MATRIX-${++counter}`, room: 'MR 1', start: '19:00', duration_min: 20, procedure: 'MR knee' }),
+  },
+  {
+    method: 'put',
+    path: '/api/exams/:id',
+    allowed: ['scheduler', 'charge', 'admin'],
+    prepare: firstExamFields,
+    send: (c, e) => c.put(`/api/exams/${(e as ExamForm).id}`, (e as ExamForm).body),
+  },
+  {
+    method: 'delete',
+    path: '/api/exams/:id?version=',
+    allowed: ['scheduler', 'charge', 'admin'],
+    prepare: spareExam,
+    send: (c, e) => c.delete(`/api/exams/${(e as Exam).id}?version=${(e as Exam).version}`),
+  },
+  {
     method: 'put',
     path: '/api/exams/:id/staffing',
     allowed: ['charge', 'admin'],
@@ -207,6 +227,31 @@ interface Exam {
 async function firstExam(h: Harness): Promise<Exam> {
   const exam = await h.db('exams').where({ day: '2027-03-10' }).orderBy('id').first();
   return { id: exam.id, start: exam.start_at, version: exam.version };
+}
+
+interface ExamForm {
+  id: number;
+  body: Record<string, unknown>;
+}
+
+/** The seeded day's first exam as an edit form would send it back unchanged. */
+async function firstExamFields(h: Harness): Promise<ExamForm> {
+  const exam = await h.db('exams').where({ day: '2027-03-10' }).orderBy('id').first();
+  const room = await h.db('rooms').where({ id: exam.room_id }).first('name');
+  return {
+    id: exam.id,
+    body: {
+      accession: exam.accession, room: room.name, start: exam.start_at, duration_min: exam.duration_minutes, procedure: exam.procedure,
+      coil: exam.coil, precaution: exam.precaution, mobility: exam.mobility, contrast: Boolean(exam.contrast), notes: exam.notes, version: exam.version,
+    },
+  };
+}
+
+/** A copy of the seeded day's first exam under a new accession, for a cancel to remove. */
+async function spareExam(h: Harness): Promise<Exam> {
+  const { id: _id, ...exam } = await h.db('exams').where({ day: '2027-03-10' }).orderBy('id').first();
+  const [id] = await h.db('exams').insert({ ...exam, accession: `SPARE-${++counter}`, version: 1 });
+  return { id: id as number, start: exam.start_at, version: 1 };
 }
 
 /** An exam of the seeded day whose end is not recorded yet. */

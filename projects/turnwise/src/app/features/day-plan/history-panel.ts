@@ -16,6 +16,9 @@ const REASONS: Readonly<Record<ChangeReason, string>> = {
   undo: 'undo',
   redo: 'redo',
   staffing: 'staffing',
+  'exam added': 'exam added',
+  'exam edited': 'exam edited',
+  'exam cancelled': 'exam cancelled',
 };
 
 /**
