@@ -17,7 +17,7 @@ import {
   type MrMarking,
 } from '@shared/api/equipment';
 import { action } from '../../core/state/action';
-import { fieldMessage, showProblems } from './form-problems';
+import { fieldMessage, submitForm } from './form-problems';
 import { SetupApi } from './setup-api';
 
 /** Add or edit an item with its ASTM F2503 marking; MR Conditional asks for the label's conditions. */
@@ -108,20 +108,13 @@ export class EquipmentDialog {
   }
 
   protected async save(): Promise<void> {
-    this.formError.set(null);
     const { conditions } = this.form.controls;
     if (this.marking() === 'mr-conditional' && conditions.value.trim() === '') {
       // the same rule as the API's: an MR Conditional item is only safe within its conditions
       conditions.setErrors({ server: 'an MR Conditional item needs its conditions from the label' });
       conditions.markAsTouched();
     }
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      this.formError.set('Check the marked fields.');
-      return;
-    }
-    const result = await this.saving.run();
-    if (result.status === 'done') this.ref.close(result.value);
-    else this.formError.set(showProblems(this.form, result.error) ?? 'Check the marked fields.');
+    const saved = await submitForm(this.form, this.saving, this.formError);
+    if (saved) this.ref.close(saved.value);
   }
 }

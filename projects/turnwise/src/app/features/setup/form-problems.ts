@@ -1,6 +1,8 @@
+import type { WritableSignal } from '@angular/core';
 import type { AbstractControl, FormGroup } from '@angular/forms';
 
 import type { ApiError } from '@shared/api/errors';
+import type { Action } from '../../core/state/action';
 
 /** One field-level problem of a 422 (`details.problems`). */
 interface Problem {
@@ -43,4 +45,26 @@ export function fieldMessage(control: AbstractControl | null): string {
   if (errors['email']) return 'not an e-mail address';
   if (errors['pattern']) return 'not in the expected form';
   return 'check this value';
+}
+
+/**
+ * A Setup form's save: refuses an invalid form with its fields marked, else runs the save and
+ * puts a refusal's problems on the fields (the rest in `formError`). Resolves to `{value}` once
+ * saved (the value may itself be empty, e.g. a 204), or null when nothing was saved.
+ *
+ * @example
+ * const saved = await submitForm(this.form, this.saving, this.formError);
+ * if (saved) this.ref.close(saved.value);
+ */
+export async function submitForm<T>(form: FormGroup, saving: Action<[], T>, formError: WritableSignal<string | null>, invalidText = 'Check the marked fields.'): Promise<{ value: T } | null> {
+  formError.set(null);
+  if (form.invalid) {
+    form.markAllAsTouched();
+    formError.set(invalidText);
+    return null;
+  }
+  const result = await saving.run();
+  if (result.status === 'done') return { value: result.value };
+  formError.set(showProblems(form, result.error) ?? invalidText);
+  return null;
 }

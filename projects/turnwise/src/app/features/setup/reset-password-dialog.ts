@@ -7,7 +7,7 @@ import { MatInputModule } from '@angular/material/input';
 
 import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH, type UserAccount } from '@shared/api/users';
 import { action } from '../../core/state/action';
-import { fieldMessage, showProblems } from './form-problems';
+import { fieldMessage, submitForm } from './form-problems';
 import { SetupApi } from './setup-api';
 
 /** A new first password for someone who forgot theirs: their sessions end and they choose their own at next sign-in. */
@@ -54,14 +54,7 @@ export class ResetPasswordDialog {
   }
 
   protected async save(): Promise<void> {
-    this.formError.set(null);
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      this.formError.set('Check the marked field.');
-      return;
-    }
-    const result = await this.saving.run();
-    if (result.status === 'done') this.ref.close(result.value);
-    else this.formError.set(showProblems(this.form, result.error) ?? 'Check the marked field.');
+    const saved = await submitForm(this.form, this.saving, this.formError, 'Check the marked field.');
+    if (saved) this.ref.close(saved.value);
   }
 }

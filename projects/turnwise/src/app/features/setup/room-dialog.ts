@@ -9,7 +9,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { MODALITIES, type SetupRoom } from '@shared/api/rooms';
 import { action } from '../../core/state/action';
 import { CautionNote } from '../../shared/ui/caution-note';
-import { fieldMessage, showProblems } from './form-problems';
+import { fieldMessage, submitForm } from './form-problems';
 import { SetupApi } from './setup-api';
 
 /** The staff limits of `roomInputSchema` (shared/api/rooms.ts): the API refuses the same. */
@@ -107,14 +107,7 @@ export class RoomDialog {
   }
 
   protected async save(): Promise<void> {
-    this.formError.set(null);
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      this.formError.set('Check the marked fields.');
-      return;
-    }
-    const result = await this.saving.run();
-    if (result.status === 'done') this.ref.close(result.value);
-    else this.formError.set(showProblems(this.form, result.error) ?? 'Check the marked fields.');
+    const saved = await submitForm(this.form, this.saving, this.formError);
+    if (saved) this.ref.close(saved.value);
   }
 }

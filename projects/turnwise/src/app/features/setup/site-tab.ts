@@ -6,7 +6,7 @@ import { MatInputModule } from '@angular/material/input';
 
 import type { SiteSettings } from '@shared/api/settings';
 import { action } from '../../core/state/action';
-import { fieldMessage, showProblems } from './form-problems';
+import { fieldMessage, submitForm } from './form-problems';
 import { SetupApi } from './setup-api';
 
 /** Setup → Site: the department's name, its IANA time zone, the snug margin and the notices sender. */
@@ -91,16 +91,8 @@ export class SiteTab {
   }
 
   protected async save(): Promise<void> {
-    this.formError.set(null);
     this.saved.set(false);
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      this.formError.set('Check the marked fields.');
-      return;
-    }
-    const result = await this.saving.run();
-    if (result.status === 'done') this.saved.set(true);
-    else this.formError.set(showProblems(this.form, result.error) ?? 'Check the marked fields.');
+    if (await submitForm(this.form, this.saving, this.formError)) this.saved.set(true);
   }
 }
 

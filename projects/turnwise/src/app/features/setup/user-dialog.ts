@@ -9,7 +9,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH, type UserAccount } from '@shared/api/users';
 import { ROLES, roleLabel, type Role } from '../../core/auth/roles';
 import { action } from '../../core/state/action';
-import { fieldMessage, showProblems } from './form-problems';
+import { fieldMessage, submitForm } from './form-problems';
 import { SetupApi } from './setup-api';
 
 /** A new account (with a first password the user changes at first sign-in), or an account's name, e-mail and role. */
@@ -98,14 +98,7 @@ export class UserDialog {
   }
 
   protected async save(): Promise<void> {
-    this.formError.set(null);
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      this.formError.set('Check the marked fields.');
-      return;
-    }
-    const result = await this.saving.run();
-    if (result.status === 'done') this.ref.close(result.value);
-    else this.formError.set(showProblems(this.form, result.error) ?? 'Check the marked fields.');
+    const saved = await submitForm(this.form, this.saving, this.formError);
+    if (saved) this.ref.close(saved.value);
   }
 }
