@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 
-import type { DayHistory } from '@shared/api/changes';
+import type { DayHistory, ExamFormInput } from '@shared/api/changes';
 import type { PlannedDay } from '@shared/api/plan';
 import type { Room } from '@shared/api/rooms';
 import type { Fix } from '@shared/fixes/model';
@@ -28,6 +28,21 @@ export class DayPlanService {
   /** Moves a slot (`start` ISO with offset); 409 when `version` is stale, 422 when the move is refused. */
   move(examId: number, body: { start: string; roomId: number; version: number; reason: MoveReason }): Observable<PlannedDay> {
     return this.http.patch<PlannedDay>(`/api/exams/${examId}`, body, this.quiet);
+  }
+
+  /** Adds one exam (the import's columns, checked by its rules); 422 `validation_failed` lists `problems` by column. */
+  addExam(date: string, body: ExamFormInput): Observable<PlannedDay> {
+    return this.http.post<PlannedDay>(`${day(date)}/exams`, body, this.quiet);
+  }
+
+  /** Replaces an exam's fields; 409 `stale_version` when `version` is stale, 422 as {@link addExam}. */
+  editExam(examId: number, body: ExamFormInput & { version: number }): Observable<PlannedDay> {
+    return this.http.put<PlannedDay>(`/api/exams/${examId}`, body, this.quiet);
+  }
+
+  /** Cancels an exam (it leaves the day); 409 `stale_version` when `version` is stale. */
+  cancelExam(examId: number, version: number): Observable<PlannedDay> {
+    return this.http.delete<PlannedDay>(`/api/exams/${examId}`, { ...this.quiet, params: { version } });
   }
 
   /** People on the turnover before `toExamId`; null goes back to the room's usual staff. */

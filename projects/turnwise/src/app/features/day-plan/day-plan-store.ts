@@ -1,5 +1,5 @@
 import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
-import { Observable, Subscription, map } from 'rxjs';
+import { Observable, Subscription, map, of } from 'rxjs';
 
 import type { ApiError } from '@shared/api/errors';
 import type { PlanExam, PlannedDay } from '@shared/api/plan';
@@ -117,6 +117,14 @@ export class DayPlanStore {
     const ok = await this.apply(this.api.roomStaffing(roomId, staff).pipe(map(() => null)));
     if (ok) this.reload();
     return ok;
+  }
+
+  /**
+   * A plan answered by a change the screen made itself (the exam dialog's add, edit or cancel,
+   * which shows its own refusals): shown like any change's answer.
+   */
+  accept(plan: PlannedDay): Promise<boolean> {
+    return this.apply(of(plan));
   }
 
   /** A refusal the screen made itself (e.g. a drop on a lane of another modality). */

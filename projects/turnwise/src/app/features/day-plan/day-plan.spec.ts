@@ -170,6 +170,7 @@ describe('DayPlan timeline', () => {
       expect(block(page, 2).getAttribute('aria-describedby')).toBeNull();
       expect(page.querySelector('button.undo')).toBeNull();
       expect(page.querySelector('button.redo')).toBeNull();
+      expect(page.querySelector('button.add-exam')).toBeNull();
       expect(page.querySelector('.header .staff button')).toBeNull();
       block(page, 2).dispatchEvent(new KeyboardEvent('keydown', { key: 'ArrowRight', bubbles: true }));
       block(page, 2).dispatchEvent(new KeyboardEvent('keydown', { key: 'Enter', bubbles: true }));
@@ -181,8 +182,19 @@ describe('DayPlan timeline', () => {
       expect(text(page.querySelector('tw-fix-card'))).toContain('Start ACC-2 10 min later');
       expect(page.querySelector('tw-fix-card button')).toBeNull();
       expect(page.querySelector('tw-gap-panel mat-button-toggle-group')).toBeNull();
+      expect(page.querySelector('button.edit-exam')).toBeNull();
     });
   }
+
+  it('offers Add exam, and Edit or cancel on the open gap’s exam, to a role that may move slots', async () => {
+    const { page, fixture, backend } = await renderDay();
+    expect(page.querySelector('button.add-exam')).not.toBeNull();
+    marker(page, 2).click();
+    await settle(fixture);
+    backend.expectOne('/api/days/2027-03-15/fixes?gap=2').flush({ fixes: [] });
+    await settle(fixture);
+    expect(text(page.querySelector('button.edit-exam'))).toContain('ACC-2');
+  });
 
   it('undoes and redoes through the server, by button and by Ctrl+Z / Ctrl+Shift+Z', async () => {
     const { page, fixture, backend } = await renderDay();

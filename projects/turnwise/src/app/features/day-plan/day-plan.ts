@@ -1,12 +1,14 @@
 import { ChangeDetectionStrategy, Component, afterNextRender, computed, effect, inject, input, Injector, signal, viewChild } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { Router, RouterLink } from '@angular/router';
 
 import type { Fix } from '@shared/fixes/model';
+import type { PlanExam, PlannedDay } from '@shared/api/plan';
 import { AuthService } from '../../core/auth/auth-service';
 import { may } from '../../core/auth/roles';
 import { CautionKind, CautionNote } from '../../shared/ui/caution-note';
@@ -16,6 +18,7 @@ import { VerdictSummary } from '../../shared/ui/verdict-summary';
 import { BandLegend } from './band-legend';
 import { DayPlanStore } from './day-plan-store';
 import { DayTimeline } from './day-timeline';
+import { ExamDialog, type ExamDialogData } from './exam-dialog';
 import { GapPanel } from './gap-panel';
 import { HistoryPanel } from './history-panel';
 import { PatientsToCallPanel } from './patients-to-call-panel';
@@ -42,6 +45,7 @@ import { ZOOMS, Zoom } from './timeline-scale';
 export class DayPlan {
   private readonly router = inject(Router);
   private readonly injector = inject(Injector);
+  private readonly dialog = inject(MatDialog);
   private readonly user = inject(AuthService).user;
   private readonly role = computed(() => this.user()?.role ?? null);
   protected readonly store = inject(DayPlanStore);
@@ -120,6 +124,19 @@ export class DayPlan {
     this.selectedGap.set(null);
     // Back to where the keyboard was: the gap's marker on the timeline.
     afterNextRender(() => document.querySelector<HTMLElement>(`[data-gap-to="${toExamId}"]`)?.focus(), { injector: this.injector });
+  }
+
+  /** Adds an exam (none given) or edits or cancels one, in a dialog; its answer is the day's new plan. */
+  protected openExam(exam: PlanExam | null): void {
+    const plan = this.store.plan();
+    if (!plan) return;
+    const data: ExamDialogData = { date: plan.date, rooms: plan.rooms.map((room) => ({ id: room.id, name: room.name })), exam };
+    this.dialog
+      .open<ExamDialog, ExamDialogData, PlannedDay>(ExamDialog, { data, width: '40rem' })
+      .afterClosed()
+      .subscribe((answer) => {
+        if (answer) void this.store.accept(answer);
+      });
   }
 
   protected applyFix(fix: Fix, acceptNewProblems: boolean): void {
