@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import { DateTime } from 'luxon';
 import type { ExamEdit, ExamFields, ExamFormInput } from '../../shared/api/changes';
 import { EXAM_LIST_COLUMNS, parseExamTable, type ExamListRow } from '../../shared/exam-list';
-import { NotFoundError, ValidationError } from '../errors';
+import { NotFoundError, Refusal, ValidationError } from '../errors';
 import { examColumns, storedFields, type ExamRow } from './exams';
 import { staleVersion } from './exam-moves';
 import { recordChange } from './plan-changes';
@@ -44,6 +44,7 @@ export async function editExam(db: Knex, examId: number, input: ExamFormInput & 
     const exam = await trx<ExamRow>('exams').where({ id: examId }).first();
     if (!exam) throw new NotFoundError(`No exam ${examId}.`);
     if (exam.version !== input.version) throw await staleVersion(trx, exam, timezone);
+    await refuseFinished(trx, exam, 'edited');
     await refuseTakenAccession(trx, exam.day, row.accession, examId);
     await trx('exams').where({ id: examId }).update({ ...examColumns(row, roomId), version: exam.version + 1, updated_at: req.now.toISOString() });
     const change: ExamEdit = { type: 'exam', examId, accession: row.accession, from: storedFields(exam), to: fieldsOf(row, roomId) };
@@ -60,12 +61,27 @@ export async function cancelExam(db: Knex, examId: number, version: number, req:
     const exam = await trx<ExamRow>('exams').where({ id: examId }).first();
     if (!exam) throw new NotFoundError(`No exam ${examId}.`);
     if (exam.version !== version) throw await staleVersion(trx, exam, timezone);
+    await refuseFinished(trx, exam, 'cancelled');
     const room = await trx('rooms').where({ id: exam.room_id }).first('name');
     await trx('exams').where({ id: examId }).delete();
     const change: ExamEdit = { type: 'exam', examId, accession: exam.accession, from: storedFields(exam), to: null };
     await recordChange(trx, { day: exam.day, userId: req.userId, reason: 'exam cancelled', summary: `Cancelled ${exam.accession}: ${room?.name ?? `room ${exam.room_id}`} ${hhmm(exam.start_at, timezone)}`, changes: [change] }, req.now);
     return exam.day;
   });
+}
+
+/**
+ * An exam whose end is recorded has a turnover under way or done, and its cleaning is being
+ * logged against it: editing or removing it would take that turnover along, so it is refused.
+ */
+async function refuseFinished(trx: Knex.Transaction, exam: ExamRow, what: 'edited' | 'cancelled'): Promise<void> {
+  const turnover = await trx('turnovers').where({ from_exam_id: exam.id }).first('exam_ended_at');
+  if (!turnover) return;
+  throw new Refusal(
+    'exam_finished',
+    `${exam.accession} has finished (its end was recorded at ${turnover.exam_ended_at}) and its turnover has begun, so it cannot be ${what}.`,
+    { endedAt: turnover.exam_ended_at },
+  );
 }
 
 /**

@@ -62,6 +62,8 @@ export interface ErrorDetails {
   turnover_complete: { completedAt: string };
   /** 409: the exam before this turnover was moved out of the room since. */
   turnover_moved: undefined;
+  /** 409: the exam's end is recorded (its turnover has begun), so it can no longer be edited or cancelled. */
+  exam_finished: { endedAt: string };
   /** 413: the request body or the file is larger than allowed. */
   payload_too_large: undefined;
   /** 413 (bytes) or 422 (rows, cells, unpacked size): an exam file over one of its limits. */
@@ -128,6 +130,7 @@ export const ERROR_STATUS: { readonly [C in ErrorCode]: number } = {
   already_done: 409,
   turnover_complete: 409,
   turnover_moved: 409,
+  exam_finished: 409,
   payload_too_large: 413,
   file_limit_exceeded: 413,
   file_refused: 415,

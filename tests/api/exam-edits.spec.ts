@@ -93,6 +93,21 @@ describe('adding, editing and cancelling one exam by hand', () => {
     expect(find(await plan(), 'M-2')).toMatchObject({ start: t('09:10'), procedure: 'MR exam' });
   });
 
+  it('refuses to edit or cancel an exam whose end is recorded (409 exam_finished), keeping it and its turnover', async () => {
+    const tech = await signedIn(h.app, 'tech');
+    const m1 = find(await plan(), 'M-1')!;
+    const finished = await tech.post(`/api/exams/${m1.id}/finished`, { earlyReason: 'Scan stopped early at the patient\'s request' });
+    expect(finished.status).toBe(201);
+    const cancel = await scheduler.delete(`/api/exams/${m1.id}?version=${m1.version}`);
+    expect(cancel.status).toBe(409);
+    expect(cancel.body.error).toMatchObject({ code: 'exam_finished', details: { endedAt: expect.any(String) } });
+    const edit = await scheduler.put(`/api/exams/${m1.id}`, { ...form, accession: 'M-1', version: m1.version });
+    expect(edit.status).toBe(409);
+    expect(edit.body.error.code).toBe('exam_finished');
+    expect(find(await plan(), 'M-1')).toMatchObject({ id: m1.id, start: t('08:00'), procedure: 'MR exam' });
+    expect(await h.db('turnovers').where({ from_exam_id: m1.id }).count({ n: '*' }).first()).toEqual({ n: 1 });
+  });
+
   it('refuses an accession the day already has, naming it, on add and on edit', async () => {
     const add = await scheduler.post(`/api/days/${DAY}/exams`, { ...form, accession: 'M-1' });
     expect(add.status).toBe(422);
