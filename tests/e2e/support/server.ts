@@ -8,8 +8,13 @@ import { fixedClock, systemClock } from '../../../server/clock';
 import { createDb, migrateToLatest } from '../../../server/db';
 import { seedDemo, seedReferenceData } from '../../../server/seeding';
 
-/** The production build `npm run build` writes; the browser tests drive exactly what ships. */
-export const CLIENT_DIR = path.resolve(__dirname, '..', '..', '..', 'dist', 'turnwise', 'browser');
+/**
+ * The production build `npm run build` writes; the browser tests drive exactly what ships.
+ * `E2E_CLIENT_DIR` points at another build (e.g. `ng build --output-path /tmp/mine` → `/tmp/mine/browser`)
+ * so two people can build and run browser tests in one checkout without overwriting each other.
+ */
+export const CLIENT_DIR =
+  process.env['E2E_CLIENT_DIR'] ?? path.resolve(__dirname, '..', '..', '..', 'dist', 'turnwise', 'browser');
 
 export interface TestServer {
   /** e.g. `http://127.0.0.1:41234`, no trailing slash. */
