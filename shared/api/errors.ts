@@ -101,6 +101,10 @@ export interface ErrorDetails {
   room_has_exams: { count: number; firstDay: string };
   /** 422: MR Unsafe or unmarked items in an MR room's kit (ASTM F2503; ACR Zone IV); `items` names them. */
   kit_not_mr_safe: { items: { id: number; name: string; marking: string }[]; problems: Problem[] };
+  /** 409: the room's modality has no protocol (nor a `*` fallback) on that day: no checklist to show. */
+  no_protocol: { modality: string };
+  /** 409: a product used by a current or future protocol version cannot be retired; `modalities` name them. */
+  product_in_use: { modalities: string[] };
   /** 429: too many failed sign-ins; wait 15 minutes. */
   too_many_attempts: undefined;
   /** 500: an unexpected failure, logged on the server; never a stack trace. */
@@ -146,6 +150,8 @@ export const ERROR_STATUS: { readonly [C in ErrorCode]: number } = {
   last_admin: 409,
   room_has_exams: 409,
   kit_not_mr_safe: 422,
+  no_protocol: 409,
+  product_in_use: 409,
   too_many_attempts: 429,
   internal: 500,
   busy: 503,
