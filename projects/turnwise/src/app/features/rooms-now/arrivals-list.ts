@@ -29,13 +29,13 @@ import { SiteTime } from '../../shared/ui/site-time';
               @if (arrival.arrivedAt) {
                 <span class="waiting"><mat-icon svgIcon="how_to_reg" aria-hidden="true" />Waiting since {{ arrival.arrivedAt | siteTime }}</span>
                 @if (canMark()) {
-                  <button mat-button type="button" class="undo-arrived" [disabled]="busy().has(arrival.examId)"
+                  <button mat-button type="button" class="undo-arrived" [disabled]="busy()"
                     [attr.aria-label]="'Undo arrival of ' + arrival.accession" (click)="undoArrived.emit(arrival.examId)">
                     <mat-icon svgIcon="undo" />Undo
                   </button>
                 }
               } @else if (canMark()) {
-                <button mat-stroked-button type="button" class="mark-arrived" [disabled]="busy().has(arrival.examId)"
+                <button mat-stroked-button type="button" class="mark-arrived" [disabled]="busy()"
                   [attr.aria-label]="'Mark arrived: ' + arrival.accession + ', ' + arrival.roomName" (click)="arrived.emit(arrival.examId)">
                   <mat-icon svgIcon="how_to_reg" />Mark arrived
                 </button>
@@ -77,8 +77,8 @@ import { SiteTime } from '../../shared/ui/site-time';
 export class ArrivalsList {
   readonly arrivals = input.required<readonly BoardArrival[]>();
   readonly canMark = input(false);
-  /** Exams with an arrival call on its way. */
-  readonly busy = input<ReadonlySet<number>>(new Set());
+  /** An arrival call is on its way: the buttons wait for its answer. */
+  readonly busy = input(false);
 
   readonly arrived = output<number>();
   readonly undoArrived = output<number>();

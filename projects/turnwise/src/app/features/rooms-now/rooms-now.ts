@@ -1,22 +1,18 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { Router } from '@angular/router';
-import { Observable, catchError, filter, of, switchMap, tap } from 'rxjs';
+import { Observable, switchMap, tap } from 'rxjs';
 
-import type { ApiError } from '@shared/api/errors';
-import type { Board } from '@shared/api/board';
 import { AuthService } from '../../core/auth/auth-service';
-import type { Role } from '../../core/auth/roles';
-import { ShellChrome } from '../../core/layout/shell-chrome';
-import { CautionNote } from '../../shared/ui/caution-note';
-import { Clock } from '../../core/time/clock';
-import { serverSkew } from '../../shared/ui/countdown';
-import { DayEvents, DayStreamStatus } from '../../core/live/day-events';
-import { dayRefreshes } from '../../core/live/day-refresh';
-import { LiveIndicator } from '../../shared/ui/live-indicator';
+import { may } from '../../core/auth/roles';
+import { liveDay } from '../../core/live/day-refresh';
 import { SiteSettingsService } from '../../core/site/site-settings-service';
+import { action } from '../../core/state/action';
+import { serverState } from '../../core/state/server-state';
+import { Clock, serverNow } from '../../core/time/clock';
+import { CautionNote } from '../../shared/ui/caution-note';
+import { LiveIndicator } from '../../shared/ui/live-indicator';
 import { SiteTime } from '../../shared/ui/site-time';
 import { ArrivalsList } from './arrivals-list';
 import { BoardCard } from './board-card';
@@ -25,8 +21,6 @@ import { WallDisplay } from './wall-display';
 
 /** States change with time alone (a surface dries), so the board is fetched again this often. */
 const REFRESH_MS = 30_000;
-const MARKS_ARRIVALS: readonly Role[] = ['frontdesk', 'charge', 'admin', 'tech'];
-const WORKS_TURNOVERS: readonly Role[] = ['tech', 'charge', 'admin'];
 
 /** Rooms now: the front desk's live board of every room, with a wall-display mode. */
 @Component({
@@ -40,64 +34,42 @@ const WORKS_TURNOVERS: readonly Role[] = ['tech', 'charge', 'admin'];
 })
 export class RoomsNow {
   private readonly boards = inject(BoardService);
-  private readonly events = inject(DayEvents);
-  private readonly clock = inject(Clock);
   private readonly user = inject(AuthService).user;
   private readonly role = computed(() => this.user()?.role ?? null);
   private readonly wallDisplay = inject(WallDisplay);
   private readonly router = inject(Router);
+  private readonly date = inject(SiteSettingsService).today;
+  private readonly server = serverNow(inject(Clock));
 
   /** `?display=wall` opens the wall display, so a screen on the wall can be bookmarked. */
   readonly display = input<string | undefined>();
 
   protected readonly wall = computed(() => this.display() === 'wall');
-  protected readonly status = signal<DayStreamStatus>('connecting');
-  protected readonly board = signal<Board | null>(null);
-  protected readonly error = signal<ApiError | null>(null);
-  /** Exams with an arrival call on its way, so a double tap sends one. */
-  protected readonly busy = signal<ReadonlySet<number>>(new Set());
-  private readonly skew = signal(0);
-  protected readonly now = computed(() => this.clock.now() + this.skew());
+  protected readonly board = serverState((date: string) => this.fetch(date), 'The board could not be shown.');
+  protected readonly status = liveDay(this.board, this.date, { day: (date) => date, everyMs: REFRESH_MS });
+  /** Marking or taking back an arrival answers the board again; a double tap sends one. */
+  protected readonly arrival = action((call: Observable<unknown>, date: string) => call.pipe(switchMap(() => this.fetch(date))));
+  /** A refused arrival until the next one or the next good fetch; else a failed fetch. */
+  protected readonly error = computed(() => this.arrival.error() ?? this.board.error());
+  protected readonly now = this.server.now;
 
-  protected readonly canMarkArrived = computed(() => this.may(MARKS_ARRIVALS));
-  protected readonly canWorkTurnover = computed(() => this.may(WORKS_TURNOVERS));
+  protected readonly canMarkArrived = computed(() => may(this.role(), 'markArrivals'));
+  protected readonly canWorkTurnover = computed(() => may(this.role(), 'workTurnovers'));
   /** As square a grid as the rooms allow (4 → 2 × 2, 9 → 3 × 3), so the wall's cards fill the screen. */
-  protected readonly wallColumns = computed(() => Math.max(1, Math.ceil(Math.sqrt(this.board()?.rooms.length ?? 1))));
-  protected readonly hasMr = computed(() => this.board()?.rooms.some((room) => room.modality === 'MR') ?? false);
-
-  private readonly date = inject(SiteSettingsService).today;
+  protected readonly wallColumns = computed(() => Math.max(1, Math.ceil(Math.sqrt(this.board.value()?.rooms.length ?? 1))));
+  protected readonly hasMr = computed(() => this.board.value()?.rooms.some((room) => room.modality === 'MR') ?? false);
 
   constructor() {
     effect(() => this.wallDisplay.show(this.wall()));
-    toObservable(this.date)
-      .pipe(
-        filter((date): date is string => date !== null),
-        switchMap((date) =>
-          dayRefreshes(this.events.stream(date), { everyMs: REFRESH_MS, onStatus: (status) => this.status.set(status) }).pipe(
-            switchMap(() => this.fetch(date)),
-          ),
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe();
     inject(DestroyRef).onDestroy(() => this.wallDisplay.show(false));
   }
 
-  private may(roles: readonly Role[]): boolean {
-    const role = this.role();
-    return role !== null && roles.includes(role);
-  }
-
-  protected roomBusy(examId: number | undefined): boolean {
-    return examId !== undefined && this.busy().has(examId);
-  }
-
   protected markArrived(examId: number): void {
-    this.act(examId, this.boards.markArrived(examId));
+    void this.arrive(this.boards.markArrived(examId));
   }
 
   protected undoArrived(examId: number): void {
-    this.act(examId, this.boards.undoArrived(examId));
+    void this.arrive(this.boards.undoArrived(examId));
   }
 
   protected enterWall(): void {
@@ -110,35 +82,20 @@ export class RoomsNow {
     void this.router.navigate([], { queryParams: { display: null }, queryParamsHandling: 'merge' });
   }
 
-  private fetch(date: string): Observable<unknown> {
-    return this.boards.board(date).pipe(
-      tap((board) => {
-        this.skew.set(serverSkew(board.now, this.clock.now()));
-        this.board.set(board);
-        this.error.set(null);
-      }),
-      catchError((error: ApiError) => {
-        this.error.set(error);
-        return of(null);
-      }),
-    );
+  private async arrive(call: Observable<unknown>): Promise<void> {
+    const date = this.date();
+    if (!date) return;
+    const result = await this.arrival.run(call, date);
+    if (result.status === 'done') this.board.set(result.value);
   }
 
-  private act(examId: number, call: Observable<unknown>): void {
-    const date = this.date();
-    this.busy.update((busy) => new Set(busy).add(examId));
-    const done = () =>
-      this.busy.update((busy) => {
-        const next = new Set(busy);
-        next.delete(examId);
-        return next;
-      });
-    call.pipe(switchMap(() => (date ? this.fetch(date) : of(null)))).subscribe({
-      next: done,
-      error: (error: ApiError) => {
-        this.error.set(error);
-        done();
-      },
-    });
+  private fetch(date: string) {
+    return this.boards.board(date).pipe(
+      tap((board) => {
+        this.server.heard(board.now);
+        // A good fetch also clears an arrival's refusal (not while one is on its way).
+        if (!this.arrival.pending()) this.arrival.reset();
+      }),
+    );
   }
 }

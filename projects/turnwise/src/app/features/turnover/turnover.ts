@@ -1,22 +1,19 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { Router } from '@angular/router';
-import { EMPTY, Observable, catchError, filter, switchMap, tap } from 'rxjs';
+import { Observable, tap } from 'rxjs';
 
 import type { BoardShiftTask, Checklist } from '@shared/api/board';
-import { hasErrorCode, type ApiError } from '@shared/api/errors';
-import type { Room } from '@shared/api/rooms';
-import { action } from '../../core/state/action';
-import { CautionKind, CautionNote } from '../../shared/ui/caution-note';
-import { Clock } from '../../core/time/clock';
-import { serverSkew } from '../../shared/ui/countdown';
-import { DayEvents, DayStreamStatus } from '../../core/live/day-events';
-import { dayRefreshes } from '../../core/live/day-refresh';
-import { LiveIndicator } from '../../shared/ui/live-indicator';
+import { hasErrorCode } from '@shared/api/errors';
+import { liveDay } from '../../core/live/day-refresh';
 import { SiteSettingsService } from '../../core/site/site-settings-service';
+import { action } from '../../core/state/action';
+import { serverState } from '../../core/state/server-state';
+import { Clock, serverNow } from '../../core/time/clock';
+import { CautionKind, CautionNote } from '../../shared/ui/caution-note';
+import { LiveIndicator } from '../../shared/ui/live-indicator';
 import { SiteTime } from '../../shared/ui/site-time';
 import { ChecklistStepRow } from './checklist-step-row';
 import { readLastRoom, rememberRoom } from './last-room';
@@ -25,6 +22,12 @@ import { TurnoverClose } from './turnover-close';
 import { ExamFinished, TurnoverExams } from './turnover-exams';
 import { StepTick, TurnoverService } from './turnover-service';
 import { TurnoverTabs } from './turnover-tabs';
+
+/** Which checklist is shown: a room's, on a day. */
+interface ChecklistAt {
+  roomId: number;
+  date: string;
+}
 
 /** Turnover: the technologist's checklist for one room's current (or next) turnover. Tablet first. */
 @Component({
@@ -39,22 +42,34 @@ import { TurnoverTabs } from './turnover-tabs';
 })
 export class Turnover {
   private readonly service = inject(TurnoverService);
-  private readonly events = inject(DayEvents);
-  private readonly clock = inject(Clock);
   private readonly router = inject(Router);
   private readonly date = inject(SiteSettingsService).today;
+  private readonly server = serverNow(inject(Clock));
 
   /** `?room=` from a Rooms now card; otherwise the room last used on this device. */
   readonly room = input<string | undefined>();
 
-  protected readonly rooms = signal<Room[]>([]);
-  protected readonly checklist = signal<Checklist | null>(null);
-  protected readonly error = signal<ApiError | null>(null);
-  protected readonly status = signal<DayStreamStatus>('connecting');
+  protected readonly rooms = serverState(() => this.service.rooms(), 'The rooms could not be shown.');
+  private readonly at = computed<ChecklistAt | null>(
+    () => {
+      const roomId = this.roomId();
+      const date = this.date();
+      return roomId === null || date === null ? null : { roomId, date };
+    },
+    { equal: (a, b) => a?.roomId === b?.roomId && a?.date === b?.date },
+  );
+  protected readonly checklist = serverState(({ roomId, date }: ChecklistAt) => {
+    rememberRoom(roomId);
+    if (this.justCompleted()?.roomId !== roomId) this.justCompleted.set(null);
+    return this.service.checklist(roomId, date).pipe(tap((checklist) => this.arrived(checklist)));
+  }, 'The checklist could not be shown.');
+  protected readonly status = liveDay(this.checklist, this.at, { day: (at) => at.date });
   /** Every change to the turnover (exam finished, a tick, complete) answers the whole checklist. */
-  private readonly change = action((call: Observable<Checklist>) => call);
+  private readonly change = action((call: Observable<Checklist>) => call.pipe(tap((checklist) => this.arrived(checklist))));
   private readonly markTask = action((task: BoardShiftTask) => this.service.shiftTaskDone(task));
   protected readonly busy = computed(() => this.change.pending() || this.markTask.pending());
+  /** An action's refusal stays until the next action; a failed fetch shows until a good one. */
+  protected readonly error = computed(() => this.change.error() ?? this.markTask.error() ?? this.checklist.error() ?? this.rooms.error());
   /** The step the server refused as still wet, so its row asks for a reason. */
   protected readonly reasonFor = signal<string | null>(null);
   /** The exam whose end the server refused as before its slot, so "Exam finished" asks why. */
@@ -64,13 +79,10 @@ export class Turnover {
    * soon as the day's stream says so, which would otherwise hide that the close went through.
    */
   protected readonly justCompleted = signal<{ roomId: number; accession: string | null; at: string; roomName: string } | null>(null);
-  private readonly skew = signal(0);
-  /** The error shown came from fetching, so the next good fetch clears it (an action's error stays). */
-  private fetchFailed = false;
-  protected readonly now = computed(() => this.clock.now() + this.skew());
+  protected readonly now = this.server.now;
 
   protected readonly roomId = computed<number | null>(() => {
-    const rooms = this.rooms();
+    const rooms = this.rooms.value() ?? [];
     const wanted = Number(this.room() ?? readLastRoom());
     return rooms.some((room) => room.id === wanted) ? wanted : (rooms[0]?.id ?? null);
   });
@@ -80,13 +92,13 @@ export class Turnover {
    * with "Exam finished"; what the technologist does now is the shift tasks.
    */
   protected readonly opening = computed(() => {
-    const c = this.checklist();
+    const c = this.checklist.value();
     return !!c && c.turnoverId === null && !c.leaving && !!c.arriving;
   });
 
   /** Steps can be ticked once the exam has left (or at the opening) and the turnover is open. */
   protected readonly stepsOpen = computed(() => {
-    const c = this.checklist();
+    const c = this.checklist.value();
     return !!c && c.turnoverId !== null && c.completedAt === null && (!c.leaving || !!c.examEndedAt) && !this.busy();
   });
 
@@ -95,12 +107,12 @@ export class Turnover {
    * reason typed for this turnover never shows up on the next one's same step.
    */
   protected readonly stepRows = computed(() => {
-    const c = this.checklist();
+    const c = this.checklist.value();
     return (c?.steps ?? []).map((step) => ({ key: `${c?.turnoverId ?? 'unopened'}:${step.key}`, step }));
   });
 
   protected readonly cautions = computed<CautionKind[]>(() => {
-    const c = this.checklist();
+    const c = this.checklist.value();
     const kinds: CautionKind[] = ['general'];
     if (c?.modality === 'MR') kinds.push('mr');
     if (c && c.airHoldMinutes > 0) kinds.push('airborne');
@@ -108,27 +120,7 @@ export class Turnover {
   });
 
   constructor() {
-    this.service.rooms().pipe(takeUntilDestroyed()).subscribe({
-      next: (rooms) => this.rooms.set(rooms),
-      error: (error: ApiError) => this.error.set(error),
-    });
-    const wanted = computed(() => ({ roomId: this.roomId(), date: this.date() }));
-    toObservable(wanted)
-      .pipe(
-        filter((at): at is { roomId: number; date: string } => at.roomId !== null && at.date !== null),
-        tap(({ roomId }) => {
-          this.checklist.set(null);
-          if (this.justCompleted()?.roomId !== roomId) this.justCompleted.set(null);
-          rememberRoom(roomId);
-        }),
-        switchMap(({ roomId, date }) =>
-          dayRefreshes(this.events.stream(date), { onStatus: (status) => this.status.set(status) }).pipe(
-            switchMap(() => this.quietly(this.service.checklist(roomId, date))),
-          ),
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe();
+    this.rooms.show('all');
   }
 
   protected pickRoom(event: Event): void {
@@ -144,7 +136,7 @@ export class Turnover {
   }
 
   protected async tick(stepKey: string, tick: StepTick): Promise<void> {
-    const turnoverId = this.checklist()?.turnoverId;
+    const turnoverId = this.checklist.value()?.turnoverId;
     if (turnoverId == null) return;
     const result = await this.run(this.service.stepDone(turnoverId, stepKey, tick));
     // Only a surface still wet by the server's clock asks for a reason; "tick X first" does not.
@@ -152,7 +144,7 @@ export class Turnover {
   }
 
   protected async complete(overrideReason: string | undefined): Promise<void> {
-    const id = this.checklist()?.turnoverId;
+    const id = this.checklist.value()?.turnoverId;
     if (id == null) return;
     const result = await this.run(this.service.complete(id, overrideReason));
     if (result.status === 'done' && result.value.completedAt) {
@@ -162,43 +154,29 @@ export class Turnover {
   }
 
   protected async shiftTaskDone(task: BoardShiftTask): Promise<void> {
+    this.change.reset();
     const result = await this.markTask.run(task);
-    this.error.set(result.status === 'failed' ? result.error : null);
-    if (result.status === 'done') {
+    const c = this.checklist.value();
+    if (result.status === 'done' && c) {
       const updated = result.value;
-      this.checklist.update((c) => c && { ...c, tasks: c.tasks.map((t) => (t.taskId === updated.taskId && t.due === updated.due ? updated : t)) });
+      this.checklist.set({ ...c, tasks: c.tasks.map((t) => (t.taskId === updated.taskId && t.due === updated.due ? updated : t)) });
     }
   }
 
   /** Runs a change that answers the whole checklist: shown at once; a refusal stays on the page. */
   private async run(call: Observable<Checklist>) {
     this.reasonFor.set(null);
+    this.markTask.reset();
     const result = await this.change.run(call);
-    if (result.status === 'done') this.show(result.value);
-    this.error.set(result.status === 'failed' ? result.error : null);
+    if (result.status === 'done') this.checklist.set(result.value);
     return result;
   }
 
-  private quietly(call: Observable<Checklist>): Observable<Checklist> {
-    return call.pipe(
-      tap((checklist) => {
-        this.show(checklist);
-        if (this.fetchFailed) this.error.set(null);
-        this.fetchFailed = false;
-      }),
-      catchError((error: ApiError) => {
-        this.error.set(error);
-        this.fetchFailed = true;
-        return EMPTY;
-      }),
-    );
-  }
-
-  private show(checklist: Checklist): void {
-    this.skew.set(serverSkew(checklist.now, this.clock.now()));
+  /** Every checklist shown, fetched or answered: the server's clock, and form state of one turnover only. */
+  private arrived(checklist: Checklist): void {
+    this.server.heard(checklist.now);
     // Form state belongs to one turnover: a reason asked for the last one must not carry over.
-    if (checklist.turnoverId !== this.checklist()?.turnoverId) this.reasonFor.set(null);
+    if (checklist.turnoverId !== this.checklist.value()?.turnoverId) this.reasonFor.set(null);
     if (checklist.leaving?.examId !== this.finishReasonFor()) this.finishReasonFor.set(null);
-    this.checklist.set(checklist);
   }
 }
