@@ -1,16 +1,14 @@
-import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, linkedSignal, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatTableModule } from '@angular/material/table';
-import { EMPTY, catchError, filter, switchMap, tap } from 'rxjs';
 
 import type { LogEntry } from '@shared/api/board';
-import type { ApiError } from '@shared/api/errors';
-import type { Room } from '@shared/api/rooms';
 import { SiteSettingsService } from '../../core/site/site-settings-service';
+import { action } from '../../core/state/action';
+import { serverState } from '../../core/state/server-state';
 import { DayPicker } from '../../shared/ui/day-picker';
 import { SiteTime } from '../../shared/ui/site-time';
 import { LogFilters, LogService, logCsvUrl } from './log-service';
@@ -33,48 +31,40 @@ const COLUMNS = ['at', 'room', 'step', 'product', 'who', 'earlyReason', 'links']
 })
 export class CleaningLog {
   private readonly log = inject(LogService);
+  private readonly turnovers = inject(TurnoverService);
 
   protected readonly columns = COLUMNS;
-  protected readonly rooms = signal<Room[]>([]);
+  protected readonly rooms = serverState(() => this.turnovers.rooms(), 'The rooms could not be shown.');
   protected readonly today = inject(SiteSettingsService).today;
   protected readonly date = linkedSignal(() => this.today() ?? '');
   protected readonly roomId = signal<number | null>(null);
   protected readonly user = signal('');
-  protected readonly entries = signal<LogEntry[] | null>(null);
-  protected readonly error = signal<ApiError | null>(null);
+  private readonly filters = computed<LogFilters>(() => ({ date: this.date(), roomId: this.roomId(), user: this.user() }));
+  protected readonly entries = serverState((filters: LogFilters) => this.log.entries(filters), 'The log could not be shown.');
   /** The entry a correction is being written for. */
   protected readonly correcting = signal<LogEntry | null>(null);
   protected readonly note = signal('');
-  protected readonly saving = signal(false);
+  private readonly correct = action((entry: LogEntry, note: string) => this.log.correct(entry.id, note), 'The correction could not be added.');
+  protected readonly saving = this.correct.pending;
+  /** A refused correction until the next one; else a failed fetch. */
+  protected readonly error = computed(() => this.correct.error() ?? this.entries.error());
 
-  private readonly filters = computed<LogFilters>(() => ({ date: this.date(), roomId: this.roomId(), user: this.user() }));
   protected readonly csvUrl = computed(() => logCsvUrl(this.filters()));
   /** Entry id → the ids of the corrections added to it, for links both ways. */
   protected readonly correctedBy = computed(() => {
     const links = new Map<number, number[]>();
-    for (const entry of this.entries() ?? []) {
+    for (const entry of this.entries.value() ?? []) {
       if (entry.correctsId !== null) links.set(entry.correctsId, [...(links.get(entry.correctsId) ?? []), entry.id]);
     }
     return links;
   });
 
   constructor() {
-    inject(TurnoverService).rooms().pipe(takeUntilDestroyed()).subscribe({ next: (rooms) => this.rooms.set(rooms), error: () => undefined });
-    toObservable(this.filters)
-      .pipe(
-        filter((filters) => filters.date !== ''),
-        tap(() => this.error.set(null)),
-        switchMap((filters) =>
-          this.log.entries(filters).pipe(
-            catchError((error: ApiError) => {
-              this.error.set(error);
-              return EMPTY;
-            }),
-          ),
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe((entries) => this.entries.set(entries));
+    this.rooms.show('all');
+    effect(() => {
+      const filters = this.filters();
+      if (filters.date !== '') this.entries.show(filters);
+    });
   }
 
   protected pickRoom(event: Event): void {
@@ -95,21 +85,14 @@ export class CleaningLog {
     this.note.set('');
   }
 
-  protected saveCorrection(): void {
+  protected async saveCorrection(): Promise<void> {
     const entry = this.correcting();
     const note = this.note().trim();
     if (!entry || !note) return;
-    this.saving.set(true);
-    this.log.correct(entry.id, note).subscribe({
-      next: (added) => {
-        this.entries.update((entries) => [added, ...(entries ?? [])]);
-        this.correcting.set(null);
-        this.saving.set(false);
-      },
-      error: (error: ApiError) => {
-        this.error.set(error);
-        this.saving.set(false);
-      },
-    });
+    const result = await this.correct.run(entry, note);
+    if (result.status === 'done') {
+      this.entries.set([result.value, ...(this.entries.value() ?? [])]);
+      this.correcting.set(null);
+    }
   }
 }
