@@ -39,6 +39,19 @@ describe('Gap panel', () => {
     expect(text(cards[0])).not.toContain('helps');
   });
 
+  it('says in the panel when the fixes could not be loaded', async () => {
+    const { page, fixture, backend } = await renderDay();
+    marker(page, 2).click();
+    await settle(fixture);
+    expect(page.querySelector('tw-gap-panel .fixes mat-progress-bar')).not.toBeNull();
+    backend
+      .expectOne('/api/days/2027-03-15/fixes?gap=2')
+      .flush({ error: { code: 'busy', message: 'The server is busy. Try again in a moment.' } }, { status: 503, statusText: 'x' });
+    await settle(fixture);
+    expect(text(page.querySelector('tw-gap-panel .fixes [role="alert"]'))).toBe('The server is busy. Try again in a moment.');
+    expect(page.querySelector('tw-gap-panel .fixes mat-progress-bar')).toBeNull();
+  });
+
   it('keeps title, close, verdict and needs/has together in the header above the steps', async () => {
     const { page, fixture, backend } = await renderDay();
     marker(page, 2).click();

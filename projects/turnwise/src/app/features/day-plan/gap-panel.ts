@@ -1,21 +1,19 @@
-import { ChangeDetectionStrategy, Component, ElementRef, afterNextRender, computed, inject, input, output, viewChild } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, ElementRef, afterNextRender, computed, effect, inject, input, output, viewChild } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { catchError, map, of, startWith, switchMap } from 'rxjs';
+import { of } from 'rxjs';
 
 import type { PlanExam, PlanGap, PlanRoom } from '@shared/api/plan';
+import { TURNOVER_STAFF } from '@shared/api/limits';
 import type { Fix } from '@shared/fixes/model';
+import { serverState } from '../../core/state/server-state';
 import { CautionKind, CautionNote } from '../../shared/ui/caution-note';
 import { SiteTime } from '../../shared/ui/site-time';
 import { VerdictChip } from '../../shared/ui/verdict-chip';
 import { DayPlanService } from './day-plan-service';
 import { FixCard, isPartialFix } from './fix-card';
-import { STAFF_RANGE } from './room-lane';
-
-type FixesState = { status: 'loading' } | { status: 'loaded'; fixes: Fix[] } | { status: 'failed'; message: string };
 
 /**
  * One gap in full, beside the timeline: verdict, what it needs and has, ready-at, the steps in
@@ -48,7 +46,7 @@ export class GapPanel {
 
   private readonly heading = viewChild.required<ElementRef<HTMLElement>>('heading');
 
-  protected readonly staffChoices = Array.from({ length: STAFF_RANGE.max }, (_, i) => i + 1);
+  protected readonly staffChoices = Array.from({ length: TURNOVER_STAFF.max }, (_, i) => i + 1);
   protected readonly title = computed(() => `${this.gap().fromExamId === null ? 'Opening' : 'Turnover'} before ${this.to().accession}`);
   protected readonly late = computed(() => this.gap().verdict === 'short' || this.gap().verdict === 'overlap');
   protected readonly helperAdded = computed(() => this.gap().staff !== this.room().staff);
@@ -59,30 +57,21 @@ export class GapPanel {
     return kinds;
   });
 
-  private readonly fixesRequest = computed(() => ({ date: this.date(), revision: this.revision(), toExamId: this.to().id, late: this.late() }));
-  protected readonly fixes = toSignal(
-    toObservable(this.fixesRequest).pipe(
-      switchMap(({ date, toExamId, late }) =>
-        !late
-          ? of<FixesState>({ status: 'loaded', fixes: [] })
-          : this.api.fixes(date, toExamId).pipe(
-              map((fixes): FixesState => ({ status: 'loaded', fixes })),
-              catchError((error: { message?: string }) => of<FixesState>({ status: 'failed', message: error.message ?? 'Fixes could not be loaded.' })),
-              startWith<FixesState>({ status: 'loading' }),
-            ),
-      ),
-    ),
-    { initialValue: { status: 'loading' } as FixesState },
+  /** The server's fixes for a short or overlapping gap (none asked for one that fits), fetched again on every new plan. */
+  private readonly fixesFor = computed(() => ({ date: this.date(), revision: this.revision(), toExamId: this.to().id, late: this.late() }));
+  protected readonly fixes = serverState(
+    ({ date, toExamId, late }: { date: string; toExamId: number; late: boolean }) => (late ? this.api.fixes(date, toExamId) : of<Fix[]>([])),
+    'Fixes could not be loaded.',
   );
 
   /** Fixes that make the gap fit come first; those that only help (still short) after them. */
   protected readonly orderedFixes = computed(() => {
-    const state = this.fixes();
-    if (state.status !== 'loaded') return [];
-    return [...state.fixes.filter((fix) => !isPartialFix(fix)), ...state.fixes.filter(isPartialFix)];
+    const fixes = this.fixes.value() ?? [];
+    return [...fixes.filter((fix) => !isPartialFix(fix)), ...fixes.filter(isPartialFix)];
   });
 
   constructor() {
+    effect(() => this.fixes.show(this.fixesFor()));
     // Opening the panel takes the keyboard to it; Escape or Close brings it back to the timeline.
     afterNextRender(() => this.heading().nativeElement.focus());
   }
