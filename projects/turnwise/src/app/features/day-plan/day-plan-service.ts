@@ -3,13 +3,11 @@ import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 
 import type { DayHistory, ExamFormInput } from '@shared/api/changes';
+import type { MoveReason } from '@shared/api/limits';
 import type { PlannedDay } from '@shared/api/plan';
 import type { Room } from '@shared/api/rooms';
 import type { Fix } from '@shared/fixes/model';
 import { showsOwnErrors } from '../../core/http/shows-own-errors';
-
-/** Why a slot moved, as the history panel shows it. */
-export type MoveReason = 'drag' | 'keyboard';
 
 /**
  * The Day plan's calls. Every one shows its own errors (the screen puts them in a banner), and

@@ -2,13 +2,14 @@ import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core'
 import { Observable, Subscription, map, of } from 'rxjs';
 
 import type { ApiError } from '@shared/api/errors';
+import type { MoveReason } from '@shared/api/limits';
 import type { PlanExam, PlannedDay } from '@shared/api/plan';
 import type { Fix } from '@shared/fixes/model';
 import { AuthService } from '../../core/auth/auth-service';
 import { DayEvents } from '../../core/live/day-events';
 import { action } from '../../core/state/action';
 import { serverState } from '../../core/state/server-state';
-import { DayPlanService, MoveReason } from './day-plan-service';
+import { DayPlanService } from './day-plan-service';
 import { PatientToCall, movedExams, withMoves } from './patients-to-call';
 
 /** A message about the last change, shown in the banner above the timeline. */

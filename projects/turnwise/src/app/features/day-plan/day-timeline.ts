@@ -3,9 +3,9 @@ import {
   signal, viewChild,
 } from '@angular/core';
 
+import type { MoveReason } from '@shared/api/limits';
 import type { DayPlan, PlanExam, PlanRoom } from '@shared/api/plan';
 import { Clock } from '../../core/time/clock';
-import type { MoveReason } from './day-plan-service';
 import { DayPlanStore } from './day-plan-store';
 import { LANE_HEADER_PX, LANE_HEIGHT_PX } from './lane-size';
 import { LaneWindow } from './lane-window';

@@ -1,7 +1,7 @@
+import type { MoveReason } from '@shared/api/limits';
 import type { PlanExam, PlanGap, PlanRoom } from '@shared/api/plan';
 
 import { siteClock } from '../../shared/ui/site-time';
-import type { MoveReason } from './day-plan-service';
 
 /** A slot being moved and not yet saved: by pointer (`drag`) or arrow keys (`keyboard`). */
 export interface PendingMove {
