@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import type { Knex } from 'knex';
 import { z } from 'zod';
+import { NOTE_MAX_CHARS } from '../../shared/api/limits';
 import type { Clock } from '../clock';
 import { currentUser, requireRole } from '../middleware/roles';
 import { markArrived, unmarkArrived } from '../services/arrivals';
@@ -12,7 +13,7 @@ import { publishDayEvent } from './announce';
 import { idParam } from './params';
 
 /** Only needed to record an end before the slot's start: why (logged). */
-const finishSchema = z.object({ earlyReason: z.string().max(500).optional() });
+const finishSchema = z.object({ earlyReason: z.string().max(NOTE_MAX_CHARS).optional() });
 
 /** What happens to an exam on the day itself: the patient arrives, the exam finishes. */
 export function examProgressRoutes(deps: { db: Knex; clock: Clock; events: DayEvents }): Router {

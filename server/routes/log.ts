@@ -1,6 +1,7 @@
 import { Router, type Request } from 'express';
 import type { Knex } from 'knex';
 import { z } from 'zod';
+import { NOTE_MAX_CHARS } from '../../shared/api/limits';
 import type { Clock } from '../clock';
 import { currentUser, requireRole } from '../middleware/roles';
 import { correctLog, listLog, type LogFilter } from '../services/cleaning-log';
@@ -17,7 +18,7 @@ const filterSchema = z.object({
   roomId: z.coerce.number().int().positive().optional(),
   user: z.string().min(1).max(64).optional(),
 });
-const correctionSchema = z.object({ note: z.string().trim().min(1, 'say what was wrong').max(500) });
+const correctionSchema = z.object({ note: z.string().trim().min(1, 'say what was wrong').max(NOTE_MAX_CHARS) });
 
 function filterOf(req: Request): LogFilter {
   const { date, roomId, user } = parseInput(filterSchema, req.query, 'filter');

@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import type { Knex } from 'knex';
 import { z } from 'zod';
+import { NOTE_MAX_CHARS } from '../../shared/api/limits';
 import type { Clock } from '../clock';
 import { currentUser, requireRole } from '../middleware/roles';
 import { loadChecklist } from '../services/checklist';
@@ -13,9 +14,9 @@ import { idParam } from './params';
 
 const tickSchema = z.object({
   productKey: z.string().min(1).max(40).optional(),
-  earlyReason: z.string().max(500).optional(),
+  earlyReason: z.string().max(NOTE_MAX_CHARS).optional(),
 });
-const completeSchema = z.object({ overrideReason: z.string().max(500).optional() });
+const completeSchema = z.object({ overrideReason: z.string().max(NOTE_MAX_CHARS).optional() });
 
 /** The technologist's checklist: tick steps, complete the turnover. */
 export function turnoverRoutes(deps: { db: Knex; clock: Clock; events: DayEvents }): Router {

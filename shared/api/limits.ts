@@ -16,6 +16,12 @@ export const AIR_CHANGES_PER_HOUR = { min: 1, max: 60 } as const;
 /** Characters in a room's name (it labels a lane on the plan and a card on the board). */
 export const ROOM_NAME_MAX = 40;
 
+/**
+ * Characters in a reason or note a person types: why a step is ticked while wet, why an exam is
+ * finished before its slot, why a turnover closes early, a cleaning log correction.
+ */
+export const NOTE_MAX_CHARS = 500;
+
 /** Minutes above the required time within which a gap is `snug` rather than `fits`. */
 export const SNUG_MARGIN_MINUTES = { min: 0, max: 60 } as const;
 

@@ -6,14 +6,12 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 
+import { AIR_CHANGES_PER_HOUR, ROOM_NAME_MAX, TURNOVER_STAFF } from '@shared/api/limits';
 import { MODALITIES, type SetupRoom } from '@shared/api/rooms';
 import { action } from '../../core/state/action';
 import { CautionNote } from '../../shared/ui/caution-note';
 import { fieldMessage, submitForm } from './form-problems';
 import { SetupApi } from './setup-api';
-
-/** The staff limits of `roomInputSchema` (shared/api/rooms.ts): the API refuses the same. */
-const STAFF = { min: 1, max: 4 };
 
 /** Add or edit a room; the API's 422 problems appear under their fields. */
 @Component({
@@ -26,7 +24,7 @@ const STAFF = { min: 1, max: 4 };
       <mat-dialog-content class="fields">
         <mat-form-field>
           <mat-label>Name</mat-label>
-          <input matInput formControlName="name" required maxlength="40" cdkFocusInitial />
+          <input matInput formControlName="name" required [maxlength]="nameMax" cdkFocusInitial />
           <mat-hint>As the exam list names it, e.g. MR 2</mat-hint>
           <mat-error>{{ message('name') }}</mat-error>
         </mat-form-field>
@@ -42,7 +40,7 @@ const STAFF = { min: 1, max: 4 };
         </mat-form-field>
         <mat-form-field>
           <mat-label>Air changes per hour</mat-label>
-          <input matInput type="number" formControlName="airChangesPerHour" min="1" max="60" step="0.5" required />
+          <input matInput type="number" formControlName="airChangesPerHour" [min]="airChanges.min" [max]="airChanges.max" step="0.5" required />
           <mat-hint>As measured for the room; sets the air hold after airborne precautions</mat-hint>
           <mat-error>{{ message('airChangesPerHour') }}</mat-error>
         </mat-form-field>
@@ -84,14 +82,16 @@ export class RoomDialog {
   private readonly ref = inject(MatDialogRef<RoomDialog, SetupRoom>);
   protected readonly room = inject<SetupRoom | null>(MAT_DIALOG_DATA, { optional: true });
   protected readonly modalities = MODALITIES;
-  protected readonly staff = STAFF;
+  protected readonly staff = TURNOVER_STAFF;
+  protected readonly airChanges = AIR_CHANGES_PER_HOUR;
+  protected readonly nameMax = ROOM_NAME_MAX;
   protected readonly formError = signal<string | null>(null);
 
   protected readonly form = inject(NonNullableFormBuilder).group({
-    name: [this.room?.name ?? '', [Validators.required, Validators.maxLength(40)]],
+    name: [this.room?.name ?? '', [Validators.required, Validators.maxLength(ROOM_NAME_MAX)]],
     modality: [this.room?.modality ?? 'MR', Validators.required],
-    airChangesPerHour: [this.room?.airChangesPerHour ?? 12, [Validators.required, Validators.min(1), Validators.max(60)]],
-    staff: [this.room?.staff ?? 1, [Validators.required, Validators.min(STAFF.min), Validators.max(STAFF.max)]],
+    airChangesPerHour: [this.room?.airChangesPerHour ?? 12, [Validators.required, Validators.min(AIR_CHANGES_PER_HOUR.min), Validators.max(AIR_CHANGES_PER_HOUR.max)]],
+    staff: [this.room?.staff ?? 1, [Validators.required, Validators.min(TURNOVER_STAFF.min), Validators.max(TURNOVER_STAFF.max)]],
     opensAt: [this.room?.opensAt ?? '07:00', Validators.required],
     closesAt: [this.room?.closesAt ?? '19:00', Validators.required],
   });

@@ -4,6 +4,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 
+import { SNUG_MARGIN_MINUTES } from '@shared/api/limits';
 import type { SiteSettings } from '@shared/api/settings';
 import { action } from '../../core/state/action';
 import { fieldMessage, submitForm } from './form-problems';
@@ -34,7 +35,7 @@ import { SetupApi } from './setup-api';
       </mat-form-field>
       <mat-form-field>
         <mat-label>Snug margin (minutes)</mat-label>
-        <input matInput type="number" formControlName="snugMarginMinutes" min="0" max="60" step="1" required />
+        <input matInput type="number" formControlName="snugMarginMinutes" [min]="snugMargin.min" [max]="snugMargin.max" step="1" required />
         <mat-hint>A gap that fits with less than this to spare is marked snug</mat-hint>
         <mat-error>{{ message('snugMarginMinutes') }}</mat-error>
       </mat-form-field>
@@ -62,13 +63,14 @@ import { SetupApi } from './setup-api';
 export class SiteTab {
   private readonly api = inject(SetupApi);
   protected readonly zones = supportedZones();
+  protected readonly snugMargin = SNUG_MARGIN_MINUTES;
   protected readonly formError = signal<string | null>(null);
   protected readonly saved = signal(false);
   protected readonly loading = signal(true);
   protected readonly form = inject(NonNullableFormBuilder).group({
     siteName: ['', [Validators.required, Validators.maxLength(80)]],
     timezone: ['', Validators.required],
-    snugMarginMinutes: [3, [Validators.required, Validators.min(0), Validators.max(60)]],
+    snugMarginMinutes: [3, [Validators.required, Validators.min(SNUG_MARGIN_MINUTES.min), Validators.max(SNUG_MARGIN_MINUTES.max)]],
     noticesSender: ['', [Validators.email, Validators.maxLength(254)]],
   });
   protected readonly saving = action(() => {

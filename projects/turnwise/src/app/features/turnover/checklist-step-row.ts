@@ -5,6 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 
 import type { Checklist, ChecklistStep } from '@shared/api/board';
+import { NOTE_MAX_CHARS } from '@shared/api/limits';
 import { countdown, isAhead } from '../../shared/ui/countdown';
 import { SiteTime } from '../../shared/ui/site-time';
 import { notYetDone, wetSurfaces } from './step-readiness';
@@ -23,6 +24,7 @@ import type { StepTick } from './turnover-service';
   styleUrl: './checklist-step-row.scss',
 })
 export class ChecklistStepRow {
+  protected readonly noteMax = NOTE_MAX_CHARS;
   readonly step = input.required<ChecklistStep>();
   readonly steps = input.required<readonly ChecklistStep[]>();
   readonly products = input.required<Checklist['products']>();

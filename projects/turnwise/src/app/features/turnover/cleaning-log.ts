@@ -6,6 +6,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatTableModule } from '@angular/material/table';
 
 import type { LogEntry } from '@shared/api/board';
+import { NOTE_MAX_CHARS } from '@shared/api/limits';
 import { SiteSettingsService } from '../../core/site/site-settings-service';
 import { action } from '../../core/state/action';
 import { serverState } from '../../core/state/server-state';
@@ -30,6 +31,7 @@ const COLUMNS = ['at', 'room', 'step', 'product', 'who', 'earlyReason', 'links']
   styleUrl: './cleaning-log.scss',
 })
 export class CleaningLog {
+  protected readonly noteMax = NOTE_MAX_CHARS;
   private readonly log = inject(LogService);
   private readonly turnovers = inject(TurnoverService);
 

@@ -5,6 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 
 import type { Checklist } from '@shared/api/board';
+import { NOTE_MAX_CHARS } from '@shared/api/limits';
 import { countdown, isAhead } from '../../shared/ui/countdown';
 import { RoomStateChip } from '../../shared/ui/room-state-chip';
 import { SiteTime } from '../../shared/ui/site-time';
@@ -22,6 +23,7 @@ import { SiteTime } from '../../shared/ui/site-time';
   styleUrl: './turnover-close.scss',
 })
 export class TurnoverClose {
+  protected readonly noteMax = NOTE_MAX_CHARS;
   readonly checklist = input.required<Checklist>();
   /** Now on the server's clock, in ms, ticking. */
   readonly now = input.required<number>();

@@ -5,6 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 
 import type { Checklist } from '@shared/api/board';
+import { NOTE_MAX_CHARS } from '@shared/api/limits';
 import { PrecautionLabel } from '../../shared/ui/precaution-label';
 import { SiteTime } from '../../shared/ui/site-time';
 
@@ -58,7 +59,7 @@ import { SiteTime } from '../../shared/ui/site-time';
         </p>
         <mat-form-field class="reason" subscriptSizing="dynamic">
           <mat-label>Why record the end before the slot starts?</mat-label>
-          <input matInput required maxlength="300" [value]="reason()" (input)="typeReason($event)" />
+          <input matInput required [maxlength]="noteMax" [value]="reason()" (input)="typeReason($event)" />
         </mat-form-field>
       }
       <button mat-flat-button type="button" class="exam-finished" [disabled]="busy() || (reasonOpen() && !reason().trim())" (click)="finish()">
@@ -91,6 +92,7 @@ import { SiteTime } from '../../shared/ui/site-time';
   `,
 })
 export class TurnoverExams {
+  protected readonly noteMax = NOTE_MAX_CHARS;
   readonly checklist = input.required<Checklist>();
   readonly busy = input(false);
   /** Now on the server's clock, in ms, ticking. */
