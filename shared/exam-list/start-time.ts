@@ -54,7 +54,7 @@ function resolveLocal(hour: number, minute: number, site: { date: string; timezo
   const zone = IANAZone.create(site.timezone);
   // Luxon asks Intl for each offset (~15 µs); the shared per-hour lookup answers the same.
   // (Measured: the same checks through luxon's getPossibleOffsets and toISO made the 2,000-row
-  // import bench's dry run 1.5–3× slower, past its target, so the lookup stays.)
+  // import bench's dry run 1.5–3× slower, past its target, so the lookup stays; time.bench.ts.)
   const offsetAt = zone.isValid ? zonedOffset(site.timezone) : (ms: number) => zone.offset(ms);
   const [year, month, day] = site.date.split('-').map(Number);
   // Wall-clock time written as if it were UTC; each candidate offset turns it into an instant.

@@ -3,13 +3,14 @@ import { benchEngine } from './engine.bench';
 import { benchFixes } from './fixes.bench';
 import { benchImport } from './import.bench';
 import { benchPlan } from './plan.bench';
+import { benchTime } from './time.bench';
 import { benchTimeline } from './timeline.bench';
 
 /** `npm run bench`: prints the figures; nothing here is asserted. */
 async function main(): Promise<void> {
   console.log(`Turnwise benchmarks — Node ${process.version}, ${new Date().toISOString()}`);
   // The bundle bench goes first: it rebuilds a stale client, which the timeline bench then drives.
-  for (const bench of [benchBundle, benchEngine, benchFixes, benchImport, benchPlan, benchTimeline]) {
+  for (const bench of [benchBundle, benchEngine, benchTime, benchFixes, benchImport, benchPlan, benchTimeline]) {
     for (const line of await bench()) console.log(line);
   }
 }
