@@ -59,7 +59,7 @@ import { SiteTime } from '../../shared/ui/site-time';
         </p>
         <mat-form-field class="reason" subscriptSizing="dynamic">
           <mat-label>Why record the end before the slot starts?</mat-label>
-          <input matInput required [maxlength]="noteMax" [value]="reason()" (input)="typeReason($event)" />
+          <input matInput required [attr.maxlength]="noteMax" [value]="reason()" (input)="typeReason($event)" />
         </mat-form-field>
       }
       <button mat-flat-button type="button" class="exam-finished" [disabled]="busy() || (reasonOpen() && !reason().trim())" (click)="finish()">
