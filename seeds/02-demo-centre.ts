@@ -3,10 +3,12 @@ import { hashPassword } from '../server/services/passwords';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './support/demo-accounts';
 import { seedDemoDay } from './support/demo-day';
 import { seedDemoHistory } from './support/demo-history';
+import { seedDemoRules } from './support/demo-rules';
 import { seedShiftTasks } from './support/demo-shift-tasks';
 
 /**
- * An invented outpatient centre: three MR rooms and one CT room, a user for every role, and a
+ * An invented outpatient centre: three MR rooms and one CT room, a user for every role, its
+ * products and protocols (stored as data, as a real site's would be), and a
  * day list for the current day (so the demo always shows today), and each room's default shift
  * tasks. Idempotent: what exists stays.
  */
@@ -44,6 +46,7 @@ export async function seed(knex: Knex, now: Date = new Date(), options: { day?: 
   for (const room of DEMO_ROOMS) {
     await knex('rooms').insert({ ...room, created_at: created }).onConflict('name').ignore();
   }
+  await seedDemoRules(knex, now);
   await seedShiftTasks(knex, now);
   if (options.day ?? true) await seedDemoDay(knex, now);
   if (options.history) await seedDemoHistory(knex, now);

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import { DateTime } from 'luxon';
 import { planTurnover, protocolFor, type Mobility, type Precaution, type TurnoverExam } from '../../shared/turnover';
+import { DEFAULT_PRODUCTS, DEFAULT_PROTOCOLS } from '../../shared/turnover/demo-protocols';
 import { readSettings } from '../../server/services/settings';
 
 /** How the demo wants the gap before an exam to come out. */
@@ -112,7 +113,9 @@ export async function seedDemoDay(knex: Knex, now: Date): Promise<void> {
     for (const [intent, minutes, procedure, coil, precaution, mobility, contrast, notes] of plan.slots) {
       const exam = { coil: coil || null, precaution, mobility, contrast, minutes };
       if (previous) {
-        const required = planTurnover({ leaving: previous, arriving: exam, room: turnoverRoom, protocol: protocolFor(room.modality) }).requiredMinutes;
+        // the demo's own protocols (the same values the demo seed stores as data)
+        const protocol = protocolFor(room.modality, DEFAULT_PROTOCOLS)!;
+        const required = planTurnover({ leaving: previous, arriving: exam, room: turnoverRoom, protocol, products: DEFAULT_PRODUCTS }).requiredMinutes;
         start = start.plus({ minutes: previous.minutes + spacing(intent, required, snugMarginMinutes) });
         // a comfortable slot lands on the booking grid of 5 minutes, as a scheduler would book it
         if (intent === 'fits') start = start.plus({ minutes: (5 - (start.minute % 5)) % 5 });

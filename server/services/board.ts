@@ -6,7 +6,7 @@ import { toBoardSlot } from './checklist';
 import { lastFinishedIndex, loadRoomDays, type RoomDay } from './room-day';
 import { readSettings } from './settings';
 import { shiftTasksOfDay } from './shift-tasks';
-import { planRoomTurnover } from './turnover-plan';
+import { planRoomTurnoverOrNone as planRoomTurnover } from './turnover-plan';
 import { turnoverProgress } from './turnover-progress';
 
 const MINUTE = 60_000;

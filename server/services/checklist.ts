@@ -4,7 +4,9 @@ import { zonedFormatter } from '../../shared/turnover';
 import { NotFoundError } from '../errors';
 import { lastFinishedIndex, loadRoomDays, type ExamSlot, type RoomDay, type TurnoverRecord } from './room-day';
 import { shiftTasksOfDay } from './shift-tasks';
-import { cleanTypeOf, planRoomTurnover, PRODUCTS } from './turnover-plan';
+import { activeProducts, cleanTypeOf, planRoomTurnover, protocolOfTurnover } from './turnover-plan';
+import { NO_PROTOCOL_MESSAGE } from '../../shared/api/protocols';
+import { Refusal } from '../errors';
 import { replanFromNow, turnoverProgress } from './turnover-progress';
 
 const MINUTE = 60_000;
@@ -77,7 +79,12 @@ export async function loadChecklist(db: Knex, roomId: number, day: string, now: 
   }
   const tasks = (await shiftTasksOfDay(db, [roomId], day, roomDay.zone, now)).get(roomId)!;
   const { room, slots } = roomDay;
-  const base = { roomId, roomName: room.name, modality: room.modality, date: day, now: format(nowMs), products: [...PRODUCTS], tasks };
+  // A room without a protocol has no checklist to show (409 no_protocol), never invented steps.
+  const protocol = protocolOfTurnover(roomDay, focus?.leavingIndex ?? -1);
+  if (!protocol) throw new Refusal('no_protocol', NO_PROTOCOL_MESSAGE(room.modality), { modality: room.modality });
+  const protocolRef = protocol.id ? { id: protocol.id, modality: protocol.modality, version: protocol.version!, effectiveFrom: protocol.effectiveFrom! } : null;
+  const products = activeProducts(roomDay.setup).map(({ key, name, contactMinutes }) => ({ key, name, contactMinutes }));
+  const base = { roomId, roomName: room.name, modality: room.modality, date: day, now: format(nowMs), products, tasks, protocol: protocolRef };
   if (!focus) {
     return { ...base, turnoverId: null, leaving: null, arriving: null, examEndedAt: null, cleanType: 'routine', precaution: 'none', staff: room.staff, airHoldMinutes: 0, airHoldUntil: null, airHoldPlannedUntil: null, airHoldPastNextStartMinutes: 0, steps: [], readyAt: null, completedAt: null };
   }
@@ -98,6 +105,7 @@ export async function loadChecklist(db: Knex, roomId: number, day: string, now: 
       contactMinutes: s.contactMinutes,
       needsDry: s.needs.filter((n) => n.dry).map((n) => n.key),
       productKey: s.productKey,
+      applications: s.applications,
       planned: { start: format(s.startMs), end: format(s.endMs), dryAt: format(s.dryAtMs), person: s.person },
       done: tick ? { at: tick.doneAt, by: tick.by, productKey: tick.productKey, earlyReason: tick.earlyReason } : null,
       wetUntil: tick ? format(progress!.wetUntilMs.get(s.key)!) : null,

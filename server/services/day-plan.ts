@@ -7,6 +7,7 @@ import { examsOfDay, toPlanExam } from './exams';
 import { cachedPlan, type CachedPlan } from './plan-cache';
 import { listRooms } from './rooms';
 import { readSettings } from './settings';
+import { setupForDay, setupSnapshot, type SetupSnapshot } from './site-setup';
 
 /** The day's plan from what is stored (rooms, settings, the day list and staffing), with that input. */
 export async function loadDayPlan(db: Knex, day: string): Promise<PlannedDay> {
@@ -39,14 +40,15 @@ export async function loadCachedDayPlan(db: Knex, day: string): Promise<CachedPl
 
 /** What a day's plan is computed from, as stored. */
 export async function loadDayPlanInput(db: Knex, day: string): Promise<DayPlanInput> {
-  const [settings, rooms, exams, staffing] = await Promise.all([
+  const [settings, rooms, exams, staffing, setup] = await Promise.all([
     readSettings(db),
     listRooms(db),
     examsOfDay(db, day),
     db('gap_staffing').join('exams', 'exams.id', 'gap_staffing.to_exam_id').where('exams.day', day).select('to_exam_id', 'staff'),
+    setupSnapshot(db),
   ]);
   const staffOverrides = Object.fromEntries(staffing.map((s: { to_exam_id: number; staff: number }) => [s.to_exam_id, s.staff]));
-  return dayPlanInput(day, settings, rooms, exams.map(toPlanExam), staffOverrides);
+  return dayPlanInput(day, settings, rooms, exams.map(toPlanExam), staffOverrides, setup);
 }
 
 /**
@@ -58,8 +60,9 @@ export function summaryFor(
   settings: { timezone: string; snugMarginMinutes: number },
   rooms: Room[],
   exams: DayPlanExam[],
+  setup: SetupSnapshot,
 ): PlanSummary {
-  return computeDaySummary(dayPlanInput(day, settings, rooms, exams, {}));
+  return computeDaySummary(dayPlanInput(day, settings, rooms, exams, {}, setup));
 }
 
 function dayPlanInput(
@@ -68,12 +71,15 @@ function dayPlanInput(
   rooms: Room[],
   exams: DayPlanExam[],
   staffOverrides: Record<number, number>,
+  setup: SetupSnapshot,
 ): DayPlanInput {
   const roomIds = new Set(rooms.map((r) => r.id));
   return {
     date: day,
     timezone: settings.timezone,
     snugMarginMinutes: settings.snugMarginMinutes,
+    // the site's own products and the protocol versions in force on the day: never a default
+    ...setupForDay(setup, day),
     rooms,
     // an exam in a room that was since retired stays stored but leaves the plan
     exams: exams.filter((e) => roomIds.has(e.roomId)),

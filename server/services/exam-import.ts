@@ -7,6 +7,7 @@ import type { WorkerPool } from '../workers/pool';
 import { examColumns, examsOfDay, toListed } from './exams';
 import type { UploadedExamFile } from './exam-file';
 import { summaryFor } from './day-plan';
+import { setupSnapshot } from './site-setup';
 import { dayVersion } from './day-version';
 import { listRooms } from './rooms';
 import { readSettings } from './settings';
@@ -63,7 +64,7 @@ export async function importExamList(db: Knex, workers: WorkerPool, req: ImportR
     parsed.rows,
   );
   const wouldBe = parsed.rows.map((row, i) => wouldBeExam(row, -(i + 1), roomIdByName.get(row.room)!));
-  const summary = summaryFor(req.day, settings, rooms, wouldBe);
+  const summary = summaryFor(req.day, settings, rooms, wouldBe, await setupSnapshot(db));
   const result: ImportResult = {
     dryRun: req.dryRun,
     date: req.day,

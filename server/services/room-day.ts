@@ -5,6 +5,7 @@ import { DEFAULT_CLOSES_AT, DEFAULT_OPENS_AT, wallTimeToMillis, type DayPlanExam
 import { examsOfDay, toPlanExam } from './exams';
 import { listRooms } from './rooms';
 import { readSettings } from './settings';
+import { setupSnapshot, type SetupSnapshot } from './site-setup';
 import { cleanTypeOf } from './turnover-plan';
 
 const MINUTE = 60_000;
@@ -41,6 +42,8 @@ export interface TurnoverRecord {
   completedAt: string | null;
   completedMs: number | null;
   overrideReason: string | null;
+  /** The protocol version its turnover was planned with when the exam's end was recorded. */
+  protocolVersionId: number | null;
   ticks: Map<string, StepTick>;
 }
 
@@ -57,11 +60,13 @@ export interface RoomDay {
   turnovers: Map<number, TurnoverRecord>;
   /** People on the turnover before an exam, when not the room's. */
   staffOverrides: Map<number, number>;
+  /** The site's products and protocol versions (the day's version is chosen from them). */
+  setup: SetupSnapshot;
 }
 
 /** Loads the given rooms' day (every active room when `roomIds` is omitted). */
 export async function loadRoomDays(db: Knex, day: string, roomIds?: number[]): Promise<RoomDay[]> {
-  const [{ timezone: zone }, allRooms, examRows] = await Promise.all([readSettings(db), listRooms(db), examsOfDay(db, day)]);
+  const [{ timezone: zone }, allRooms, examRows, setup] = await Promise.all([readSettings(db), listRooms(db), examsOfDay(db, day), setupSnapshot(db)]);
   const rooms = roomIds ? allRooms.filter((r) => roomIds.includes(r.id)) : allRooms;
   const examIds = examRows.map((e) => e.id);
   const [arrivals, staffing, turnoverRows, tickRows] = await Promise.all([
@@ -102,7 +107,7 @@ export async function loadRoomDays(db: Knex, day: string, roomIds?: number[]): P
       .sort((a, b) => a.startMs - b.startMs || a.exam.id - b.exam.id);
     const roomTurnovers = new Map([...turnovers].filter(([, t]) => t.roomId === room.id));
     liveCleanTypes(roomTurnovers, slots);
-    return { day, zone, room, openMs, closeMs, slots, turnovers: roomTurnovers, staffOverrides };
+    return { day, zone, room, openMs, closeMs, slots, turnovers: roomTurnovers, staffOverrides, setup };
   });
 }
 
@@ -138,6 +143,7 @@ function toRecord(row: Record<string, unknown>): TurnoverRecord {
     completedAt: (row['completed_at'] as string | null) ?? null,
     completedMs: row['completed_ms'] == null ? null : Number(row['completed_ms']),
     overrideReason: (row['override_reason'] as string | null) ?? null,
+    protocolVersionId: (row['protocol_version_id'] as number | null) ?? null,
     ticks: new Map(),
   };
 }

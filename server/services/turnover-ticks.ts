@@ -3,7 +3,7 @@ import { DateTime } from 'luxon';
 import { NotFoundError, Refusal, ValidationError } from '../errors';
 import { appendLog } from './cleaning-log';
 import { assertOpen, loadTurnover, localIso, turnoverLogFields, type TurnoverRef } from './turnovers';
-import { planRoomTurnover, productOf, PRODUCTS } from './turnover-plan';
+import { activeProducts, planRoomTurnover, productOf } from './turnover-plan';
 import type { UserRecord } from './users';
 
 const MINUTE = 60_000;
@@ -58,12 +58,13 @@ export async function tickStep(db: Knex, turnoverId: number, key: string, input:
   let productKey = step.productKey;
   if (input.productKey !== undefined) {
     if (step.productKey === null) throw new ValidationError(`"${step.label}" uses no product.`, { problems: [{ field: 'productKey', message: 'this step disinfects nothing' }] });
-    if (!productOf(input.productKey)) {
-      throw new ValidationError(`Unknown product "${input.productKey}"; use one of ${PRODUCTS.map((p) => p.key).join(', ')}.`, { problems: [{ field: 'productKey', message: 'unknown product' }] });
+    const choices = activeProducts(roomDay.setup);
+    if (!choices.some((p) => p.key === input.productKey)) {
+      throw new ValidationError(`Unknown product "${input.productKey}"; use one of ${choices.map((p) => `${p.key} (${p.name})`).join(', ')}.`, { problems: [{ field: 'productKey', message: 'unknown product' }] });
     }
     productKey = input.productKey;
   }
-  const product = productOf(productKey);
+  const product = productOf(roomDay.setup, productKey);
   // a reason is only part of the record when something was in fact still wet
   const reason = wet.length > 0 ? earlyReason : null;
   const at = localIso(now, zone);

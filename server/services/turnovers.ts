@@ -5,6 +5,7 @@ import { appendLog, type NewLogEntry } from './cleaning-log';
 import { loadRoomDays, type RoomDay, type TurnoverRecord } from './room-day';
 import { readSettings } from './settings';
 import { cleanTypeOf } from './turnover-plan';
+import { setupSnapshot, versionFor } from './site-setup';
 import type { UserRecord } from './users';
 
 /** Where a turnover lives, for the caller to answer with its checklist and announce the change. */
@@ -28,9 +29,9 @@ export function localIso(now: Date, zone: string): string {
  * cleaning log, for a patient not yet scanned. The reason goes into the log entry.
  */
 export async function finishExam(db: Knex, examId: number, user: UserRecord, now: Date, earlyReason?: string): Promise<TurnoverRef> {
-  const { timezone: zone } = await readSettings(db);
+  const [{ timezone: zone }, setup] = await Promise.all([readSettings(db), setupSnapshot(db)]);
   return db.transaction(async (trx) => {
-    const exam = await trx('exams as e').join('rooms as r', 'r.id', 'e.room_id').where('e.id', examId).first('e.*', 'r.name as room_name');
+    const exam = await trx('exams as e').join('rooms as r', 'r.id', 'e.room_id').where('e.id', examId).first('e.*', 'r.name as room_name', 'r.modality as room_modality');
     if (!exam) throw new NotFoundError(`No exam ${examId}.`);
     const recorded = await trx('turnovers').where({ from_exam_id: examId }).first();
     if (recorded) {
@@ -60,6 +61,8 @@ export async function finishExam(db: Knex, examId: number, user: UserRecord, now
       exam_ended_at: at,
       exam_ended_ms: now.getTime(),
       ended_by: user.id,
+      // the turnover keeps the protocol version it is planned with, even if a new one starts today
+      protocol_version_id: (versionFor(setup, exam.room_modality, exam.day) ?? versionFor(setup, '*', exam.day))?.id ?? null,
     });
     await appendLog(
       trx,

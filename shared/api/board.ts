@@ -80,6 +80,11 @@ export interface ChecklistStep {
   needsDry: string[];
   /** Default product key for disinfecting steps, null otherwise. */
   productKey: string | null;
+  /**
+   * Applications of the product: more than 1 when one application dries before the label's
+   * contact time (re-wet rule: ⌈contact ÷ stays-wet⌉; the hands-on time counts each).
+   */
+  applications?: number;
   planned: { start: string; end: string; dryAt: string; person: number };
   done: { at: string; by: string; productKey: string | null; earlyReason: string | null } | null;
   /** Until when the surface stays wet (tick time + wait), once done. */
@@ -118,6 +123,8 @@ export interface Checklist {
   completedAt: string | null;
   products: { key: string; name: string; contactMinutes: number }[];
   tasks: BoardShiftTask[];
+  /** The protocol version the turnover follows (the one recorded at "exam finished", else the day's). */
+  protocol?: { id: number; modality: string; version: number; effectiveFrom: string } | null;
 }
 
 /** One entry of the append-only cleaning log. */

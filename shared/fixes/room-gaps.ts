@@ -19,7 +19,10 @@ export interface JudgedGap {
   staff: number;
 }
 
-/** One room's exams in plan order and the gap before each (`gaps[i]` is the gap before `slots[i]`). */
+/**
+ * One room's exams in plan order and the gap before each (`gaps[i]` is the gap before `slots[i]`);
+ * no gaps at all for a room whose modality has no protocol.
+ */
 export interface JudgedRoom {
   room: DayPlanRoom;
   opensMs: number;
@@ -63,6 +66,8 @@ export function judgeRoom(judge: RoomJudge, room: DayPlanRoom, exams: readonly D
   }
   slots.sort((a, b) => a.startMs - b.startMs || a.exam.id - b.exam.id);
   const protocol = protocolFor(room.modality, input.protocols);
+  // A room without a protocol has no verdicts (as in the day plan): no gaps to judge or fix.
+  if (!protocol) return { room, opensMs, slots, gaps: [], endsMs: slots.reduce((end, s) => Math.max(end, s.endMs), opensMs) };
   const cache = judge.turnovers(protocol);
   const snugMarginMinutes = input.snugMarginMinutes ?? DEFAULT_SNUG_MARGIN_MINUTES;
   const overrides = input.staffOverrides;

@@ -1,6 +1,7 @@
 import type { DayPlan, PlanGap } from '../api/plan';
 import { computeDayPlan } from '../turnover/day-plan';
 import type { DayPlanInput } from '../turnover/day-plan-input';
+import { DEMO_SETUP } from '../turnover/demo-protocols';
 import { withChanges } from './apply-changes';
 import { MAX_FIX_CHANGES_PER_CALL, MAX_FIX_GAPS_PER_CALL, type Fix } from './model';
 import { suggestFixes, suggestGapFixes } from './suggest';
@@ -87,6 +88,7 @@ describe('suggestFixes', () => {
     const input: DayPlanInput = {
       date: '2027-03-15',
       timezone: 'America/Chicago',
+      ...DEMO_SETUP,
       rooms: [{ id: 1, name: 'MR 1', modality: 'MR', staff: 1, airChangesPerHour: 6, opensAt: '00:00' }],
       exams: Array.from({ length: 400 }, (_, i) => ({
         id: i + 1, accession: `CRW-${i + 1}`, roomId: 1, start: new Date(Date.UTC(2027, 2, 15, 6, 2 * i)).toISOString().replace('.000Z', 'Z'),
@@ -152,6 +154,7 @@ describe('suggestGapFixes', () => {
     const input: DayPlanInput = {
       date: '2027-03-15',
       timezone: 'America/Chicago',
+      ...DEMO_SETUP,
       rooms: [{ id: 1, name: 'MR 1', modality: 'MR', staff: 1, airChangesPerHour: 6 }],
       exams: [exam(1, '08:00'), exam(2, '08:40'), exam(3, '09:15')],
     };

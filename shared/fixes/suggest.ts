@@ -228,6 +228,8 @@ function turnoverAfterLast(day: FixDay, room: JudgedRoom, leaving: DayPlanSlot, 
   if (last.endMs > last.startMs) {
     // it then starts after every other exam, so the last exam is the one it follows
     const protocol = protocolFor(room.room.modality, input.protocols);
+    // only a room with a protocol has problem gaps to fix
+    if (!protocol) throw new Error(`room ${room.room.id} has no protocol`);
     const staff = input.staffOverrides?.[leaving.exam.id] ?? room.room.staff;
     return turnoverFor(day.turnovers(protocol), { input, room: room.room, protocol, leaving: last.exam, arriving: leaving.exam, staff }).requiredMinutes;
   }

@@ -37,10 +37,14 @@ export interface DayPlanInput {
   timezone: string;
   /** Default 3. */
   snugMarginMinutes?: number;
-  /** Default the demo products. */
-  products?: readonly Product[];
-  /** By DICOM modality code, `*` as fallback; default the demo protocols. */
-  protocols?: Readonly<Record<string, Protocol>>;
+  /** The site's products (disinfectants). */
+  products: readonly Product[];
+  /**
+   * The site's protocols in force on `date`, by DICOM modality code, `*` as fallback. A room
+   * whose modality has neither gets no numbers (its plan says so).
+   */
+  protocols: Readonly<Record<string, Protocol>>;
+  /** Rules for protocols that carry none of their own (a site's protocols carry theirs). */
   rules?: TurnoverRules;
   rooms: readonly DayPlanRoom[];
   exams: readonly DayPlanExam[];

@@ -1,5 +1,6 @@
 import { computeDayPlan, computeDaySummary } from './day-plan';
 import type { DayPlanExam, DayPlanInput, DayPlanRoom } from './day-plan-input';
+import { DEMO_SETUP } from './demo-protocols';
 
 // The expected minutes come from the engine's own MR protocol (20 min between two plain exams,
 // as day-plan.spec.ts shows): the project's model, not a published value.
@@ -15,7 +16,7 @@ function slot(start: string, overrides: Partial<DayPlanExam> = {}): DayPlanExam 
   };
 }
 const day = (exams: DayPlanExam[], extra: Partial<DayPlanInput> = {}): DayPlanInput => ({
-  date: '2027-05-03', timezone: 'America/Chicago', rooms: [MR1, CT1], exams, ...extra,
+  date: '2027-05-03', timezone: 'America/Chicago', ...DEMO_SETUP, rooms: [MR1, CT1], exams, ...extra,
 });
 
 describe('computeDaySummary', () => {

@@ -54,15 +54,28 @@ export interface PlanExam {
   outsideHours: boolean;
 }
 
+/** The protocol a room's turnovers were planned with (version and id null for an unstored one). */
+export interface PlanProtocol {
+  id: number | null;
+  modality: string;
+  version: number | null;
+  effectiveFrom: string | null;
+}
+
 export interface PlanRoom {
   id: number;
   name: string;
   modality: string;
   staff: number;
+  /** null: the modality has no protocol (nor a `*` fallback): no gaps, no verdicts, see `message`. */
+  protocol: PlanProtocol | null;
+  /** Why the room has no numbers (e.g. "No protocol for CT: set one up in Setup"); null otherwise. */
+  message: string | null;
   /** The room's opening and closing on this date. */
   opensAt: string;
   closesAt: string;
   exams: PlanExam[];
+  /** Empty for a room without a protocol. */
   gaps: PlanGap[];
 }
 

@@ -1,6 +1,6 @@
 import { computeDayPlan } from './day-plan';
 import type { DayPlanExam, DayPlanInput, DayPlanRoom } from './day-plan-input';
-import { GENERIC_PROTOCOL, MR_PROTOCOL } from './protocols';
+import { DEMO_SETUP, GENERIC_PROTOCOL, MR_PROTOCOL } from './demo-protocols';
 
 const MR1: DayPlanRoom = { id: 1, name: 'MR 1', modality: 'MR', staff: 1, airChangesPerHour: 6 };
 let nextId = 100;
@@ -13,7 +13,7 @@ function slot(start: string, overrides: Partial<DayPlanExam> = {}): DayPlanExam 
   };
 }
 const day = (exams: DayPlanExam[], extra: Partial<DayPlanInput> = {}): DayPlanInput => ({
-  date: '2027-05-03', timezone: 'America/Chicago', rooms: [MR1], exams, ...extra,
+  date: '2027-05-03', timezone: 'America/Chicago', ...DEMO_SETUP, rooms: [MR1], exams, ...extra,
 });
 
 describe('computeDayPlan', () => {
@@ -77,6 +77,25 @@ describe('computeDayPlan', () => {
     expect(plan.rooms[0].gaps[1]).toMatchObject({ requiredMinutes: 10, verdict: 'snug' });
     const quick = computeDayPlan(day([a, b], { rooms: [us], products: [{ key: 'standard', name: 'Quick wipe', contactMinutes: 1 }] }));
     expect(quick.rooms[0].gaps[1].requiredMinutes).toBe(9);
+  });
+
+  it('returns a room whose modality has no protocol (nor a `*` fallback) with no gaps, no verdicts and the reason', () => {
+    const ct: DayPlanRoom = { id: 2, name: 'CT 1', modality: 'CT', staff: 1, airChangesPerHour: 12 };
+    const a = slot('2027-05-03T08:00:00-05:00');
+    const b = slot('2027-05-03T08:50:00-05:00');
+    const c = slot('2027-05-03T08:00:00-05:00', { roomId: 2 });
+    const d = slot('2027-05-03T08:05:00-05:00', { roomId: 2 }); // would overlap, but there is nothing to judge it by
+    const plan = computeDayPlan(day([a, b, c, d], { rooms: [MR1, ct], protocols: { MR: MR_PROTOCOL } }));
+    expect(plan.rooms[1]).toMatchObject({ protocol: null, message: 'No protocol for CT: set one up in Setup', gaps: [] });
+    expect(plan.rooms[1]!.exams).toHaveLength(2);
+    expect(plan.rooms[0]).toMatchObject({ protocol: { modality: 'MR', version: null }, message: null });
+    expect(plan.summary).toEqual(computeDayPlan(day([a, b])).summary); // only MR 1's two gaps are counted
+  });
+
+  it('names the stored protocol version each room was planned with', () => {
+    const stored = { ...MR_PROTOCOL, id: 7, version: 3, effectiveFrom: '2027-04-01' };
+    const plan = computeDayPlan(day([slot('2027-05-03T08:00:00-05:00')], { protocols: { MR: stored } }));
+    expect(plan.rooms[0]!.protocol).toEqual({ id: 7, modality: 'MR', version: 3, effectiveFrom: '2027-04-01' });
   });
 
   describe('edge cases', () => {

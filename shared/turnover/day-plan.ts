@@ -4,6 +4,7 @@ import { DEFAULT_CLOSES_AT, DEFAULT_OPENS_AT, type DayPlanInput, type DayPlanRoo
 import type { Protocol } from './model';
 import { turnoverCaches, turnoverFor, type TurnoverCache } from './day-plan-cache';
 import { toPlanExam, toPlanGap, type DayPlanSlot } from './day-plan-output';
+import { NO_PROTOCOL_MESSAGE } from './no-protocol';
 import { protocolFor } from './protocols';
 import { DEFAULT_SNUG_MARGIN_MINUTES, gapVerdict } from './verdict';
 import { instantOf, wallTimeToMillis, zonedFormatter, type ZonedFormatter } from './zoned-time';
@@ -103,13 +104,14 @@ function planRoom(room: DayPlanRoom, slots: DayPlanSlot[], ctx: RoomContext): Pl
 
   slots.sort((a, b) => a.startMs - b.startMs || a.exam.id - b.exam.id);
   const protocol = protocolFor(room.modality, input.protocols);
-  const cache = ctx.turnovers(protocol);
+  const cache = protocol ? ctx.turnovers(protocol) : null;
   const snugMarginMinutes = input.snugMarginMinutes ?? DEFAULT_SNUG_MARGIN_MINUTES;
   const gaps: PlanGap[] = [];
   let previous: DayPlanSlot | null = null;
-  for (const slot of slots) {
+  // Without a protocol there is nothing to compute from: no gaps, no verdicts, not counted.
+  for (const slot of protocol && cache ? slots : []) {
     const staff = ctx.staffOverrides?.[slot.exam.id] ?? room.staff;
-    const turnover = turnoverFor(cache, { input, room, protocol, leaving: previous?.exam ?? null, arriving: slot.exam, staff });
+    const turnover = turnoverFor(cache!, { input, room, protocol: protocol!, leaving: previous?.exam ?? null, arriving: slot.exam, staff });
     const fromMs = previous ? previous.endMs : openMs;
     const availableMinutes = Math.floor((slot.startMs - fromMs) / MINUTE);
     const judged = gapVerdict({ availableMinutes, requiredMinutes: turnover.requiredMinutes, snugMarginMinutes });
@@ -124,6 +126,10 @@ function planRoom(room: DayPlanRoom, slots: DayPlanSlot[], ctx: RoomContext): Pl
     name: room.name,
     modality: room.modality,
     staff: room.staff,
+    protocol: protocol
+      ? { id: protocol.id ?? null, modality: protocol.modality, version: protocol.version ?? null, effectiveFrom: protocol.effectiveFrom ?? null }
+      : null,
+    message: protocol ? null : NO_PROTOCOL_MESSAGE(room.modality),
     opensAt: format(openMs),
     closesAt: format(closeMs),
     exams: slots.map((slot) => toPlanExam(slot, format, slot.startMs < openMs || slot.endMs > closeMs)),

@@ -1,7 +1,7 @@
 /** The turnover engine: shared by the server (day plans) and the client (live previews). */
 export * from './model';
 export * from './protocols';
-export * from './rules';
+export * from './no-protocol';
 export * from './step-set';
 export * from './solver';
 export * from './air-hold';
@@ -10,4 +10,4 @@ export * from './plan-turnover';
 export * from './day-plan-input';
 export * from './day-plan';
 export * from './zoned-time';
-export type { DayPlan, PlanExam, PlanGap, PlanRoom, PlanStep, PlanSummary } from './day-plan-types';
+export type { DayPlan, PlanExam, PlanGap, PlanProtocol, PlanRoom, PlanStep, PlanSummary } from './day-plan-types';

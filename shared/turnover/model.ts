@@ -20,6 +20,23 @@ export interface Product {
   key: string;
   name: string;
   contactMinutes: number;
+  /**
+   * How long one application stays wet on a surface (label or a site's test). When it dries
+   * before the contact time, the step is re-wetted: see {@link applicationsOf}.
+   */
+  staysWetMinutes?: number | null;
+}
+
+/** When a step is part of a turnover at all; every condition given must hold. */
+export interface StepCondition {
+  /** The arriving exam has contrast. */
+  contrast?: boolean;
+  /** The coil changes between the leaving and arriving exam. */
+  coilChange?: boolean;
+  /** The leaving patient moved in one of these ways. */
+  mobility?: readonly Mobility[];
+  /** The leaving exam was under one of these precautions. */
+  precaution?: readonly Precaution[];
 }
 
 /** One need of a step: the other step done, or done and dry. */
@@ -41,6 +58,10 @@ export interface ProtocolStep {
   onlyWithContrast?: boolean;
   /** Needs every other step's hands-on done (e.g. gloves off and hand hygiene). */
   afterAllOthers?: boolean;
+  /** Only part of the turnover when these hold (the opening has no leaving exam: no coil change, mobility or precaution). */
+  onlyWhen?: StepCondition;
+  /** This step's product (a disinfecting step); else the precaution's, else the rules' default. */
+  productKey?: string | null;
 }
 
 /** A modality's protocol: the steps between two patients and the steps that open the day. */
@@ -48,6 +69,13 @@ export interface Protocol {
   modality: string;
   steps: ProtocolStep[];
   openingSteps: ProtocolStep[];
+  /** This protocol's precaution, mobility and coil-change rules (each modality may differ). */
+  rules?: TurnoverRules;
+  /** The stored version it is (a site's protocols are versioned); absent for fixtures. */
+  id?: number;
+  version?: number;
+  /** `YYYY-MM-DD`: the first day this version applies. */
+  effectiveFrom?: string;
 }
 
 /** What the engine needs to know about a room. */
@@ -85,7 +113,8 @@ export interface PrecautionRule {
 
 /** The rules that turn a protocol into a gap's steps; data, so a site can change them. */
 export interface TurnoverRules {
-  defaultProductKey: string;
+  /** Product of disinfecting steps that name none; null: every disinfecting step names its own. */
+  defaultProductKey: string | null;
   precaution: Record<Precaution, PrecautionRule>;
   mobility: Record<Mobility, StepAdjustment[]>;
   /** Applied when the leaving and arriving coils differ. */
@@ -101,6 +130,8 @@ export interface TurnoverStep {
   waitMinutes: number;
   needs: StepNeed[];
   productKey: string | null;
+  /** Applications of the product when one dries before its contact time (hands-on is multiplied); absent: 1. */
+  applications?: number;
 }
 
 /** The steps of one gap with who does them and how long the air must clear. */

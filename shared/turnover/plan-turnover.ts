@@ -8,7 +8,7 @@ export interface PlanTurnoverOptions {
   arriving: TurnoverExam;
   room: TurnoverRoom;
   protocol: Protocol;
-  products?: readonly Product[];
+  products: readonly Product[];
   rules?: TurnoverRules;
   /** People on this turnover; default the room's staff. */
   staff?: number;
@@ -23,7 +23,7 @@ export interface PlanTurnoverOptions {
  * @throws what {@link buildStepSet} and {@link solveTurnover} throw on invalid input
  * @example
  * planTurnover({ leaving: a, arriving: b, room: { staff: 1, airChangesPerHour: 6, modality: 'MR' },
- *   protocol: MR_PROTOCOL }).requiredMinutes; // 20 when neither exam is special
+ *   protocol: MR_PROTOCOL, products }).requiredMinutes; // 20 when neither exam is special
  */
 export function planTurnover(options: PlanTurnoverOptions): TurnoverPlan {
   const set = options.leaving

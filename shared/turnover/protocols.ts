@@ -1,120 +1,30 @@
-import type { Product, Protocol, ProtocolStep, StepNeed } from './model';
-
-/*
- * Demo defaults, invented; each site sets its own from its product labels and policy.
- * The minutes below are planning aids, not instructions: the disinfectant's label contact time
- * and the facility's infection-prevention policy rule.
- */
-
-/** Demo products: a standard surface wipe and a sporicidal wipe (contact times invented). */
-export const DEFAULT_PRODUCTS: readonly Product[] = [
-  { key: 'standard', name: 'Standard surface wipe', contactMinutes: 2 },
-  { key: 'sporicidal', name: 'Sporicidal wipe', contactMinutes: 4 },
-];
-
-const afterClear: StepNeed[] = [{ key: 'clear', dry: false }];
-
-function step(
-  key: string,
-  label: string,
-  handsOnMinutes: number,
-  needs: StepNeed[],
-  extra: Partial<ProtocolStep> = {},
-): ProtocolStep {
-  return { key, label, handsOnMinutes, dryMinutes: 0, disinfects: false, needs, ...extra };
-}
-
-/** A surface wiped with the product: it waits contact + dry time before it may be used. */
-function surface(key: string, label: string, handsOnMinutes: number, dryMinutes: number): ProtocolStep {
-  return step(key, label, handsOnMinutes, afterClear, { dryMinutes, disinfects: true });
-}
-
-const dryOf = (...keys: string[]): StepNeed[] => keys.map((key) => ({ key, dry: true }));
-
-const clear = (what: string) => step('clear', `Patient out; ${what} off`, 3, []);
-const injector = step('injector', 'Contrast injector prep', 3, afterClear, { onlyWithContrast: true });
-const hygiene = step('hygiene', 'Gloves off, hand hygiene', 1, [], { afterAllOthers: true });
-
-const workstation = step('workstation', 'Workstation wipe-down', 5, [], { disinfects: true });
-const openingInjector = step('injector', 'Contrast injector prep', 3, [], { onlyWithContrast: true });
-
-/** Opening step every default protocol shares: the room made up before the first patient. */
-const roomcheck = step('roomcheck', 'Room made up for the first patient', 2, []);
-
-/** Default MR protocol (the product brief's table). */
-export const MR_PROTOCOL: Protocol = {
-  modality: 'MR',
-  steps: [
-    clear('coil, pads and linen'),
-    surface('bore', 'Bore, from both ends', 4, 4),
-    surface('table', 'Table top and rails', 2, 2),
-    surface('coils', 'Coil(s) used', 2, 1),
-    surface('cushions', 'Cushions and pads', 2, 1),
-    surface('comfort', 'Hearing protection and call device', 1, 1),
-    surface('touch', 'Counters and door handles', 1, 0),
-    step('linen', 'Fresh sheet and pillow', 1, dryOf('table')),
-    step('coilset', "Place the next patient's coil", 1, dryOf('table', 'coils')),
-    step('cushionset', 'Cushions back', 1, dryOf('cushions')),
-    step('covers', 'Fresh hearing-protection covers', 1, dryOf('comfort')),
-    injector,
-    hygiene,
-  ],
-  openingSteps: [
-    workstation,
-    roomcheck,
-    openingInjector,
-  ],
-};
-
-/** Default CT protocol: same shape as MR, shorter (CT slots are 10–20 minutes). */
-export const CT_PROTOCOL: Protocol = {
-  modality: 'CT',
-  steps: [
-    clear('straps, pads and linen'),
-    surface('gantry', 'Gantry opening and face', 2, 1),
-    surface('table', 'Table top, head holder and straps', 2, 1),
-    surface('touch', 'Counters and door handles', 1, 0),
-    step('linen', 'Fresh sheet and pillow', 1, dryOf('table')),
-    injector,
-    hygiene,
-  ],
-  openingSteps: [
-    workstation,
-    roomcheck,
-    openingInjector,
-  ],
-};
-
-/** For any modality without its own protocol (US, DX, NM, …). */
-export const GENERIC_PROTOCOL: Protocol = {
-  modality: '*',
-  steps: [
-    clear('linen'),
-    surface('table', 'Table or couch', 2, 1),
-    surface('touch', 'Counters and door handles', 1, 0),
-    step('linen', 'Fresh sheet and pillow', 1, dryOf('table')),
-    hygiene,
-  ],
-  openingSteps: [workstation, roomcheck],
-};
-
-/** Default protocols by DICOM modality code; `*` is the fallback. */
-export const DEFAULT_PROTOCOLS: Readonly<Record<string, Protocol>> = {
-  MR: MR_PROTOCOL,
-  CT: CT_PROTOCOL,
-  '*': GENERIC_PROTOCOL,
-};
+import type { Product, Protocol } from './model';
 
 /**
- * The protocol for a modality: the site's own, else its `*` fallback, else the generic default.
+ * The protocol for a modality: the site's own, else its `*` fallback, else null (the room gets
+ * no numbers: nothing is computed from invented defaults).
  *
  * @example
- * protocolFor('mr').modality; // 'MR'
- * protocolFor('US').modality; // '*'
+ * protocolFor('mr', { MR: mr, '*': other })?.modality; // 'MR'
+ * protocolFor('US', { MR: mr }); // null
  */
-export function protocolFor(
-  modality: string,
-  protocols: Readonly<Record<string, Protocol>> = DEFAULT_PROTOCOLS,
-): Protocol {
-  return protocols[modality.toUpperCase()] ?? protocols[modality] ?? protocols['*'] ?? GENERIC_PROTOCOL;
+export function protocolFor(modality: string, protocols: Readonly<Record<string, Protocol>> | undefined): Protocol | null {
+  if (!protocols) return null;
+  return protocols[modality.toUpperCase()] ?? protocols[modality] ?? protocols['*'] ?? null;
+}
+
+/**
+ * Applications one disinfecting step takes with a product: the surface must stay wet for the
+ * whole label contact time, so a product that dries first is re-applied,
+ * ⌈contact ÷ stays-wet⌉ times (derived; common practice, no source). 1 when it stays wet long
+ * enough or its stays-wet time is not known.
+ *
+ * @example
+ * applicationsOf({ key: 'q', name: 'Quick wipe', contactMinutes: 3, staysWetMinutes: 1.25 }); // 3
+ */
+export function applicationsOf(product: Pick<Product, 'contactMinutes' | 'staysWetMinutes'>): number {
+  const wet = product.staysWetMinutes;
+  if (wet === undefined || wet === null || !(wet > 0) || wet >= product.contactMinutes) return 1;
+  // a tolerance, so 3 ÷ 1.5 is 2 and not 2.0000000000000004 rounded up
+  return Math.ceil(product.contactMinutes / wet - 1e-9);
 }

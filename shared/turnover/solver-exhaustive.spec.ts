@@ -1,5 +1,5 @@
 import { MOBILITIES, PRECAUTIONS } from './model';
-import { CT_PROTOCOL, GENERIC_PROTOCOL, MR_PROTOCOL } from './protocols';
+import { CT_PROTOCOL, DEFAULT_PRODUCTS, GENERIC_PROTOCOL, MR_PROTOCOL } from './demo-protocols';
 import { solveTurnover } from './solver';
 import { buildStepSet } from './step-set';
 import { scheduleProblems } from './testing/check-schedule';
@@ -40,6 +40,7 @@ describe('solveTurnover (exhaustive proof of optimality)', () => {
           arriving: exam({ contrast, coil: coilChange ? 'knee' : 'head' }),
           room: MR_ROOM,
           protocol,
+          products: DEFAULT_PRODUCTS,
           staff,
         });
         const schedule = solveTurnover({ steps, staff });

@@ -1,5 +1,5 @@
 import type { SolverStep } from './model';
-import { MR_PROTOCOL } from './protocols';
+import { MR_PROTOCOL, DEFAULT_PRODUCTS } from './demo-protocols';
 import { createTurnoverSolver, solveTurnover } from './solver';
 import { buildStepSet } from './step-set';
 import { scheduleProblems } from './testing/check-schedule';
@@ -7,7 +7,7 @@ import { exam, MR_ROOM } from './testing/fixtures';
 import { longestWaitFirstMakespan } from './testing/greedy';
 
 const mrSteps = (leaving = exam(), arriving = exam()) =>
-  buildStepSet({ leaving, arriving, room: MR_ROOM, protocol: MR_PROTOCOL }).steps;
+  buildStepSet({ leaving, arriving, room: MR_ROOM, protocol: MR_PROTOCOL, products: DEFAULT_PRODUCTS }).steps;
 const s = (key: string, handsOnMinutes: number, waitMinutes: number, needs: SolverStep['needs'] = []): SolverStep => ({
   key,
   label: key,

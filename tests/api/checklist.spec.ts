@@ -92,20 +92,23 @@ describe('the turnover checklist', () => {
 
   it('defaults the product from the protocol (sporicidal after an enteric case) and lets the technologist change it', async () => {
     at(h, '08:30');
+    // the demo's products as the seed stored them: the engine keys a product by its id
+    const key = async (name: string) => String((await h.db('products').where({ name }).first('id')).id);
+    const [standard, sporicidal] = [await key('Standard surface wipe'), await key('Sporicidal wipe')];
     const routine = await finish('C-1');
-    expect(routine.steps.find((s) => s.key === 'bore')).toMatchObject({ productKey: 'standard', contactMinutes: 2, waitMinutes: 6 });
+    expect(routine.steps.find((s) => s.key === 'bore')).toMatchObject({ productKey: standard, contactMinutes: 2, waitMinutes: 6 });
     await tick(routine, 'clear');
-    const changed = await tick(routine, 'bore', { productKey: 'sporicidal' });
+    const changed = await tick(routine, 'bore', { productKey: sporicidal });
     expect(changed.status).toBe(200);
     // sporicidal wipe (demo label: 4 min contact) + the bore's 4 min dry time, from the tick
-    expect(changed.body.steps.find((s: { key: string }) => s.key === 'bore')).toMatchObject({ done: { productKey: 'sporicidal' }, wetUntil: local('08:38') });
+    expect(changed.body.steps.find((s: { key: string }) => s.key === 'bore')).toMatchObject({ done: { productKey: sporicidal }, wetUntil: local('08:38') });
     expect((await tick(routine, 'table', { productKey: 'not-a-product' })).status).toBe(422);
-    expect((await tick(routine, 'linen', { productKey: 'standard' })).status).toBe(422); // a step that disinfects nothing
+    expect((await tick(routine, 'linen', { productKey: standard })).status).toBe(422); // a step that disinfects nothing
 
     at(h, '09:30');
     const enteric = await finish('C-2');
     expect(enteric).toMatchObject({ cleanType: 'isolation', precaution: 'enteric' });
-    expect(enteric.steps.find((s) => s.key === 'bore')).toMatchObject({ productKey: 'sporicidal', contactMinutes: 4 });
+    expect(enteric.steps.find((s) => s.key === 'bore')).toMatchObject({ productKey: sporicidal, contactMinutes: 4 });
     expect(enteric.steps[0]!.key).toBe('don');
     const { entries } = (await tech.get(`/api/log?date=${DAY}&roomId=${mr2}`)).body;
     expect(entries.find((e: { stepKey: string }) => e.stepKey === 'bore')).toMatchObject({ productName: 'Sporicidal wipe', contactRequiredMinutes: 4 });

@@ -1,5 +1,6 @@
 import type { DayPlanExam, DayPlanInput, DayPlanRoom } from '../../shared/turnover';
 import { MOBILITIES, PRECAUTIONS } from '../../shared/turnover';
+import { DEMO_SETUP } from '../../shared/turnover/demo-protocols';
 import { seededRandom } from '../../shared/turnover/testing/seeded-random';
 
 const DATE = '2027-03-15';
@@ -56,7 +57,7 @@ export function busyDay(count: number, date = DATE): DayPlanInput {
       minute += durationMinutes;
     }
   }
-  return { date, timezone: ZONE, rooms, exams };
+  return { date, timezone: ZONE, ...DEMO_SETUP, rooms, exams };
 }
 
 /**
@@ -83,5 +84,5 @@ export function crowdedRoomDay(count: number, date = DATE): DayPlanInput {
     notes: null,
     version: 1,
   }));
-  return { date, timezone: ZONE, rooms, exams };
+  return { date, timezone: ZONE, ...DEMO_SETUP, rooms, exams };
 }

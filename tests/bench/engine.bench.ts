@@ -1,4 +1,5 @@
 import type { DayPlanExam, DayPlanRoom } from '../../shared/turnover';
+import { DEMO_SETUP } from '../../shared/turnover/demo-protocols';
 import { computeDayPlan, MOBILITIES, PRECAUTIONS } from '../../shared/turnover';
 import { seededRandom } from '../../shared/turnover/testing/seeded-random';
 
@@ -64,7 +65,7 @@ export function syntheticDay(): { rooms: DayPlanRoom[]; exams: DayPlanExam[] } {
  */
 export async function benchEngine(): Promise<string[]> {
   const { rooms, exams } = syntheticDay();
-  const input = { date: '2027-03-15', timezone: 'America/Chicago', rooms, exams };
+  const input = { date: '2027-03-15', timezone: 'America/Chicago', ...DEMO_SETUP, rooms, exams };
   const time = (): { ms: number; plan: ReturnType<typeof computeDayPlan> } => {
     const t0 = performance.now();
     const plan = computeDayPlan(input);

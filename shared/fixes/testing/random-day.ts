@@ -1,4 +1,5 @@
 import type { DayPlanExam, DayPlanInput, DayPlanRoom } from '../../turnover/day-plan-input';
+import { DEMO_SETUP } from '../../turnover/demo-protocols';
 import { MOBILITIES, PRECAUTIONS } from '../../turnover/model';
 import { seededRandom } from '../../turnover/testing/seeded-random';
 
@@ -53,5 +54,5 @@ export function randomDay(seed: number, date = '2027-03-15'): DayPlanInput {
       minute += durationMinutes + int(-10, 40);
     }
   }
-  return { date, timezone: 'America/Chicago', snugMarginMinutes: pick([0, 3]), rooms, exams, staffOverrides };
+  return { date, timezone: 'America/Chicago', ...DEMO_SETUP, snugMarginMinutes: pick([0, 3]), rooms, exams, staffOverrides };
 }

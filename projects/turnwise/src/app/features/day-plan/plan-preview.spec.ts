@@ -3,6 +3,7 @@ import { computeDayPlan, type DayPlanInput } from '@shared/turnover';
 
 import { previewMove } from './plan-preview';
 import { exam } from './testing/example-day';
+import { DEMO_SETUP } from '@shared/turnover/demo-protocols';
 
 // Invented day: two MR rooms; in MR 1, ACC-2 starts 15 min after ACC-1 ends.
 const rooms: Room[] = [
@@ -13,6 +14,7 @@ const rooms: Room[] = [
 const input: DayPlanInput = {
   date: '2027-03-15',
   timezone: 'America/Chicago',
+  ...DEMO_SETUP,
   snugMarginMinutes: 3,
   rooms,
   exams: [exam(1, 1, '08:00'), exam(2, 1, '08:45'), exam(3, 2, '08:00', { precaution: 'airborne' }), exam(4, 2, '10:00')],

@@ -2,11 +2,13 @@ import { parseExamTable } from '@shared/exam-list';
 import type { DayPlanInput } from '@shared/turnover';
 
 import { dayListCsv, templateCsv } from './day-list-file';
+import { DEMO_SETUP } from '@shared/turnover/demo-protocols';
 
 // Invented day, America/Chicago (CDT, -05:00).
 const day: DayPlanInput = {
   date: '2027-03-15',
   timezone: 'America/Chicago',
+  ...DEMO_SETUP,
   rooms: [
     { id: 1, name: 'MR 1', modality: 'MR', airChangesPerHour: 6, staff: 1, opensAt: '07:00', closesAt: '19:00' },
     { id: 2, name: 'CT 1', modality: 'CT', airChangesPerHour: 12, staff: 1, opensAt: '07:00', closesAt: '19:00' },

@@ -13,6 +13,7 @@ import { provideIcons } from '../../core/layout/icons';
 import { DropZone } from './drop-zone';
 import { Import } from './import';
 import { ImportService } from './import-service';
+import { DEMO_SETUP } from '@shared/turnover/demo-protocols';
 
 const URL = '/api/days/2027-03-15/exams/import';
 const SETTINGS = { settings: { siteName: 'Example Imaging', timezone: 'America/Chicago', snugMarginMinutes: 3 } };
@@ -120,6 +121,7 @@ describe('Import', () => {
     const input: DayPlanInput = {
       date: '2027-03-15',
       timezone: 'America/Chicago',
+      ...DEMO_SETUP,
       snugMarginMinutes: 3,
       rooms: [
         { id: 1, name: 'MR 1', modality: 'MR', airChangesPerHour: 6, staff: 1, opensAt: '07:00', closesAt: '19:00' },
@@ -149,6 +151,7 @@ describe('Import', () => {
     const input: DayPlanInput = {
       date: '2027-03-15',
       timezone: 'America/Chicago',
+      ...DEMO_SETUP,
       rooms: [{ id: 1, name: 'MR 1', modality: 'MR', airChangesPerHour: 6, staff: 1, opensAt: '07:00', closesAt: '19:00' }],
       exams: [{ id: 1, accession: 'ACC-1', roomId: 1, start: '2027-03-15T08:00:00-05:00', durationMinutes: 30, procedure: 'MR knee', coil: 'knee', precaution: 'none', mobility: 'ambulatory', contrast: false, notes: null, version: 1 }],
     };

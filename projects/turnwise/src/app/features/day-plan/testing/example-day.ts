@@ -1,6 +1,7 @@
 import type { PlannedDay } from '@shared/api/plan';
 import type { Room } from '@shared/api/rooms';
 import { computeDayPlan, type DayPlanInput } from '@shared/turnover';
+import { DEMO_SETUP } from '@shared/turnover/demo-protocols';
 
 // Invented day (no real rooms, exams or people): MR 1, CT 1, MR 2 in that order, America/Chicago.
 export const ROOMS: Room[] = [
@@ -33,6 +34,7 @@ export const DAY_INPUT: DayPlanInput = {
   date: '2027-03-15',
   timezone: 'America/Chicago',
   snugMarginMinutes: 3,
+  ...DEMO_SETUP,
   rooms: ROOMS,
   exams: [
     exam(1, 1, '08:00'),

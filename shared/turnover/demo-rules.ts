@@ -1,7 +1,7 @@
 import type { PrecautionRule, TurnoverRules } from './model';
 
 /*
- * Demo defaults, invented; each site sets its own from its product labels and policy.
+ * Demo and test values only, never imported in production (see demo-protocols.ts). Invented; each site sets its own from its product labels and policy.
  * Rules name steps by key (`don`, `clear`, `coilset`, `hygiene`); a protocol without such a
  * step is simply not changed by that rule, so admins can edit protocols freely.
  */
