@@ -1,7 +1,11 @@
-import { Subject } from 'rxjs';
+import { signal } from '@angular/core';
+import { TestBed } from '@angular/core/testing';
+import { Subject, of } from 'rxjs';
 
+import { serverState } from '../state/server-state';
 import type { DayStreamMessage, DayStreamStatus } from './day-events';
-import { dayRefreshes } from './day-refresh';
+import { dayRefreshes, liveDay } from './day-refresh';
+import { fakeEventSources } from './testing/fake-event-source';
 
 function watch() {
   const stream = new Subject<DayStreamMessage>();
@@ -50,5 +54,40 @@ describe('dayRefreshes with a period', () => {
     jest.advanceTimersByTime(1);
     expect(refreshes).toBe(2);
     subscription.unsubscribe();
+  });
+});
+
+describe('liveDay', () => {
+  it('shows each key once, fetches it again on its day\'s changes, and follows the key to another day', async () => {
+    const events = fakeEventSources();
+    TestBed.configureTestingModule({ providers: [events.provider] });
+    const fetched: string[] = [];
+    const key = signal<string | null>(null);
+    const { state, status } = TestBed.runInInjectionContext(() => {
+      const state = serverState((date: string) => {
+        fetched.push(date);
+        return of(`board of ${date}`);
+      }, 'failed');
+      return { state, status: liveDay(state, key, { day: (date) => date }) };
+    });
+    const settle = () => TestBed.tick();
+
+    settle();
+    expect(events.sources).toHaveLength(0); // no key, no stream
+    key.set('2027-03-15');
+    settle();
+    expect(fetched).toEqual(['2027-03-15']);
+    expect(state.value()).toBe('board of 2027-03-15');
+    events.sources[0].open();
+    expect(status()).toBe('live');
+    events.sources[0].change();
+    expect(fetched).toEqual(['2027-03-15', '2027-03-15']);
+
+    key.set('2027-03-16');
+    settle();
+    expect(events.sources[0].closed).toBe(true);
+    expect(events.sources[1].url).toBe('/api/days/2027-03-16/events');
+    expect(state.key()).toBe('2027-03-16');
+    expect(fetched).toEqual(['2027-03-15', '2027-03-15', '2027-03-16']);
   });
 });
