@@ -68,6 +68,9 @@ import cloudOff from '@material-design-icons/svg/outlined/cloud_off.svg';
 import contentCopy from '@material-design-icons/svg/outlined/content_copy.svg';
 import arrowBack from '@material-design-icons/svg/outlined/arrow_back.svg';
 import arrowForward from '@material-design-icons/svg/outlined/arrow_forward.svg';
+// Gap verdict "fits" (a check of its own: ready's is check_circle); the exam block's menu.
+import done from '@material-design-icons/svg/outlined/done.svg';
+import moreVert from '@material-design-icons/svg/outlined/more_vert.svg';
 
 /** Every icon drawn under the shell: its toolbar and navigation, the screens and their shared pieces. */
 export const ICONS: IconSet = {
@@ -130,6 +133,8 @@ export const ICONS: IconSet = {
   content_copy: contentCopy,
   arrow_back: arrowBack,
   arrow_forward: arrowForward,
+  done,
+  more_vert: moreVert,
 };
 
 /** Registers a set of icons (by default every icon in ICONS) when an injector is created: for specs. */

@@ -5,7 +5,7 @@ import type { Verdict } from '@shared/api/plan';
 
 /** Icon and plain-language meaning of each verdict; the word itself is the product's term. */
 export const VERDICT_DISPLAY: Readonly<Record<Verdict, { icon: string; meaning: string }>> = {
-  fits: { icon: 'check_circle', meaning: 'the turnover fits with room to spare' },
+  fits: { icon: 'done', meaning: 'the turnover fits with room to spare' },
   snug: { icon: 'timelapse', meaning: 'the turnover fits with little to spare' },
   short: { icon: 'warning', meaning: 'the gap is shorter than the turnover' },
   overlap: { icon: 'error', meaning: 'the next exam starts before this one ends' },
