@@ -158,6 +158,7 @@ export const ROUTE_TABLE: RouteCase[] = [
   },
   { method: 'get', path: '/api/log', allowed: ['tech', 'charge', 'admin'], send: (c) => c.get('/api/log?date=2027-03-10') },
   { method: 'get', path: '/api/log.csv', allowed: ['tech', 'charge', 'admin'], send: (c) => c.get('/api/log.csv?date=2027-03-10') },
+  { method: 'get', path: '/api/reports', allowed: ['charge', 'admin'], send: (c) => c.get('/api/reports?from=2027-03-01&to=2027-03-10') },
   {
     method: 'post',
     path: '/api/log/:id/corrections',
@@ -195,6 +196,16 @@ export const ROUTE_TABLE: RouteCase[] = [
   { method: 'post', path: '/api/equipment', allowed: ['admin'], send: (c) => c.post('/api/equipment', { name: 'Matrix mop', kind: 'mop', marking: 'mr-safe' }) },
   { method: 'put', path: '/api/equipment/:id', allowed: ['admin'], prepare: freshItem, send: (c, id) => c.put(`/api/equipment/${id as number}`, { name: 'Matrix bucket', kind: 'bucket', marking: 'mr-safe' }) },
   { method: 'post', path: '/api/equipment/:id/retire', allowed: ['admin'], prepare: freshItem, send: (c, id) => c.post(`/api/equipment/${id as number}/retire`, {}) },
+  { method: 'get', path: '/api/products', allowed: ['admin'], send: (c) => c.get('/api/products') },
+  { method: 'post', path: '/api/products', allowed: ['admin'], send: (c) => c.post('/api/products', { name: `Matrix wipe ${++counter}`, kind: 'standard', contactMinutes: 2 }) },
+  { method: 'put', path: '/api/products/:id', allowed: ['admin'], prepare: freshProduct, send: (c, id) => c.put(`/api/products/${id as number}`, { name: `Matrix wipe ${++counter}`, kind: 'other', contactMinutes: 3 }) },
+  { method: 'post', path: '/api/products/:id/retire', allowed: ['admin'], prepare: freshProduct, send: (c, id) => c.post(`/api/products/${id as number}/retire`, {}) },
+  { method: 'post', path: '/api/products/:id/preview', allowed: ['admin'], prepare: freshProduct, send: (c, id) => c.post(`/api/products/${id as number}/preview`, { name: 'Matrix draft', kind: 'standard', contactMinutes: 5 }) },
+  { method: 'get', path: '/api/protocols', allowed: ['admin'], send: (c) => c.get('/api/protocols') },
+  { method: 'get', path: '/api/protocols/:modality/versions/:version', allowed: ['admin'], send: (c) => c.get('/api/protocols/MR/versions/1') },
+  { method: 'post', path: '/api/protocols', allowed: ['admin'], prepare: protocolDraft, send: (c, draft) => c.post('/api/protocols', draft as object) },
+  { method: 'post', path: '/api/protocols/preview', allowed: ['admin'], prepare: protocolDraft, send: (c, draft) => c.post('/api/protocols/preview', { modality: 'US', body: (draft as { body: unknown }).body }) },
+  { method: 'get', path: '/api/setup/checklist', allowed: ['admin'], send: (c) => c.get('/api/setup/checklist') },
   { method: 'get', path: '/api/users', allowed: ['admin'], send: (c) => c.get('/api/users') },
   {
     method: 'post',
@@ -282,6 +293,19 @@ async function freshRoom(h: Harness): Promise<number> {
 async function freshItem(h: Harness): Promise<number> {
   const [id] = await h.db('equipment').insert({ name: `Matrix item ${++counter}`, kind: 'cart', marking: 'mr-safe', created_at: h.clock.now().toISOString() });
   return id as number;
+}
+
+async function freshProduct(h: Harness): Promise<number> {
+  const stamp = h.clock.now().toISOString();
+  const [id] = await h.db('products').insert({ name: `Matrix wipe ${++counter}`, kind: 'standard', contact_minutes: 2, created_at: stamp, updated_at: stamp });
+  return id as number;
+}
+
+/** A one-step US protocol effective from the harness's today (UTC date: the demo site is behind UTC, so never earlier). */
+async function protocolDraft(h: Harness): Promise<unknown> {
+  const productId = await freshProduct(h);
+  const today = h.clock.now().toISOString().slice(0, 10);
+  return { modality: 'US', effectiveFrom: today, body: { steps: [{ key: 'table', label: 'Couch', handsOnMinutes: 2, disinfects: true, productId }] } };
 }
 
 async function freshUser(h: Harness): Promise<number> {
