@@ -22,6 +22,9 @@ import { DayEvents } from './services/day-events';
 import { SessionStore } from './services/session-store';
 import { createWorkerPool, type WorkerPool } from './workers/pool';
 import { createFixesPool, type FixesPool } from './workers/fixes-pool';
+import { createMailer, type Mailer } from './services/mail/mailer';
+import type { SmtpSettings } from './services/mail/smtp-settings';
+import { startNoticeLoop } from './services/notices/loop';
 
 export interface AppDeps {
   db: Knex;
@@ -46,6 +49,15 @@ export interface AppDeps {
   /** Request logging; off in tests. */
   logRequests?: boolean;
   logError?: (err: unknown) => void;
+  /**
+   * E-mail notices go to this SMTP host. Without one, demo mode, development and tests start the
+   * local demo mail server (on first send); production sends nothing.
+   */
+  smtp?: SmtpSettings | null;
+  /** The address people open Turnwise at, for links in notices (PUBLIC_URL). */
+  publicUrl?: string;
+  /** Run the notice sender loop (main.ts); tests drive `sendDue` / `runNotices` themselves. */
+  sendNotices?: boolean;
 }
 
 /** Builds the Express app without listening, so tests drive it with supertest. */
@@ -56,7 +68,11 @@ export function createApp(deps: AppDeps): Express {
   const fixesPool = deps.fixesPool ?? createFixesPool();
   const production = deps.production ?? false;
   const logError = deps.logError ?? ((err: unknown) => console.error(err));
+  const mailer: Mailer = createMailer({ db: deps.db, smtp: deps.smtp ?? null, demoServer: !production || Boolean(deps.demo), now: () => clock.now() });
+  const noticeContext = { publicUrl: (deps.publicUrl ?? 'http://localhost:3000').replace(/\/+$/, ''), secret: deps.sessionSecret };
+  const stopNotices = deps.sendNotices ? startNoticeLoop(deps.db, mailer, noticeContext, clock, logError) : async () => {};
   const app = express();
+  app.locals['mailer'] = mailer;
   app.disable('x-powered-by');
   // req.ip (and so the sign-in throttle) believes X-Forwarded-For only from these proxies
   app.set('trust proxy', deps.trustProxy?.length ? deps.trustProxy : false);
@@ -138,6 +154,7 @@ export function createApp(deps: AppDeps): Express {
       workers,
       fixesPool,
       demo: Boolean(deps.demo),
+      notices: { mailer, context: noticeContext },
       auth: {
         passport,
         limits: { perAccount: 10, perAddress: 30, ...deps.signInLimits },
@@ -161,14 +178,20 @@ export function createApp(deps: AppDeps): Express {
 
   app.use(errorHandler(logError));
   // Whoever ends the app (main.ts on a signal, a test's afterAll) closes its worker threads.
-  app.locals['close'] = () => {
+  app.locals['close'] = async () => {
     sessionStore.close();
-    return Promise.all([workers.close(), fixesPool.close()]).then(() => undefined);
+    await stopNotices();
+    await Promise.all([workers.close(), fixesPool.close(), mailer.close()]);
   };
   return app;
 }
 
-/** Ends what an app started besides its routes (its worker threads); the caller closes the server and database. */
+/** The app's e-mail way out (tests send through it, or read the demo mail server's port). */
+export function appMailer(app: Express): Mailer {
+  return app.locals['mailer'] as Mailer;
+}
+
+/** Ends what an app started besides its routes (worker threads, the notice loop, the demo mail server); the caller closes the server and database. */
 export function closeApp(app: Express): Promise<void> {
   const close = app.locals['close'] as (() => Promise<void>) | undefined;
   return close ? close() : Promise.resolve();

@@ -1,9 +1,10 @@
-import { closeApp, createApp } from './app';
+import { appMailer, closeApp, createApp } from './app';
 import { readConfig } from './config';
 import { createDb, migrateToLatest } from './db';
 import { seedDemo, seedReferenceData } from './seeding';
 import { systemClock } from './clock';
 import { listDemoAccounts } from './services/demo-accounts';
+import { smtpFromEnv } from './services/mail/smtp-settings';
 
 async function main(): Promise<void> {
   const config = readConfig();
@@ -21,7 +22,13 @@ async function main(): Promise<void> {
     trustProxy: config.trustProxy,
     clientDir: config.clientDir,
     logRequests: true,
+    smtp: smtpFromEnv(),
+    publicUrl: process.env['PUBLIC_URL'] || `http://localhost:${config.port}`,
+    sendNotices: true,
   });
+  const delivery = appMailer(app).delivery;
+  if (delivery === 'off') console.warn('E-mail notices are off: no SMTP_URL or SMTP_HOST is set, so nothing is sent (README, E-mail notices).');
+  else if (delivery === 'demo-server') console.log('E-mail notices go to the local demo mail server; admins read them in the Outbox.');
   if (config.production && config.trustProxy.length === 0) {
     console.warn('TRUST_PROXY is unset: X-Forwarded-For is ignored. Behind a TLS-terminating proxy, set it to the proxy address (README, Security).');
   }

@@ -15,9 +15,8 @@ import { shiftTaskRoutes } from './shift-tasks';
 import { turnoverRoutes } from './turnovers';
 import { auditRoutes } from './audit';
 import { equipmentRoutes } from './equipment';
-import { productRoutes } from './products';
 import { profileRoutes } from './profile';
-import { protocolRoutes, setupRoutes } from './protocols';
+import { noticePreferenceRoutes, outboxRoutes, unsubscribeRoutes, type NoticeDeps } from './notices';
 import { roomRoutes } from './rooms';
 import { roomSetupRoutes } from './room-setup';
 import { settingsRoutes } from './settings';
@@ -30,6 +29,8 @@ export interface ApiDeps {
   workers: WorkerPool;
   fixesPool: FixesPool;
   demo: boolean;
+  /** E-mail notices: where they go and what their links need. */
+  notices: NoticeDeps;
   /** What sign-in needs from the app (sessions, XSRF, throttling). */
   auth: Omit<AuthDeps, 'db' | 'demo'>;
 }
@@ -58,11 +59,12 @@ export function apiRoutes(deps: ApiDeps): Router {
   // Setup (admin) and each user's own profile
   router.use('/rooms', roomSetupRoutes(deps));
   router.use('/equipment', equipmentRoutes(deps));
-  router.use('/products', productRoutes(deps));
-  router.use('/protocols', protocolRoutes(deps));
-  router.use('/setup', setupRoutes(deps));
   router.use('/users', userRoutes(deps));
+  router.use('/profile/notices', noticePreferenceRoutes(deps));
   router.use('/profile', profileRoutes(deps));
   router.use('/audit', auditRoutes(deps));
+  // E-mail notices: the Outbox (admin) and the unsubscribe link (no sign-in)
+  router.use('/outbox', outboxRoutes(deps));
+  router.use('/notices', unsubscribeRoutes(deps));
   return router;
 }

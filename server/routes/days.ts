@@ -14,6 +14,8 @@ import { loadCachedDayPlan, loadDayPlan } from '../services/day-plan';
 import { addExam } from '../services/exam-edits';
 import { examFormSchema } from '../../shared/api/changes';
 import { importExamList } from '../services/exam-import';
+import { digestAfterImport } from '../services/notices/import-digest';
+import type { NoticeDeps } from './notices';
 import { publishDayEvent } from './announce';
 import { parseDay } from './params';
 
@@ -22,7 +24,7 @@ const dryRunQuery = z.object({
   dayVersion: z.coerce.number().int().min(0).optional(),
 });
 
-export function dayRoutes(deps: { db: Knex; clock: Clock; events: DayEvents; workers: WorkerPool }): Router {
+export function dayRoutes(deps: { db: Knex; clock: Clock; events: DayEvents; workers: WorkerPool; notices?: NoticeDeps }): Router {
   const router = Router();
   const multipart = multer({
     storage: multer.memoryStorage(),
@@ -57,6 +59,8 @@ export function dayRoutes(deps: { db: Knex; clock: Clock; events: DayEvents; wor
       expectedDayVersion: query.dayVersion,
     });
     if (!result.dryRun) publishDayEvent(deps, day, 'plan', 'import', user);
+    // a digest of the problem gaps to those who asked for it; queued only, sent by the notice loop
+    if (!result.dryRun) await digestAfterImport(deps.db, deps.notices, { day, userId: user.id, now: deps.clock.now() });
     res.json(result);
   });
 
