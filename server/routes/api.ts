@@ -15,8 +15,10 @@ import { shiftTaskRoutes } from './shift-tasks';
 import { turnoverRoutes } from './turnovers';
 import { auditRoutes } from './audit';
 import { equipmentRoutes } from './equipment';
+import { productRoutes } from './products';
 import { profileRoutes } from './profile';
 import { noticePreferenceRoutes, outboxRoutes, unsubscribeRoutes, type NoticeDeps } from './notices';
+import { protocolRoutes, setupRoutes } from './protocols';
 import { roomRoutes } from './rooms';
 import { roomSetupRoutes } from './room-setup';
 import { settingsRoutes } from './settings';
@@ -59,6 +61,9 @@ export function apiRoutes(deps: ApiDeps): Router {
   // Setup (admin) and each user's own profile
   router.use('/rooms', roomSetupRoutes(deps));
   router.use('/equipment', equipmentRoutes(deps));
+  router.use('/products', productRoutes(deps));
+  router.use('/protocols', protocolRoutes(deps));
+  router.use('/setup', setupRoutes(deps));
   router.use('/users', userRoutes(deps));
   router.use('/profile/notices', noticePreferenceRoutes(deps));
   router.use('/profile', profileRoutes(deps));
