@@ -17,6 +17,7 @@ import { auditRoutes } from './audit';
 import { equipmentRoutes } from './equipment';
 import { productRoutes } from './products';
 import { profileRoutes } from './profile';
+import { reportRoutes } from './reports';
 import { noticePreferenceRoutes, outboxRoutes, unsubscribeRoutes, type NoticeDeps } from './notices';
 import { protocolRoutes, setupRoutes } from './protocols';
 import { roomRoutes } from './rooms';
@@ -58,6 +59,7 @@ export function apiRoutes(deps: ApiDeps): Router {
   router.use('/turnovers', turnoverRoutes(deps));
   router.use('/shift-tasks', shiftTaskRoutes(deps));
   router.use(logRoutes(deps));
+  router.use('/reports', reportRoutes(deps));
   // Setup (admin) and each user's own profile
   router.use('/rooms', roomSetupRoutes(deps));
   router.use('/equipment', equipmentRoutes(deps));

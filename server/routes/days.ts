@@ -16,6 +16,7 @@ import { examFormSchema } from '../../shared/api/changes';
 import { importExamList } from '../services/exam-import';
 import { digestAfterImport } from '../services/notices/import-digest';
 import type { NoticeDeps } from './notices';
+import { recordImportVerdicts } from '../services/import-verdicts';
 import { publishDayEvent } from './announce';
 import { parseDay } from './params';
 
@@ -58,7 +59,11 @@ export function dayRoutes(deps: { db: Knex; clock: Clock; events: DayEvents; wor
       now: deps.clock.now(),
       expectedDayVersion: query.dayVersion,
     });
-    if (!result.dryRun) publishDayEvent(deps, day, 'plan', 'import', user);
+    if (!result.dryRun) {
+      // Reports' "as imported": the plan the import left, before any move or fix
+      await recordImportVerdicts(deps.db, day);
+      publishDayEvent(deps, day, 'plan', 'import', user);
+    }
     // a digest of the problem gaps to those who asked for it; queued only, sent by the notice loop
     if (!result.dryRun) await digestAfterImport(deps.db, deps.notices, { day, userId: user.id, now: deps.clock.now() });
     res.json(result);

@@ -1,4 +1,5 @@
 import type { LogEntry } from '../../shared/api/board';
+import { toCsv } from '../../shared/csv/csv';
 
 const COLUMNS: [header: string, value: (e: LogEntry) => string | number | null][] = [
   ['id', (e) => e.id],
@@ -19,25 +20,7 @@ const COLUMNS: [header: string, value: (e: LogEntry) => string | number | null][
   ['name', (e) => e.displayName],
 ];
 
-/**
- * A cell a spreadsheet will show as text: one starting with `=`, `+`, `-` or `@` (or a tab or
- * carriage return, which some spreadsheets strip before looking) would otherwise be evaluated
- * as a formula, so it gets a leading `'`.
- */
-export function spreadsheetSafe(value: string): string {
-  return /^[=+\-@\t\r]/.test(value) ? `'${value}` : value;
-}
-
-/** RFC 4180 quoting: a cell with a comma, quote or line break is quoted, quotes doubled. */
-function quoted(value: string): string {
-  return /[",\r\n]/.test(value) ? `"${value.replaceAll('"', '""')}"` : value;
-}
-
-/** The log as CSV: a header row, then one row per entry, CRLF line ends. */
+/** The log as CSV: a header row, then one row per entry (formula-like cells escaped, CRLF line ends). */
 export function logCsv(entries: readonly LogEntry[]): string {
-  const lines = [COLUMNS.map(([header]) => header).join(',')];
-  for (const entry of entries) {
-    lines.push(COLUMNS.map(([, value]) => quoted(spreadsheetSafe(String(value(entry) ?? '')))).join(','));
-  }
-  return lines.join('\r\n') + '\r\n';
+  return toCsv([COLUMNS.map(([header]) => header), ...entries.map((entry) => COLUMNS.map(([, value]) => value(entry)))]);
 }

@@ -32,3 +32,6 @@ export type MoveReason = (typeof MOVE_REASONS)[number];
 /** Why a day's plan changed: a move's reason, or an action that is not a single move. */
 export const CHANGE_REASONS = [...MOVE_REASONS, 'suggestion', 'undo', 'redo', 'staffing', 'exam added', 'exam edited', 'exam cancelled'] as const;
 export type ChangeReason = (typeof CHANGE_REASONS)[number];
+
+/** Days one report may cover (a quarter): its work grows with the range, so the range is capped. */
+export const REPORT_MAX_DAYS = 92;
