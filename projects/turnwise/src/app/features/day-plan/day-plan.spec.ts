@@ -167,7 +167,7 @@ describe('DayPlan timeline', () => {
     it(`gives ${role} a read-only timeline: nothing to drag, no undo, no staffing, no Apply`, async () => {
       const { page, fixture, backend } = await renderDay({ user: { username: role, role } });
       expect(page.querySelectorAll('tw-exam-block.movable')).toHaveLength(0);
-      expect(block(page, 2).getAttribute('aria-describedby')).toBeNull();
+      expect(block(page, 2).getAttribute('aria-describedby')).toBe('tw-open-hint');
       expect(page.querySelector('button.undo')).toBeNull();
       expect(page.querySelector('button.redo')).toBeNull();
       expect(page.querySelector('button.add-exam')).toBeNull();
@@ -194,6 +194,30 @@ describe('DayPlan timeline', () => {
     backend.expectOne('/api/days/2027-03-15/fixes?gap=2').flush({ fixes: [] });
     await settle(fixture);
     expect(text(page.querySelector('button.edit-exam'))).toContain('ACC-2');
+  });
+
+  it('opens the first exam of a lane from its block in the exam dialog, to edit or cancel it', async () => {
+    const { page, fixture, backend } = await renderDay();
+    block(page, 1).dispatchEvent(new KeyboardEvent('keydown', { key: 'Enter', bubbles: true, cancelable: true }));
+    await settle(fixture);
+    const dialog = document.querySelector('tw-exam-dialog')!;
+    expect(text(dialog.querySelector('h2'))).toBe('Edit ACC-1');
+    expect(dialog.querySelector<HTMLInputElement>('input[formcontrolname="accession"]')!.value).toBe('ACC-1');
+    expect(text(dialog.querySelector('button.cancel-exam'))).toBe('Cancel exam ACC-1');
+    expect(dialog.querySelector('button.save')).not.toBeNull();
+    backend.expectNone((request) => request.method !== 'GET');
+  });
+
+  it('shows a read-only role the exam from its block, with nothing to save or cancel', async () => {
+    const { page, fixture } = await renderDay({ user: { username: 'frontdesk', role: 'frontdesk' } });
+    block(page, 1).dispatchEvent(new KeyboardEvent('keydown', { key: 'Enter', bubbles: true, cancelable: true }));
+    await settle(fixture);
+    const dialog = document.querySelector('tw-exam-dialog')!;
+    expect(text(dialog.querySelector('h2'))).toBe('ACC-1');
+    expect(text(dialog.querySelector('.read-only'))).toContain('read-only');
+    expect(dialog.querySelector<HTMLInputElement>('input[formcontrolname="accession"]')!.disabled).toBe(true);
+    expect(dialog.querySelector('button.save')).toBeNull();
+    expect(dialog.querySelector('button.cancel-exam')).toBeNull();
   });
 
   it('undoes and redoes through the server, by button and by Ctrl+Z / Ctrl+Shift+Z', async () => {

@@ -130,7 +130,10 @@ export class DayPlan {
   protected openExam(exam: PlanExam | null): void {
     const plan = this.store.plan();
     if (!plan) return;
-    const data: ExamDialogData = { date: plan.date, rooms: plan.rooms.map((room) => ({ id: room.id, name: room.name })), exam };
+    // A block opens for every role; only a role that may move slots gets the form to change it.
+    const readOnly = !this.mayMove();
+    if (readOnly && !exam) return;
+    const data: ExamDialogData = { date: plan.date, rooms: plan.rooms.map((room) => ({ id: room.id, name: room.name })), exam, readOnly };
     this.dialog
       .open<ExamDialog, ExamDialogData, PlannedDay>(ExamDialog, { data, width: '40rem' })
       .afterClosed()

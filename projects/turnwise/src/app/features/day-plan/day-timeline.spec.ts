@@ -70,6 +70,67 @@ describe('DayTimeline moves', () => {
     backend.expectNone('/api/exams/2');
   });
 
+  describe('opening an exam from its block', () => {
+    const opened = (fixture: Awaited<ReturnType<typeof renderDay>>['fixture']) => {
+      const timeline = fixture.debugElement.query(By.directive(DayTimeline)).componentInstance as DayTimeline;
+      const ids: number[] = [];
+      timeline.examOpened.subscribe((exam) => ids.push(exam.id));
+      return ids;
+    };
+
+    it('opens the exam on a click that does not move it, the first of its lane too', async () => {
+      const { fixture, backend, page } = await renderDay();
+      const ids = opened(fixture);
+      pointer(block(page, 1), 'pointerdown', 200, 20);
+      pointer(window, 'pointerup', 201, 21);
+      pointer(block(page, 1), 'click', 201, 21);
+      await settle(fixture);
+      expect(ids).toEqual([1]);
+      backend.expectNone('/api/exams/1');
+    });
+
+    it('does not open the exam after a drag', async () => {
+      const { fixture, backend, page } = await renderDay();
+      const ids = opened(fixture);
+      pointer(block(page, 2), 'pointerdown', 300, 20);
+      pointer(window, 'pointermove', 340, 22);
+      await new Promise<void>((resolve) => requestAnimationFrame(() => resolve()));
+      pointer(window, 'pointerup', 340, 22);
+      pointer(block(page, 2), 'click', 340, 22);
+      await settle(fixture);
+      expect(ids).toEqual([]);
+      backend.expectOne({ method: 'PATCH', url: '/api/exams/2' }).flush(dayPlan());
+      await settle(fixture);
+    });
+
+    it('opens the focused exam with Enter or Space when no move is under way; with a keyboard move, Enter saves it', async () => {
+      const { fixture, backend, page } = await renderDay();
+      const ids = opened(fixture);
+      key(block(page, 1), 'Enter');
+      key(block(page, 3), ' ');
+      expect(ids).toEqual([1, 3]);
+      key(block(page, 2), 'ArrowRight');
+      await settle(fixture);
+      key(block(page, 2), 'Enter');
+      expect(ids).toEqual([1, 3]);
+      backend.expectOne({ method: 'PATCH', url: '/api/exams/2' }).flush(dayPlan());
+      await settle(fixture);
+    });
+
+    it('opens the exam for a read-only role too (Enter and click), moving nothing', async () => {
+      const { fixture, backend, page } = await renderDay({ user: { username: 'tech', role: 'tech' } });
+      const ids = opened(fixture);
+      expect(block(page, 1).getAttribute('aria-describedby')).toBe('tw-open-hint');
+      key(block(page, 1), 'ArrowRight');
+      key(block(page, 1), 'Enter');
+      pointer(block(page, 2), 'pointerdown', 300, 20);
+      pointer(block(page, 2), 'click', 300, 20);
+      await settle(fixture);
+      expect(ids).toEqual([1, 2]);
+      backend.expectNone((request) => request.method === 'PATCH');
+    });
+  });
+
   it('moves the focused block 5 min per arrow and saves with Enter as reason keyboard', async () => {
     const { fixture, backend, page } = await renderDay();
     key(block(page, 2), 'ArrowRight');

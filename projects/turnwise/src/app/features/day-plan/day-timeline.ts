@@ -17,6 +17,8 @@ import { PendingMove, clampStart, moveStatus, movedWithoutGaps, nextLane } from 
 import { SNAP_MINUTES, Zoom, axisTicks, dayRange, readablePxPerMinute, scaleFor, siteIso, snapToMinutes, xOf } from './timeline-scale';
 
 const MINUTE = 60_000;
+/** A press and release further apart than this moved the slot (PointerDrag's threshold): not a click. */
+const CLICK_WOBBLE_PX = 4;
 
 /**
  * The lanes of the day on a shared time axis, with the now line. Slots move by pointer (drag
@@ -47,6 +49,8 @@ export class DayTimeline {
   readonly roomProblemsOpened = output<number>();
   /** A drop the timeline refused itself (a lane of another modality), in words. */
   readonly refusal = output<string>();
+  /** An exam block clicked (without dragging it) or pressed with Enter or Space: open the exam. */
+  readonly examOpened = output<PlanExam>();
 
   private readonly scroller = viewChild.required<ElementRef<HTMLElement>>('scroller');
   private readonly lanesEl = viewChild.required<ElementRef<HTMLElement>>('laneList');
@@ -100,6 +104,8 @@ export class DayTimeline {
   });
 
   private drag: PointerDrag | null = null;
+  /** Where the last press began: a click that ends far from it was a drag, not an opening. */
+  private pressedAt: { x: number; y: number } | null = null;
 
   constructor() {
     const destroyRef = inject(DestroyRef);
@@ -152,6 +158,7 @@ export class DayTimeline {
   }
 
   protected onPointerDown(event: PointerEvent): void {
+    this.pressedAt = { x: event.clientX, y: event.clientY };
     if (!this.mayMove() || event.button !== 0 || this.store.busy()) return;
     const block = (event.target as Element).closest<HTMLElement>('[data-exam-id]');
     const home = block && this.homes().get(Number(block.dataset['examId']));
@@ -207,11 +214,28 @@ export class DayTimeline {
     afterNextRender(() => measureSinceStart('tw-drag-frame'), { injector: this.injector });
   }
 
+  /** A click on a block that did not move it opens the exam (every role: read-only for those who may not move). */
+  protected onClick(event: MouseEvent): void {
+    const block = (event.target as Element).closest<HTMLElement>('[data-exam-id]');
+    const home = block && this.homes().get(Number(block.dataset['examId']));
+    const from = this.pressedAt;
+    this.pressedAt = null;
+    if (!home || this.pending() || (from && Math.hypot(event.clientX - from.x, event.clientY - from.y) >= CLICK_WOBBLE_PX)) return;
+    this.examOpened.emit(home.exam);
+  }
+
   protected onKeyDown(event: KeyboardEvent): void {
     const block = (event.target as Element).closest<HTMLElement>('[data-exam-id]');
     const home = block && this.homes().get(Number(block.dataset['examId']));
-    if (!home || !this.mayMove()) return;
+    if (!home) return;
     const pending = this.pending();
+    // Enter (or Space) on a block with no move under way opens the exam; with a move, Enter saves it.
+    if ((event.key === 'Enter' || event.key === ' ') && !pending) {
+      event.preventDefault();
+      this.examOpened.emit(home.exam);
+      return;
+    }
+    if (!this.mayMove()) return;
     const current: PendingMove =
       pending?.exam.id === home.exam.id ? pending : { exam: home.exam, roomId: home.room.id, startMs: Date.parse(home.exam.start), reason: 'keyboard' };
     let next: PendingMove | null = current;

@@ -7,7 +7,8 @@ import type { BlockView } from './lane-view';
  * One exam slot on a lane, placed by its start and length: accession, then the time on a line of
  * its own (never cut mid-number: the lane drops the end, then the time, when the block is narrow),
  * procedure and flags. Presentational: the timeline listens for pointer and key events on the
- * lanes and finds the block by `data-exam-id`.
+ * lanes and finds the block by `data-exam-id` (a click or Enter opens the exam, a drag or the
+ * arrow keys move it).
  */
 @Component({
   selector: 'tw-exam-block',
@@ -20,7 +21,7 @@ import type { BlockView } from './lane-view';
     '[attr.tabindex]': '0',
     '[attr.data-exam-id]': 'view().exam.id',
     '[attr.aria-label]': 'view().label',
-    '[attr.aria-describedby]': 'movable() ? "tw-move-hint" : null',
+    '[attr.aria-describedby]': 'movable() ? "tw-move-hint" : "tw-open-hint"',
     '[attr.title]': 'view().label',
     '[class.compact]': 'view().compact',
     '[class.movable]': 'movable()',

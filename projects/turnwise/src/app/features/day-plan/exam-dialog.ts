@@ -19,6 +19,8 @@ export interface ExamDialogData {
   date: string;
   rooms: readonly { id: number; name: string }[];
   exam?: PlanExam | null;
+  /** For a role that may not move slots: the exam's fields shown, nothing to save or cancel. */
+  readOnly?: boolean;
 }
 
 /**
@@ -32,12 +34,15 @@ export interface ExamDialogData {
   imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
-    <h2 mat-dialog-title>{{ exam ? 'Edit ' + exam.accession : 'Add an exam to ' + data.date }}</h2>
+    <h2 mat-dialog-title>{{ readOnly ? exam?.accession : exam ? 'Edit ' + exam.accession : 'Add an exam to ' + data.date }}</h2>
     <form [formGroup]="form" (ngSubmit)="save()" novalidate>
       <mat-dialog-content class="fields">
+        @if (readOnly) {
+          <p class="read-only">Shown read-only: schedulers and charge technologists change the day list.</p>
+        }
         <mat-form-field>
           <mat-label>Accession</mat-label>
-          <input matInput formControlName="accession" required [maxlength]="limits.accessionMaxChars" cdkFocusInitial />
+          <input matInput formControlName="accession" required [maxlength]="limits.accessionMaxChars" [attr.cdkFocusInitial]="readOnly ? null : ''" />
           <mat-error>{{ message('accession') }}</mat-error>
         </mat-form-field>
         <mat-form-field>
@@ -99,17 +104,22 @@ export interface ExamDialogData {
         }
       </mat-dialog-content>
       <mat-dialog-actions align="end">
+        @if (readOnly) {
+          <button mat-flat-button type="button" mat-dialog-close cdkFocusInitial>Close</button>
+        } @else {
         @if (exam) {
           <button mat-button type="button" class="cancel-exam" [disabled]="busy()" (click)="cancelExam()">Cancel exam {{ exam.accession }}</button>
         }
         <button mat-button type="button" mat-dialog-close>Close</button>
         <button mat-flat-button type="submit" class="save" [disabled]="busy()">{{ exam ? 'Save exam' : 'Add exam' }}</button>
+        }
       </mat-dialog-actions>
     </form>
   `,
   styles: `
     .fields { display: grid; grid-template-columns: repeat(auto-fill, minmax(12rem, 1fr)); gap: 0 1rem; }
     .form-error { grid-column: 1 / -1; color: var(--mat-sys-error); }
+    .read-only { grid-column: 1 / -1; margin: 0 0 12px; color: var(--mat-sys-on-surface-variant); }
   `,
 })
 export class ExamDialog {
@@ -117,6 +127,7 @@ export class ExamDialog {
   private readonly ref = inject(MatDialogRef<ExamDialog, PlannedDay>);
   protected readonly data = inject<ExamDialogData>(MAT_DIALOG_DATA);
   protected readonly exam = this.data.exam ?? null;
+  protected readonly readOnly = !!this.data.readOnly && !!this.exam;
   protected readonly limits = EXAM_LIST_LIMITS;
   protected readonly precautions = PRECAUTIONS;
   protected readonly mobilities = MOBILITIES;
@@ -135,6 +146,10 @@ export class ExamDialog {
     contrast: [this.exam?.contrast ?? false],
     notes: [this.exam?.notes ?? ''],
   });
+
+  constructor() {
+    if (this.readOnly) this.form.disable();
+  }
 
   protected readonly saving = action(() => {
     const value = this.form.getRawValue();
