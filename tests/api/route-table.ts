@@ -8,6 +8,8 @@ import { createRoom } from '../../server/services/rooms';
 import { createUser } from '../../server/services/users';
 import { roomInputSchema } from '../../shared/api/rooms';
 import { DEMO_PASSWORD } from '../../seeds/support/demo-accounts';
+import { queueNotices } from '../../server/services/notices/queue';
+import { unsubscribeToken } from '../../server/services/notices/unsubscribe';
 
 export interface RouteCase {
   method: 'get' | 'post' | 'put' | 'patch' | 'delete';
@@ -226,6 +228,18 @@ export const ROUTE_TABLE: RouteCase[] = [
     send: (c) => c.put('/api/profile/password', { currentPassword: DEMO_PASSWORD, newPassword: 'matrix-password-3' }),
   },
   { method: 'get', path: '/api/audit', allowed: ['admin'], send: (c) => c.get('/api/audit?limit=5') },
+  // E-mail notices: one's own choices, the Outbox (admin), the unsubscribe link (no sign-in)
+  { method: 'get', path: '/api/profile/notices', allowed: 'signed-in', send: (c) => c.get('/api/profile/notices') },
+  { method: 'put', path: '/api/profile/notices', allowed: 'signed-in', send: (c) => c.put('/api/profile/notices', { email: 'matrix@example.test', kinds: { 'import-digest': true, 'slot-moves': false } }) },
+  { method: 'get', path: '/api/outbox', allowed: ['admin'], send: (c) => c.get('/api/outbox?limit=5') },
+  { method: 'get', path: '/api/outbox/:id', allowed: ['admin'], prepare: freshNotice, send: (c, id) => c.get(`/api/outbox/${id as number}`) },
+  {
+    method: 'get',
+    path: '/api/notices/unsubscribe',
+    allowed: 'public',
+    prepare: async (h) => unsubscribeToken('test-secret', await freshUser(h), 'slot-moves'),
+    send: (c, token) => c.get(`/api/notices/unsubscribe?token=${encodeURIComponent(token as string)}`),
+  },
 ];
 
 interface Exam {
@@ -306,6 +320,12 @@ async function protocolDraft(h: Harness): Promise<unknown> {
   const productId = await freshProduct(h);
   const today = h.clock.now().toISOString().slice(0, 10);
   return { modality: 'US', effectiveFrom: today, body: { steps: [{ key: 'table', label: 'Couch', handsOnMinutes: 2, disinfects: true, productId }] } };
+}
+
+async function freshNotice(h: Harness): Promise<number> {
+  const key = `matrix-notice-${++counter}`;
+  await queueNotices(h.db, [{ key, kind: 'slot-moves', userId: await freshUser(h), to: 'matrix@example.test', subject: 'Matrix', text: 'x', html: '<p>x</p>', unsubscribeUrl: null }], h.clock.now());
+  return (await h.db('notices').where({ idempotency_key: key }).first('id')).id as number;
 }
 
 async function freshUser(h: Harness): Promise<number> {

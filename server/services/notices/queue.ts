@@ -25,7 +25,7 @@ export async function queueNotices(db: Knex, notices: NewNotice[], now: Date): P
   return db.transaction(async (trx) => {
     let added = 0;
     for (const n of notices) {
-      const inserted = await trx('notices')
+      await trx('notices')
         .insert({
           idempotency_key: n.key.slice(0, 200),
           kind: n.kind,
@@ -42,8 +42,9 @@ export async function queueNotices(db: Knex, notices: NewNotice[], now: Date): P
         })
         .onConflict('idempotency_key')
         .ignore();
-      // better-sqlite3 answers [0] (or []) for an ignored row
-      if (inserted.length > 0 && Number(inserted[0]) > 0) added++;
+      // an ignored row still answers the last rowid, so ask SQLite how many rows the statement added
+      const [{ changed }] = (await trx.raw('select changes() as changed')) as { changed: number }[];
+      added += changed;
     }
     return added;
   });
