@@ -8,10 +8,10 @@ import { exampleExam, exampleGap, exampleRoom } from './testing/example-plan';
 const room = exampleRoom([exampleExam(1, '08:00', '08:30')], [exampleGap(null, 1, 'fits', { availableMinutes: 60, requiredMinutes: 7 })]);
 const scale = { startMs: Date.parse('2027-03-15T07:00:00-05:00'), endMs: Date.parse('2027-03-15T19:00:00-05:00'), pxPerMinute: 4, widthPx: 2880 };
 
-async function lane(drawn: boolean): Promise<HTMLElement> {
+async function lane(drawn: boolean, shown = room): Promise<HTMLElement> {
   TestBed.configureTestingModule({ imports: [RoomLane], providers: [provideIcons()] });
   const fixture = TestBed.createComponent(RoomLane);
-  fixture.componentRef.setInput('room', room);
+  fixture.componentRef.setInput('room', shown);
   fixture.componentRef.setInput('scale', scale);
   fixture.componentRef.setInput('drawn', drawn);
   await fixture.whenStable();
@@ -31,5 +31,17 @@ describe('RoomLane', () => {
     expect(page.querySelectorAll('tw-exam-block, tw-gap-marker')).toHaveLength(0);
     expect(page.querySelector('.header')!.textContent).toContain('MR 1');
     expect(page.querySelector('.header')!.getAttribute('tabindex')).toBe('0');
+  });
+
+  it("says a room has no protocol (and draws its exams without gaps) instead of numbers", async () => {
+    const message = 'No protocol for CT: set one up in Setup';
+    const page = await lane(true, exampleRoom([exampleExam(1, '08:00', '08:30')], [], { modality: 'CT', protocol: null, message }));
+    expect(page.querySelector('.no-protocol')!.textContent!.trim()).toBe(message);
+    expect(page.querySelectorAll('tw-exam-block')).toHaveLength(1);
+    expect(page.querySelectorAll('tw-gap-marker')).toHaveLength(0);
+  });
+
+  it('says nothing of protocols when the room has one', async () => {
+    expect((await lane(true)).querySelector('.no-protocol')).toBeNull();
   });
 });
