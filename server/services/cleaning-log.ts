@@ -75,7 +75,10 @@ export type LoggedEntry = LogEntry & { turnoverId: number | null };
 export async function listLog(db: Knex, filter: LogFilter = {}, limit = 5000): Promise<LoggedEntry[]> {
   const query = db('cleaning_log as l')
     .leftJoin('cleaning_log_contact as c', 'c.entry_id', 'l.id')
-    .select('l.*', 'c.achieved_minutes')
+    // which protocol version the entry's turnover was planned with
+    .leftJoin('turnovers as t', 't.id', 'l.turnover_id')
+    .leftJoin('protocol_versions as pv', 'pv.id', 't.protocol_version_id')
+    .select('l.*', 'c.achieved_minutes', 'pv.modality as protocol_modality', 'pv.version as protocol_version', 'pv.effective_from as protocol_effective_from')
     .orderBy([{ column: 'l.at_ms', order: 'desc' }, { column: 'l.id', order: 'desc' }])
     .limit(limit);
   if (filter.id !== undefined) query.where('l.id', filter.id);
@@ -131,6 +134,9 @@ interface LogRow {
   username: string;
   display_name: string;
   turnover_id: number | null;
+  protocol_modality: string | null;
+  protocol_version: number | null;
+  protocol_effective_from: string | null;
 }
 
 function toLogEntry(row: LogRow): LoggedEntry {
@@ -154,5 +160,9 @@ function toLogEntry(row: LogRow): LoggedEntry {
     username: row.username,
     displayName: row.display_name,
     turnoverId: row.turnover_id,
+    protocol:
+      row.protocol_version === null || row.protocol_version === undefined
+        ? null
+        : { modality: row.protocol_modality!, version: Number(row.protocol_version), effectiveFrom: row.protocol_effective_from! },
   };
 }

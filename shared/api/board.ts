@@ -148,4 +148,6 @@ export interface LogEntry {
   correctsId: number | null;
   username: string;
   displayName: string;
+  /** The protocol version the entry's turnover was planned with (null: none recorded, e.g. a shift task). */
+  protocol?: { modality: string; version: number; effectiveFrom: string } | null;
 }

@@ -196,6 +196,9 @@ describe('Setup: products and versioned protocols', () => {
       expect(checklist.body.protocol).toMatchObject({ modality: 'MR', version: 1 });
       const clear = checklist.body.steps.find((s: { key: string }) => s.key === 'clear');
       expect(clear.handsOnMinutes).toBe(body.steps.find((s) => s.key === 'clear')!.handsOnMinutes);
+      // and the cleaning log says which version its turnover followed
+      const log = await tech.get(`/api/log?date=${TODAY}&roomId=${mr1.id}`);
+      expect(log.body.entries.find((e: { kind: string }) => e.kind === 'exam finished').protocol).toEqual({ modality: 'MR', version: 1, effectiveFrom: '2020-01-01' });
     });
 
     it('previews a draft: required minutes before → after per gap type and the gaps whose verdict would change', async () => {
