@@ -28,6 +28,7 @@ export const routes: Routes = [
       screenRoute('turnover', () => import('./features/turnover/turnover.routes')),
       screenRoute('reports', () => import('./features/reports/reports.routes')),
       screenRoute('setup', () => import('./features/setup/setup.routes')),
+      screenRoute('outbox', () => import('./features/outbox/outbox.routes')),
       {
         // every role's own account (the user menu); not a screen of the navigation
         path: 'profile',

@@ -24,6 +24,7 @@ export const SCREENS: readonly Screen[] = [
   { path: 'turnover', label: 'Turnover', icon: 'cleaning_services', roles: ['tech', 'charge', 'admin'] },
   { path: 'reports', label: 'Reports', icon: 'bar_chart', roles: ['charge', 'admin'] },
   { path: 'setup', label: 'Setup', icon: 'settings', roles: ['admin'] },
+  { path: 'outbox', label: 'Outbox', icon: 'outbox', roles: ['admin'] },
 ];
 
 const ROLE_LABELS: Record<Role, string> = {

@@ -12,6 +12,7 @@ import error from '@material-design-icons/svg/outlined/error.svg';
 import info from '@material-design-icons/svg/outlined/info.svg';
 import logout from '@material-design-icons/svg/outlined/logout.svg';
 import meetingRoom from '@material-design-icons/svg/outlined/meeting_room.svg';
+import outbox from '@material-design-icons/svg/outlined/outbox.svg';
 import menu from '@material-design-icons/svg/outlined/menu.svg';
 import settings from '@material-design-icons/svg/outlined/settings.svg';
 import uploadFile from '@material-design-icons/svg/outlined/upload_file.svg';
@@ -83,6 +84,7 @@ export const ICONS: IconSet = {
   logout,
   meeting_room: meetingRoom,
   menu,
+  outbox,
   settings,
   upload_file: uploadFile,
   view_timeline: viewTimeline,
