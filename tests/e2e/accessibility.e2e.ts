@@ -88,7 +88,15 @@ const VIEWS: Record<string, View[]> = {
       loaded: (page) => page.getByRole('table', { name: 'Cleaning log entries' }).waitFor(),
     },
   ],
-  reports: [{ name: 'reports', url: '/reports', heading: 'Reports', loaded: async () => undefined }],
+  reports: [
+    {
+      name: 'reports',
+      url: '/reports',
+      heading: 'Reports',
+      // the seeded day's plan is in the default range: room use and gaps have rows and charts
+      loaded: (page) => page.getByRole('region', { name: 'Room use' }).locator('tbody tr').first().waitFor(),
+    },
+  ],
   setup: ['rooms', 'equipment', 'users', 'site', 'audit'].map((tab) => ({
     name: `setup-${tab}`,
     url: `/setup?tab=${tab}`,
