@@ -1,5 +1,5 @@
 import { provideHttpClient } from '@angular/common/http';
-import { provideHttpClientTesting } from '@angular/common/http/testing';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
 
@@ -8,8 +8,8 @@ import { provideIcons } from './icons';
 import { Shell } from './shell';
 import { ShellChrome } from './shell-chrome';
 
-async function render() {
-  const { fake, provider } = fakeAuth({ username: 'casey', role: 'charge' });
+async function render(role: 'charge' | 'admin' = 'charge') {
+  const { fake, provider } = fakeAuth({ username: 'casey', role });
   TestBed.configureTestingModule({
     imports: [Shell],
     providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting(), provideIcons(), provider],
@@ -51,5 +51,22 @@ describe('Shell', () => {
     expect(page.querySelector('header')).toBeNull();
     expect(page.querySelector('mat-sidenav')!.classList).not.toContain('mat-drawer-opened');
     expect(page.querySelector('main#main')).not.toBeNull();
+  });
+
+  it('shows an admin what setup still lacks; other roles fetch nothing', async () => {
+    const charge = await render('charge');
+    await new Promise((resolve) => setTimeout(resolve));
+    await charge.fixture.whenStable();
+    TestBed.inject(HttpTestingController).expectNone('/api/setup/checklist');
+    TestBed.resetTestingModule();
+
+    const admin = await render('admin');
+    await new Promise((resolve) => setTimeout(resolve));
+    await admin.fixture.whenStable();
+    TestBed.inject(HttpTestingController)
+      .expectOne('/api/setup/checklist')
+      .flush({ complete: false, items: [{ key: 'products', done: false, missing: ['no disinfectant product yet'] }] });
+    await admin.fixture.whenStable();
+    expect(admin.page.querySelector('main')!.textContent).toContain('no disinfectant product yet');
   });
 });

@@ -6,10 +6,11 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatSidenavModule } from '@angular/material/sidenav';
 import { MatToolbarModule } from '@angular/material/toolbar';
-import { Router, RouterLink, RouterOutlet } from '@angular/router';
-import { map } from 'rxjs';
+import { NavigationEnd, Router, RouterLink, RouterOutlet } from '@angular/router';
+import { filter, map } from 'rxjs';
 
 import { AuthService } from '../auth/auth-service';
+import { SetupChecklist } from '../../features/setup/setup-checklist';
 import { ErrorNotice } from '../http/error-notice';
 import { roleLabel } from '../auth/roles';
 import { ICONS } from './icons';
@@ -24,7 +25,7 @@ const NARROW = '(max-width: 999.98px)';
 /** The signed-in frame: toolbar, screen navigation and the current screen. */
 @Component({
   selector: 'tw-shell',
-  imports: [MatToolbarModule, MatSidenavModule, MatButtonModule, MatIconModule, MatMenuModule, RouterLink, RouterOutlet, Logo, Nav],
+  imports: [MatToolbarModule, MatSidenavModule, MatButtonModule, MatIconModule, MatMenuModule, RouterLink, RouterOutlet, Logo, Nav, SetupChecklist],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './shell.html',
   styleUrl: './shell.scss',
@@ -44,6 +45,19 @@ export class Shell {
     const user = this.user();
     return user ? roleLabel(user.role) : '';
   });
+
+  private readonly url = toSignal(
+    this.router.events.pipe(
+      filter((event) => event instanceof NavigationEnd),
+      map(() => this.router.url),
+    ),
+    { initialValue: this.router.url },
+  );
+  /**
+   * An admin sees what setup still lacks wherever they land (a new department's first sign-in),
+   * except on Setup, which shows it itself. Loaded lazily: other roles never fetch it.
+   */
+  protected readonly setupChecklist = computed(() => this.user()?.role === 'admin' && !this.url().startsWith('/setup') && !this.chromeHidden());
 
   constructor() {
     // Every screen renders inside the shell, so its icons are in place before any screen draws.

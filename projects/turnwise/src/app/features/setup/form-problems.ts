@@ -1,5 +1,6 @@
 import type { WritableSignal } from '@angular/core';
-import type { AbstractControl, FormGroup } from '@angular/forms';
+import type { AbstractControl, FormGroup, ValidatorFn } from '@angular/forms';
+import type { ZodType } from 'zod';
 
 import type { ApiError } from '@shared/api/errors';
 import type { Action } from '../../core/state/action';
@@ -37,6 +38,7 @@ export function fieldMessage(control: AbstractControl | null): string {
   const errors = control?.errors;
   if (!errors) return '';
   if (typeof errors['server'] === 'string') return errors['server'];
+  if (typeof errors['schema'] === 'string') return errors['schema'];
   if (errors['required']) return 'required';
   if (errors['minlength']) return `use at least ${errors['minlength'].requiredLength} characters`;
   if (errors['maxlength']) return `use at most ${errors['maxlength'].requiredLength} characters`;
@@ -67,4 +69,23 @@ export async function submitForm<T>(form: FormGroup, saving: Action<[], T>, form
   if (result.status === 'done') return { value: result.value };
   formError.set(showProblems(form, result.error) ?? invalidText);
   return null;
+}
+
+/**
+ * A field checked by the API's own zod schema for it, so the form refuses what the server would,
+ * in the same words (`{schema: message}`, shown by {@link fieldMessage}).
+ *
+ * @example
+ * contactMinutes: [3, schemaValidator(productInputSchema.shape.contactMinutes)]
+ */
+export function schemaValidator(schema: ZodType, read: (value: unknown) => unknown = (v) => v): ValidatorFn {
+  return (control) => {
+    const result = schema.safeParse(read(control.value));
+    return result.success ? null : { schema: result.error.issues[0]?.message ?? 'check this value' };
+  };
+}
+
+/** A number input's value for a schema: '' and null are "not given", anything else a number. */
+export function numberOrNull(value: unknown): number | null {
+  return value === '' || value === null || value === undefined ? null : Number(value);
 }

@@ -1,59 +1,11 @@
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { ComponentFixture, TestBed } from '@angular/core/testing';
-import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
-import { MatSnackBar } from '@angular/material/snack-bar';
-import { provideRouter } from '@angular/router';
-import type { Type } from '@angular/core';
-
 import type { EquipmentItem } from '@shared/api/equipment';
 import type { SetupRoom } from '@shared/api/rooms';
-import { provideApiHttp } from '../../core/http/api-http';
-import { provideIcons } from '../../core/layout/icons';
-import { fakeAuth } from '../../../testing/fake-auth';
+import { errorUnder, renderSetup as render, settle, submit, type } from '../../../testing/setup-dialogs';
 import { KitDialog } from './kit-dialog';
 import { RoomDialog } from './room-dialog';
 import { UserDialog } from './user-dialog';
 
 const MR2: SetupRoom = { id: 2, name: 'MR 2', modality: 'MR', airChangesPerHour: 12, staff: 1, opensAt: '07:00', closesAt: '19:00', retired: false, retiredAt: null };
-
-function render<T>(component: Type<T>, data: unknown) {
-  const close = jest.fn();
-  TestBed.configureTestingModule({
-    imports: [component],
-    providers: [
-      provideRouter([]),
-      provideApiHttp(),
-      provideHttpClientTesting(),
-      provideIcons(),
-      fakeAuth({ username: 'admin', role: 'admin' }).provider,
-      { provide: MatDialogRef, useValue: { close } },
-      { provide: MAT_DIALOG_DATA, useValue: data },
-      { provide: MatSnackBar, useValue: { open: jest.fn() } },
-    ],
-  });
-  const fixture = TestBed.createComponent(component);
-  return { fixture, close, backend: TestBed.inject(HttpTestingController), page: fixture.nativeElement as HTMLElement };
-}
-
-async function settle(fixture: ComponentFixture<unknown>): Promise<void> {
-  await new Promise((resolve) => setTimeout(resolve));
-  await fixture.whenStable();
-}
-
-function type(page: HTMLElement, selector: string, value: string): void {
-  const input = page.querySelector<HTMLInputElement>(selector)!;
-  input.value = value;
-  input.dispatchEvent(new Event('input'));
-}
-
-/** The text of the mat-error under the field holding `selector`. */
-function errorUnder(page: HTMLElement, selector: string): string {
-  return page.querySelector(selector)!.closest('mat-form-field')!.querySelector('mat-error')?.textContent?.trim() ?? '';
-}
-
-function submit(page: HTMLElement): void {
-  page.querySelector('form')!.dispatchEvent(new Event('submit'));
-}
 
 describe('RoomDialog', () => {
   it('puts the API’s 422 problems under their fields and stays open', async () => {

@@ -4,7 +4,10 @@ import { Router } from '@angular/router';
 
 import { AuditTab } from './audit-tab';
 import { EquipmentTab } from './equipment-tab';
+import { ProductsTab } from './products-tab';
+import { ProtocolsTab } from './protocols-tab';
 import { RoomsTab } from './rooms-tab';
+import { SetupChecklist } from './setup-checklist';
 import { SiteTab } from './site-tab';
 import { UsersTab } from './users-tab';
 
@@ -12,21 +15,25 @@ import { UsersTab } from './users-tab';
 export const SETUP_TABS = ['rooms', 'equipment', 'users', 'site', 'audit', 'products', 'protocols', 'shift-tasks'] as const;
 export type SetupTabName = (typeof SETUP_TABS)[number];
 
-/** Setup (admin): the department's rooms, equipment, people and site, and the audit of every change. */
+/**
+ * Setup (admin): the department's rooms, equipment, people, site, disinfectant products and
+ * turnover protocols, the audit of every change, and (until done) what is still missing.
+ */
 @Component({
   selector: 'tw-setup',
-  imports: [MatTabsModule, RoomsTab, EquipmentTab, UsersTab, SiteTab, AuditTab],
+  imports: [MatTabsModule, RoomsTab, EquipmentTab, UsersTab, SiteTab, AuditTab, ProductsTab, ProtocolsTab, SetupChecklist],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <h1>Setup</h1>
+    <tw-setup-checklist [refresh]="index()" />
     <mat-tab-group [selectedIndex]="index()" (selectedIndexChange)="open($event)" mat-stretch-tabs="false" animationDuration="0ms">
       <mat-tab label="Rooms"><ng-template matTabContent><tw-rooms-tab /></ng-template></mat-tab>
       <mat-tab label="Equipment"><ng-template matTabContent><tw-equipment-tab /></ng-template></mat-tab>
       <mat-tab label="Users"><ng-template matTabContent><tw-users-tab /></ng-template></mat-tab>
       <mat-tab label="Site"><ng-template matTabContent><tw-site-tab /></ng-template></mat-tab>
       <mat-tab label="Audit"><ng-template matTabContent><tw-audit-tab /></ng-template></mat-tab>
-      <mat-tab label="Products"><ng-template matTabContent><p class="later">Disinfectant products are set up here in a later release.</p></ng-template></mat-tab>
-      <mat-tab label="Protocols"><ng-template matTabContent><p class="later">Protocol steps are set up here in a later release.</p></ng-template></mat-tab>
+      <mat-tab label="Products"><ng-template matTabContent><tw-products-tab /></ng-template></mat-tab>
+      <mat-tab label="Protocols"><ng-template matTabContent><tw-protocols-tab /></ng-template></mat-tab>
       <mat-tab label="Shift tasks"><ng-template matTabContent><p class="later">Shift tasks are set up here in a later release.</p></ng-template></mat-tab>
     </mat-tab-group>
   `,
