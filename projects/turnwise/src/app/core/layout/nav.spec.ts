@@ -34,7 +34,7 @@ describe('Nav', () => {
   });
 
   it('shows an admin every screen', async () => {
-    expect(await linksFor('admin')).toHaveLength(6);
+    expect(await linksFor('admin')).toHaveLength(7);
   });
 
   it('shows nothing when nobody is signed in', async () => {
