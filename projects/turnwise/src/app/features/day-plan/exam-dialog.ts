@@ -3,7 +3,7 @@ import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angula
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
-import { MatFormFieldModule } from '@angular/material/form-field';
+import { MAT_FORM_FIELD_DEFAULT_OPTIONS, MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 
@@ -33,6 +33,9 @@ export interface ExamDialogData {
   selector: 'tw-exam-dialog',
   imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
+  // The import's messages run longer than a field is wide ("Accession "X" is already on the list
+  // for …"): let them wrap under the field instead of being cut at one line.
+  providers: [{ provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { subscriptSizing: 'dynamic' } }],
   template: `
     <h2 mat-dialog-title>{{ readOnly ? exam?.accession : exam ? 'Edit ' + exam.accession : 'Add an exam to ' + data.date }}</h2>
     <form [formGroup]="form" (ngSubmit)="save()" novalidate>
