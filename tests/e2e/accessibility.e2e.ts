@@ -97,7 +97,7 @@ const VIEWS: Record<string, View[]> = {
       loaded: (page) => page.getByRole('region', { name: 'Room use' }).locator('tbody tr').first().waitFor(),
     },
   ],
-  setup: ['rooms', 'equipment', 'users', 'site', 'audit'].map((tab) => ({
+  setup: ['rooms', 'equipment', 'users', 'site', 'audit', 'products', 'protocols'].map((tab) => ({
     name: `setup-${tab}`,
     url: `/setup?tab=${tab}`,
     heading: 'Setup',

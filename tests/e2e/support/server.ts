@@ -7,6 +7,7 @@ import { closeApp, createApp } from '../../../server/app';
 import { fixedClock, systemClock } from '../../../server/clock';
 import { createDb, migrateToLatest } from '../../../server/db';
 import { seedDemo, seedReferenceData } from '../../../server/seeding';
+import { createUser } from '../../../server/services/users';
 
 /**
  * The production build `npm run build` writes; the browser tests drive exactly what ships.
@@ -30,11 +31,18 @@ export interface TestServerOptions {
   now?: Date;
   /** Seed today's demo day list as well as the demo centre (default true). */
   seedDay?: boolean;
+  /**
+   * false: a production-like install from nothing: reference data only (no demo centre, rules or
+   * accounts), demo mode off, and one admin (`firstAdmin`) as `npm run create-admin` makes it.
+   */
+  demo?: boolean;
+  firstAdmin?: { username: string; password: string };
 }
 
 /**
  * The real server on a random local port: a temp SQLite file, migrated, seeded with the
- * reference data and the invented demo centre, serving the built client in demo mode.
+ * reference data and the invented demo centre, serving the built client in demo mode (or, with
+ * `demo: false`, a new department with nothing but its first admin).
  */
 export async function startTestServer(options: TestServerOptions = {}): Promise<TestServer> {
   if (!fs.existsSync(path.join(CLIENT_DIR, 'index.html'))) {
@@ -47,13 +55,15 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
   const clock = settable ?? systemClock;
   await migrateToLatest(db);
   await seedReferenceData(db);
-  await seedDemo(db, clock.now(), { day: options.seedDay ?? true });
+  const demo = options.demo ?? true;
+  if (demo) await seedDemo(db, clock.now(), { day: options.seedDay ?? true });
+  else if (options.firstAdmin) await createUser(db, { ...options.firstAdmin, role: 'admin', displayName: 'Administrator' }, clock.now());
 
   const app = createApp({
     db,
     clock,
     clientDir: CLIENT_DIR,
-    demo: true,
+    demo,
     sessionSecret: 'e2e',
     logError: console.error,
   });

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, ElementRef, Injector, afterNextRender, inject, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, ElementRef, Injector, afterNextRender, computed, inject, input } from '@angular/core';
 import { FormArray, NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
@@ -32,6 +32,8 @@ export class ProtocolSteps {
   /** "Turnover step" or "Opening step": names the buttons and the list. */
   readonly noun = input.required<string>();
   readonly products = input.required<readonly ProductView[]>();
+  /** Ids unique per list (a dialog holds the turnover's and the opening's). */
+  protected readonly idPrefix = computed(() => this.noun().toLowerCase().replace(/\W+/g, '-'));
   protected readonly handsOn = HANDS_ON_MINUTES;
   protected readonly dry = DRY_MINUTES;
   protected readonly mobilities = MOBILITY_OPTIONS;
