@@ -72,6 +72,8 @@ import arrowForward from '@material-design-icons/svg/outlined/arrow_forward.svg'
 // Gap verdict "fits" (a check of its own: ready's is check_circle); the exam block's menu.
 import done from '@material-design-icons/svg/outlined/done.svg';
 import moreVert from '@material-design-icons/svg/outlined/more_vert.svg';
+// The day sheet: printing it.
+import print from '@material-design-icons/svg/outlined/print.svg';
 
 /** Every icon drawn under the shell: its toolbar and navigation, the screens and their shared pieces. */
 export const ICONS: IconSet = {
@@ -137,6 +139,7 @@ export const ICONS: IconSet = {
   arrow_forward: arrowForward,
   done,
   more_vert: moreVert,
+  print,
 };
 
 /** Registers a set of icons (by default every icon in ICONS) when an injector is created: for specs. */
