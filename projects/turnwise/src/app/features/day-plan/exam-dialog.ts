@@ -120,7 +120,7 @@ export interface ExamDialogData {
     </form>
   `,
   styles: `
-    .fields { display: grid; grid-template-columns: repeat(auto-fill, minmax(12rem, 1fr)); gap: 0 1rem; }
+    .fields { display: grid; grid-template-columns: repeat(auto-fill, minmax(12rem, 1fr)); gap: 0 1rem; align-items: start; }
     .form-error { grid-column: 1 / -1; color: var(--mat-sys-error); }
     .read-only { grid-column: 1 / -1; margin: 0 0 12px; color: var(--mat-sys-on-surface-variant); }
   `,
