@@ -13,6 +13,7 @@ import { homeFor, roleLabel } from '../../core/auth/roles';
 import { showsOwnErrors } from '../../core/http/shows-own-errors';
 import { action } from '../../core/state/action';
 import { fieldMessage, showProblems } from '../setup/form-problems';
+import { NoticeSettings } from './notice-settings';
 
 /** Both new-password fields must agree (client-side only: the API gets one). */
 function sameAsNew(control: AbstractControl): ValidationErrors | null {
@@ -20,10 +21,13 @@ function sameAsNew(control: AbstractControl): ValidationErrors | null {
   return form && control.value !== form.get('newPassword')?.value ? { mismatch: true } : null;
 }
 
-/** Every user's own account: who they are, and changing their password (required after a reset). */
+/**
+ * Every user's own account: who they are, changing their password (required after a reset; until
+ * then nothing else shows), their e-mail notices and their calendar feeds.
+ */
 @Component({
   selector: 'tw-profile',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule],
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, NoticeSettings],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <h1>Your profile</h1>
@@ -63,6 +67,9 @@ function sameAsNew(control: AbstractControl): ValidationErrors | null {
       }
       <div><button mat-flat-button type="submit" [disabled]="saving.pending()">Change password</button></div>
     </form>
+    @if (!auth.user()?.mustChangePassword) {
+      <tw-notice-settings />
+    }
   `,
   styles: `
     :host { display: block; max-width: 520px; }
