@@ -11,6 +11,7 @@ import { createDb, migrateToLatest } from '../../server/db';
 import { seedReferenceData } from '../../server/seeding';
 import { createRoom } from '../../server/services/rooms';
 import { toEngineProtocol } from '../../server/services/site-setup';
+import { DayEvents } from '../../server/services/day-events';
 import { createUser } from '../../server/services/users';
 import { roomInputSchema } from '../../shared/api/rooms';
 import { signedIn, startHarness, type Client, type Harness } from './harness';
@@ -26,8 +27,9 @@ const fields = (res: request.Response) => (res.body.error.details.problems as Pr
 describe('Setup: products and versioned protocols', () => {
   let h: Harness;
   let admin: Client;
+  const events = new DayEvents();
   beforeAll(async () => {
-    h = await startHarness({ seedDay: true, now: '2027-03-10T14:00:00Z' });
+    h = await startHarness({ seedDay: true, now: '2027-03-10T14:00:00Z', events });
     admin = await signedIn(h.app, 'admin');
   }, 30_000);
   afterAll(() => h.close(), 30_000);
@@ -150,8 +152,13 @@ describe('Setup: products and versioned protocols', () => {
 
       const body = await currentBody('MR');
       const slower = { ...body, steps: body.steps.map((s) => (s.key === 'clear' ? { ...s, handsOnMinutes: s.handsOnMinutes + 6 } : s)) };
+      const published: string[] = [];
+      const stop = events.subscribe(TODAY, (e) => published.push(`${e.kind}:${e.reason}`));
       const saved = await admin.post('/api/protocols', { modality: 'MR', effectiveFrom: TOMORROW, note: 'linen bagging', body: slower });
+      stop();
       expect(saved.status).toBe(201);
+      // every open day screen fetches its plan and board again
+      expect(published).toEqual(['plan:setup', 'board:setup']);
       expect(saved.body.protocol).toMatchObject({ modality: 'MR', version: 2, effectiveFrom: TOMORROW, createdBy: { username: 'admin' } });
 
       const today = await plan(TODAY);
