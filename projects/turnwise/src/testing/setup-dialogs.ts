@@ -5,6 +5,7 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { provideRouter } from '@angular/router';
 import type { Type } from '@angular/core';
 
+import type { ProductView } from '@shared/api/protocols';
 import { provideApiHttp } from '../app/core/http/api-http';
 import { provideIcons } from '../app/core/layout/icons';
 import { fakeAuth } from './fake-auth';
@@ -60,3 +61,18 @@ export function button(page: HTMLElement, text: string): HTMLButtonElement {
 export function refusal(problems: { field: string; message: string }[], message = 'Invalid request') {
   return [{ error: { code: 'validation_failed', message, details: { problems } } }, { status: 422, statusText: 'Unprocessable' }] as const;
 }
+
+/** An invented disinfectant, 2 min label contact time, used by the CT protocol. */
+export const QUAT_WIPE: ProductView = {
+  id: 4,
+  key: '4',
+  name: 'Quat wipe (invented)',
+  kind: 'standard',
+  contactMinutes: 2,
+  staysWetMinutes: null,
+  registration: 'DEMO-0000-1',
+  notes: '',
+  retired: false,
+  applications: 1,
+  usedBy: ['CT', 'MR'],
+};

@@ -2,24 +2,10 @@ import { TestBed } from '@angular/core/testing';
 import { MatDialog } from '@angular/material/dialog';
 import { of } from 'rxjs';
 
-import { SHORT_CONTACT_CAUTION, type EffectPreview, type ProductView } from '@shared/api/protocols';
-import { button, errorUnder, refusal, renderSetup, settle, submit, type } from '../../../testing/setup-dialogs';
+import { SHORT_CONTACT_CAUTION, type EffectPreview } from '@shared/api/protocols';
+import { QUAT_WIPE as WIPE, button, errorUnder, refusal, renderSetup, settle, submit, type } from '../../../testing/setup-dialogs';
 import { ProductDialog } from './product-dialog';
 import { ProductsTab } from './products-tab';
-
-const WIPE: ProductView = {
-  id: 4,
-  key: '4',
-  name: 'Quat wipe (invented)',
-  kind: 'standard',
-  contactMinutes: 2,
-  staysWetMinutes: null,
-  registration: 'DEMO-0000-1',
-  notes: '',
-  retired: false,
-  applications: 1,
-  usedBy: ['CT', 'MR'],
-};
 
 const CONTACT = 'input[formcontrolname="contactMinutes"]';
 const STAYS_WET = 'input[formcontrolname="staysWetMinutes"]';

@@ -1,20 +1,6 @@
-import { protocolBodySchema, type ProductView } from '@shared/api/protocols';
-import { button, errorUnder, refusal, renderSetup, settle, submit, type } from '../../../testing/setup-dialogs';
+import { protocolBodySchema } from '@shared/api/protocols';
+import { QUAT_WIPE as WIPE, button, errorUnder, refusal, renderSetup, settle, submit, type } from '../../../testing/setup-dialogs';
 import { ProtocolEditor, type ProtocolEditorData } from './protocol-editor';
-
-const WIPE: ProductView = {
-  id: 4,
-  key: '4',
-  name: 'Quat wipe (invented)',
-  kind: 'standard',
-  contactMinutes: 2,
-  staysWetMinutes: null,
-  registration: '',
-  notes: '',
-  retired: false,
-  applications: 1,
-  usedBy: ['CT'],
-};
 
 const CT = protocolBodySchema.parse({
   steps: [
@@ -54,6 +40,10 @@ async function choose(fixture: Parameters<typeof settle>[0], within: HTMLElement
   choice.click();
   await settle(fixture);
 }
+
+// The editor's first render (two step lists, four precautions, many Material selects) takes
+// seconds on a loaded machine: the whole-run limit (30 s), also when this project runs alone.
+jest.setTimeout(30_000);
 
 describe('ProtocolEditor', () => {
   beforeAll(() => {

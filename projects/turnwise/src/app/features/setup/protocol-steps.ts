@@ -37,6 +37,11 @@ export class ProtocolSteps {
   protected readonly handsOn = HANDS_ON_MINUTES;
   protected readonly dry = DRY_MINUTES;
   protected readonly mobilities = MOBILITY_OPTIONS;
+  /** The yes/no conditions, each as any / only then / only without. */
+  protected readonly yesNo = [
+    { name: 'contrast', label: 'Contrast exam next' },
+    { name: 'coilChange', label: 'Coil change' },
+  ] as const;
   protected readonly precautions = PRECAUTION_OPTIONS;
 
   protected message(control: StepGroup['controls'][keyof StepGroup['controls']] | FormArray<StepGroup>): string {

@@ -58,6 +58,15 @@ export class ProtocolView {
     return found ? `${found.name} (${found.contactMinutes} min contact)` : `product ${id}`;
   }
 
+  /** "2 min hands-on, disinfects with …, then 1 min dry". */
+  protected summary(step: ProtocolStepFields): string {
+    const parts = [`${step.handsOnMinutes} min hands-on`];
+    if (step.disinfects) parts.push(`disinfects with ${this.product(step.productId)}`);
+    if (step.dryMinutes > 0) parts.push(`then ${step.dryMinutes} min dry`);
+    if (step.afterAllOthers) parts.push('after every other step');
+    return parts.join(', ');
+  }
+
   protected needs(step: ProtocolStepFields, steps: readonly ProtocolStepFields[]): string[] {
     return step.needs.map((need) => {
       const label = steps.find((s) => s.key === need.key)?.label ?? need.key;
