@@ -17,6 +17,13 @@ export const routes: Routes = [
     loadComponent: () => import('./features/sign-in/sign-in').then((m) => m.SignIn),
   },
   {
+    // Outside the shell: the printed day has no toolbar or navigation and flows onto paper whole.
+    path: 'day/:date/sheet',
+    title: 'Day sheet',
+    canActivate: [authGuard, roleGuard(screen('day').roles)],
+    loadComponent: () => import('./features/day-sheet/day-sheet').then((m) => m.DaySheet),
+  },
+  {
     path: '',
     loadComponent: () => import('./core/layout/shell').then((m) => m.Shell),
     canActivate: [authGuard],
