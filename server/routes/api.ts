@@ -9,6 +9,7 @@ import { dayChangeRoutes } from './day-changes';
 import { dayRoutes } from './days';
 import { examRoutes } from './exams';
 import { boardRoutes } from './board';
+import { calendarFeedRoutes, calendarTokenRoutes } from './calendar';
 import { examProgressRoutes } from './exam-progress';
 import { logRoutes } from './log';
 import { shiftTaskRoutes } from './shift-tasks';
@@ -68,10 +69,13 @@ export function apiRoutes(deps: ApiDeps): Router {
   router.use('/setup', setupRoutes(deps));
   router.use('/users', userRoutes(deps));
   router.use('/profile/notices', noticePreferenceRoutes(deps));
+  router.use('/profile/calendar', calendarTokenRoutes({ ...deps, calendar: deps.notices.context }));
   router.use('/profile', profileRoutes(deps));
   router.use('/audit', auditRoutes(deps));
   // E-mail notices: the Outbox (admin) and the unsubscribe link (no sign-in)
   router.use('/outbox', outboxRoutes(deps));
   router.use('/notices', unsubscribeRoutes(deps));
+  // Calendar feeds: fetched by calendar apps with the token in the path (no sign-in)
+  router.use('/calendar', calendarFeedRoutes({ ...deps, calendar: deps.notices.context }));
   return router;
 }

@@ -10,6 +10,7 @@ import { roomInputSchema } from '../../shared/api/rooms';
 import { DEMO_PASSWORD } from '../../seeds/support/demo-accounts';
 import { queueNotices } from '../../server/services/notices/queue';
 import { unsubscribeToken } from '../../server/services/notices/unsubscribe';
+import { rotateFeedToken } from '../../server/services/calendar/tokens';
 
 export interface RouteCase {
   method: 'get' | 'post' | 'put' | 'patch' | 'delete';
@@ -239,6 +240,24 @@ export const ROUTE_TABLE: RouteCase[] = [
     allowed: 'public',
     prepare: async (h) => unsubscribeToken('test-secret', await freshUser(h), 'slot-moves'),
     send: (c, token) => c.get(`/api/notices/unsubscribe?token=${encodeURIComponent(token as string)}`),
+  },
+  // Calendar feeds: one's own addresses (signed in); the feeds themselves by token (no sign-in)
+  { method: 'get', path: '/api/profile/calendar', allowed: 'signed-in', send: (c) => c.get('/api/profile/calendar') },
+  { method: 'post', path: '/api/profile/calendar/rotate', allowed: 'signed-in', send: (c) => c.post('/api/profile/calendar/rotate', {}) },
+  { method: 'delete', path: '/api/profile/calendar', allowed: 'signed-in', send: (c) => c.delete('/api/profile/calendar') },
+  {
+    method: 'get',
+    path: '/api/calendar/:token/mine.ics',
+    allowed: 'public',
+    prepare: async (h) => rotateFeedToken(h.db, await freshUser(h), h.clock.now()),
+    send: (c, token) => c.get(`/api/calendar/${token as string}/mine.ics`),
+  },
+  {
+    method: 'get',
+    path: '/api/calendar/:token/rooms/:roomId.ics',
+    allowed: 'public',
+    prepare: async (h) => ({ token: await rotateFeedToken(h.db, await freshUser(h), h.clock.now()), roomId: (await h.db('rooms').where({ active: true }).first('id')).id as number }),
+    send: (c, p) => c.get(`/api/calendar/${(p as { token: string }).token}/rooms/${(p as { roomId: number }).roomId}.ics`),
   },
 ];
 
