@@ -55,9 +55,12 @@ export class Shell {
   );
   /**
    * An admin sees what setup still lacks wherever they land (a new department's first sign-in),
-   * except on Setup, which shows it itself. Loaded lazily: other roles never fetch it.
+   * except on Setup, which shows it itself, and on the profile (a reset password is changed
+   * first; nothing else answers until then). Loaded lazily: other roles never fetch it.
    */
-  protected readonly setupChecklist = computed(() => this.user()?.role === 'admin' && !this.url().startsWith('/setup') && !this.chromeHidden());
+  protected readonly setupChecklist = computed(
+    () => this.user()?.role === 'admin' && !/^\/(setup|profile)\b/.test(this.url()) && !this.chromeHidden(),
+  );
 
   constructor() {
     // Every screen renders inside the shell, so its icons are in place before any screen draws.
