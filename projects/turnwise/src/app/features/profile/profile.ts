@@ -13,6 +13,7 @@ import { homeFor, roleLabel } from '../../core/auth/roles';
 import { showsOwnErrors } from '../../core/http/shows-own-errors';
 import { action } from '../../core/state/action';
 import { fieldMessage, showProblems } from '../setup/form-problems';
+import { CalendarFeeds } from './calendar-feeds';
 import { NoticeSettings } from './notice-settings';
 
 /** Both new-password fields must agree (client-side only: the API gets one). */
@@ -27,7 +28,7 @@ function sameAsNew(control: AbstractControl): ValidationErrors | null {
  */
 @Component({
   selector: 'tw-profile',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, NoticeSettings],
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, NoticeSettings, CalendarFeeds],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <h1>Your profile</h1>
@@ -69,6 +70,7 @@ function sameAsNew(control: AbstractControl): ValidationErrors | null {
     </form>
     @if (!auth.user()?.mustChangePassword) {
       <tw-notice-settings />
+      <tw-calendar-feeds />
     }
   `,
   styles: `
