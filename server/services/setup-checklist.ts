@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import type { SetupChecklist, SetupChecklistItem } from '../../shared/api/protocols';
-import { ROLES } from '../../shared/api/auth';
+import { ROLE_LABELS, ROLES } from '../../shared/api/auth';
 import { listProtocols } from './protocols';
 
 /** What a new department still has to set up before the plan can use its own rules. */
@@ -20,7 +20,7 @@ export async function setupChecklist(db: Knex, now: Date): Promise<SetupChecklis
       done: protocols.missing.length === 0 && protocols.protocols.some((p) => p.current),
       missing: protocols.missing.length > 0 ? protocols.missing.map((m) => `a protocol for ${m} (or a * fallback)`) : protocols.protocols.some((p) => p.current) ? [] : ['at least one protocol'],
     },
-    { key: 'users', done: ROLES.every((r) => roles.has(r)), missing: ROLES.filter((r) => !roles.has(r)).map((r) => `a ${r} account`) },
+    { key: 'users', done: ROLES.every((r) => roles.has(r)), missing: ROLES.filter((r) => !roles.has(r)).map((r) => `no ${ROLE_LABELS[r].toLowerCase()} account`) },
   ];
   return { complete: items.every((i) => i.done), items };
 }

@@ -2,6 +2,15 @@
 export const ROLES = ['admin', 'scheduler', 'charge', 'tech', 'frontdesk'] as const;
 export type Role = (typeof ROLES)[number];
 
+/** Each role as people read it, e.g. "Charge technologist"; the client and the server's messages say the same. */
+export const ROLE_LABELS: Readonly<Record<Role, string>> = {
+  admin: 'Admin',
+  scheduler: 'Scheduler',
+  charge: 'Charge technologist',
+  tech: 'Technologist',
+  frontdesk: 'Front desk',
+};
+
 export interface SessionUser {
   username: string;
   role: Role;

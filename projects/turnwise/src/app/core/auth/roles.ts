@@ -1,4 +1,4 @@
-import { ROLES, Role, SessionUser } from '@shared/api/auth';
+import { ROLE_LABELS, ROLES, Role, SessionUser } from '@shared/api/auth';
 
 // Roles and the user shape are the API's (shared with the server); the client only adds which
 // screens each role is offered. The server enforces access on every route regardless.
@@ -26,14 +26,6 @@ export const SCREENS: readonly Screen[] = [
   { path: 'setup', label: 'Setup', icon: 'settings', roles: ['admin'] },
   { path: 'outbox', label: 'Outbox', icon: 'outbox', roles: ['admin'] },
 ];
-
-const ROLE_LABELS: Record<Role, string> = {
-  admin: 'Admin',
-  scheduler: 'Scheduler',
-  charge: 'Charge technologist',
-  tech: 'Technologist',
-  frontdesk: 'Front desk',
-};
 
 /** The role as people read it, e.g. "Charge technologist". */
 export function roleLabel(role: Role): string {
