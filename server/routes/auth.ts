@@ -147,9 +147,13 @@ export function authRoutes(deps: AuthDeps): Router {
     res.json({ user: publicUser(req.user!) });
   });
 
+  // Outside demo mode there are none: 204, so a production sign-in page logs no failed request.
   router.get('/demo-accounts', async (_req, res) => {
     const demo = deps.demo ? await listDemoAccounts(deps.db) : null;
-    if (!demo) throw new NotFoundError('Demo accounts exist only in demo mode.');
+    if (!demo) {
+      res.status(204).end();
+      return;
+    }
     res.json(demo);
   });
 

@@ -130,7 +130,9 @@ describe('auth API', () => {
     expect((await request(h.app).get('/api/auth/demo-accounts')).body.accounts.map((a: { username: string }) => a.username)).not.toContain('tech');
     await h.close();
     h = await startHarness({ demo: false });
-    expect((await request(h.app).get('/api/auth/demo-accounts')).status).toBe(404);
+    const none = await request(h.app).get('/api/auth/demo-accounts');
+    expect(none.status).toBe(204);
+    expect(none.text).toBe('');
   });
 
   it('answers unknown API routes with a JSON 404', async () => {

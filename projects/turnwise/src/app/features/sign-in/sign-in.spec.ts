@@ -49,7 +49,7 @@ describe('SignIn', () => {
 
   it('renders labelled username and password fields and a submit button', async () => {
     const { page, backend } = await render();
-    backend.expectOne(DEMO_URL).flush(null, { status: 404, statusText: 'Not Found' });
+    backend.expectOne(DEMO_URL).flush(null, { status: 204, statusText: 'No Content' });
     const labels = Array.from(page.querySelectorAll('mat-label')).map((label) => label.textContent?.trim());
     expect(labels).toEqual(['Username', 'Password']);
     expect(page.querySelector('input[type="password"]')).not.toBeNull();
@@ -58,13 +58,13 @@ describe('SignIn', () => {
 
   it('draws its own icons, before the shell that registers the others has loaded', async () => {
     const { page, backend } = await render();
-    backend.expectOne(DEMO_URL).flush(null, { status: 404, statusText: 'Not Found' });
+    backend.expectOne(DEMO_URL).flush(null, { status: 204, statusText: 'No Content' });
     expect(page.querySelector('button[type="submit"] mat-icon svg')).not.toBeNull();
   });
 
   it('submits the credentials and goes to the role home', async () => {
     const setup = await render();
-    setup.backend.expectOne(DEMO_URL).flush(null, { status: 404, statusText: 'Not Found' });
+    setup.backend.expectOne(DEMO_URL).flush(null, { status: 204, statusText: 'No Content' });
     const request = await submitAs(setup, 'frankie', 'pw');
     expect(request.request.body).toEqual({ username: 'frankie', password: 'pw' });
     request.flush({ user: { username: 'frankie', role: 'frontdesk' } });
@@ -74,7 +74,7 @@ describe('SignIn', () => {
 
   it('goes back to the return address after signing in', async () => {
     const setup = await render('/reports?month=2027-03');
-    setup.backend.expectOne(DEMO_URL).flush(null, { status: 404, statusText: 'Not Found' });
+    setup.backend.expectOne(DEMO_URL).flush(null, { status: 204, statusText: 'No Content' });
     (await submitAs(setup, 'casey', 'pw')).flush({ user: { username: 'casey', role: 'charge' } });
     await settle(setup.fixture);
     expect(setup.navigate).toHaveBeenCalledWith('/reports?month=2027-03');
@@ -82,7 +82,7 @@ describe('SignIn', () => {
 
   it('ignores a return address that leaves the site', async () => {
     const setup = await render('//elsewhere.example/phish');
-    setup.backend.expectOne(DEMO_URL).flush(null, { status: 404, statusText: 'Not Found' });
+    setup.backend.expectOne(DEMO_URL).flush(null, { status: 204, statusText: 'No Content' });
     (await submitAs(setup, 'casey', 'pw')).flush({ user: { username: 'casey', role: 'charge' } });
     await settle(setup.fixture);
     expect(setup.navigate).toHaveBeenCalledWith('/day');
@@ -90,7 +90,7 @@ describe('SignIn', () => {
 
   it('shows "Wrong username or password" on 401 and stays on the page', async () => {
     const setup = await render();
-    setup.backend.expectOne(DEMO_URL).flush(null, { status: 404, statusText: 'Not Found' });
+    setup.backend.expectOne(DEMO_URL).flush(null, { status: 204, statusText: 'No Content' });
     (await submitAs(setup, 'casey', 'nope')).flush(
       { error: { code: 'invalid_credentials', message: 'Invalid credentials' } },
       { status: 401, statusText: 'Unauthorized' },
@@ -102,7 +102,7 @@ describe('SignIn', () => {
 
   it("shows the server's throttle message on 429", async () => {
     const setup = await render();
-    setup.backend.expectOne(DEMO_URL).flush(null, { status: 404, statusText: 'Not Found' });
+    setup.backend.expectOne(DEMO_URL).flush(null, { status: 204, statusText: 'No Content' });
     (await submitAs(setup, 'casey', 'nope')).flush(
       { error: { code: 'too_many_attempts', message: 'Too many sign-in attempts. Try again in 15 minutes.' } },
       { status: 429, statusText: 'Too Many Requests' },
@@ -113,7 +113,7 @@ describe('SignIn', () => {
 
   it('does not send an empty form', async () => {
     const setup = await render();
-    setup.backend.expectOne(DEMO_URL).flush(null, { status: 404, statusText: 'Not Found' });
+    setup.backend.expectOne(DEMO_URL).flush(null, { status: 204, statusText: 'No Content' });
     setup.page.querySelector<HTMLButtonElement>('button[type="submit"]')!.click();
     await settle(setup.fixture);
     setup.backend.expectNone('/api/auth/login');
@@ -142,7 +142,15 @@ describe('SignIn', () => {
     expect(setup.page.querySelector<HTMLInputElement>('input[formControlName="password"]')!.value).toBe('demo-pass');
   });
 
-  it('shows no demo accounts when the endpoint answers 404', async () => {
+  it('shows no demo accounts when the endpoint answers 204 (not demo mode)', async () => {
+    const setup = await render();
+    setup.backend.expectOne(DEMO_URL).flush(null, { status: 204, statusText: 'No Content' });
+    await settle(setup.fixture);
+    expect(setup.page.querySelector('section.demo')).toBeNull();
+    expect(setup.page.textContent).not.toContain('Demo accounts');
+  });
+
+  it('shows no demo accounts, and no error, when the look-up fails', async () => {
     const setup = await render();
     setup.backend.expectOne(DEMO_URL).flush({ error: { code: 'not_found', message: 'Not found' } }, { status: 404, statusText: 'Not Found' });
     await settle(setup.fixture);
