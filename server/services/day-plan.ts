@@ -1,11 +1,10 @@
 import type { Knex } from 'knex';
 import { computeDayPlan, computeDaySummary, type DayPlanExam, type DayPlanInput } from '../../shared/turnover';
 import type { PlannedDay, PlanSummary } from '../../shared/api/plan';
-import type { Room } from '../../shared/api/rooms';
 import { planVersions } from './day-version';
 import { examsOfDay, toPlanExam } from './exams';
 import { cachedPlan, type CachedPlan } from './plan-cache';
-import { listRooms } from './rooms';
+import { roomsOnDay, type RoomOnDay } from './room-hours';
 import { readSettings } from './settings';
 import { setupForDay, setupSnapshot, type SetupSnapshot } from './site-setup';
 
@@ -42,7 +41,7 @@ export async function loadCachedDayPlan(db: Knex, day: string): Promise<CachedPl
 export async function loadDayPlanInput(db: Knex, day: string): Promise<DayPlanInput> {
   const [settings, rooms, exams, staffing, setup] = await Promise.all([
     readSettings(db),
-    listRooms(db),
+    roomsOnDay(db, day),
     examsOfDay(db, day),
     db('gap_staffing').join('exams', 'exams.id', 'gap_staffing.to_exam_id').where('exams.day', day).select('to_exam_id', 'staff'),
     setupSnapshot(db),
@@ -58,7 +57,7 @@ export async function loadDayPlanInput(db: Knex, day: string): Promise<DayPlanIn
 export function summaryFor(
   day: string,
   settings: { timezone: string; snugMarginMinutes: number },
-  rooms: Room[],
+  rooms: RoomOnDay[],
   exams: DayPlanExam[],
   setup: SetupSnapshot,
 ): PlanSummary {
@@ -68,7 +67,7 @@ export function summaryFor(
 function dayPlanInput(
   day: string,
   settings: { timezone: string; snugMarginMinutes: number },
-  rooms: Room[],
+  rooms: RoomOnDay[],
   exams: DayPlanExam[],
   staffOverrides: Record<number, number>,
   setup: SetupSnapshot,

@@ -9,6 +9,7 @@ import type { UploadedExamFile } from './exam-file';
 import { summaryFor } from './day-plan';
 import { setupSnapshot } from './site-setup';
 import { dayVersion } from './day-version';
+import { roomsOnDay } from './room-hours';
 import { listRooms } from './rooms';
 import { readSettings } from './settings';
 // 14 columns × 500 rows = 7,000 bindings a statement, well under SQLite's 32,766.
@@ -64,7 +65,7 @@ export async function importExamList(db: Knex, workers: WorkerPool, req: ImportR
     parsed.rows,
   );
   const wouldBe = parsed.rows.map((row, i) => wouldBeExam(row, -(i + 1), roomIdByName.get(row.room)!));
-  const summary = summaryFor(req.day, settings, rooms, wouldBe, await setupSnapshot(db));
+  const summary = summaryFor(req.day, settings, await roomsOnDay(db, req.day), wouldBe, await setupSnapshot(db));
   const result: ImportResult = {
     dryRun: req.dryRun,
     date: req.day,

@@ -1,9 +1,8 @@
 import type { Knex } from 'knex';
 import { DateTime } from 'luxon';
-import type { Room } from '../../shared/api/rooms';
 import { DEFAULT_CLOSES_AT, DEFAULT_OPENS_AT, wallTimeToMillis, type DayPlanExam } from '../../shared/turnover';
 import { examsOfDay, toPlanExam } from './exams';
-import { listRooms } from './rooms';
+import { roomsOnDay, type RoomOnDay } from './room-hours';
 import { readSettings } from './settings';
 import { setupSnapshot, type SetupSnapshot } from './site-setup';
 import { cleanTypeOf } from './turnover-plan';
@@ -51,7 +50,8 @@ export interface TurnoverRecord {
 export interface RoomDay {
   day: string;
   zone: string;
-  room: Room;
+  /** With its hours on this day (its weekday's), and whether it is closed all day. */
+  room: RoomOnDay;
   openMs: number;
   closeMs: number;
   /** In start order. */
@@ -66,7 +66,7 @@ export interface RoomDay {
 
 /** Loads the given rooms' day (every active room when `roomIds` is omitted). */
 export async function loadRoomDays(db: Knex, day: string, roomIds?: number[]): Promise<RoomDay[]> {
-  const [{ timezone: zone }, allRooms, examRows, setup] = await Promise.all([readSettings(db), listRooms(db), examsOfDay(db, day), setupSnapshot(db)]);
+  const [{ timezone: zone }, allRooms, examRows, setup] = await Promise.all([readSettings(db), roomsOnDay(db, day), examsOfDay(db, day), setupSnapshot(db)]);
   const rooms = roomIds ? allRooms.filter((r) => roomIds.includes(r.id)) : allRooms;
   const examIds = examRows.map((e) => e.id);
   const [arrivals, staffing, turnoverRows, tickRows] = await Promise.all([
@@ -97,7 +97,8 @@ export async function loadRoomDays(db: Knex, day: string, roomIds?: number[]): P
   return rooms.map((room) => {
     const openMs = wallTimeToMillis(day, room.opensAt ?? DEFAULT_OPENS_AT, zone);
     let closeMs = wallTimeToMillis(day, room.closesAt ?? DEFAULT_CLOSES_AT, zone);
-    if (closeMs <= openMs) closeMs = wallTimeToMillis(DateTime.fromISO(day, { zone: 'UTC' }).plus({ days: 1 }).toISODate()!, room.closesAt, zone);
+    if (room.closed) closeMs = openMs;
+    else if (closeMs <= openMs) closeMs = wallTimeToMillis(DateTime.fromISO(day, { zone: 'UTC' }).plus({ days: 1 }).toISODate()!, room.closesAt, zone);
     const slots = examRows
       .filter((e) => e.room_id === room.id)
       .map((row) => {

@@ -4,27 +4,30 @@ import { NotFoundError, ValidationError } from '../errors';
 import { RoomHasExamsError } from '../setup-errors';
 import { changedFields, recordAudit, type Actor } from './audit';
 import { refuseUnsafeForMr } from './equipment';
+import { roomWeeks, saveRoomWeek, weekText } from './room-hours';
 import { toRoom } from './rooms';
 
 type RoomRow = Parameters<typeof toRoom>[0] & { active: number | boolean; retired_at: string | null };
 
-function toSetupRoom(row: RoomRow): SetupRoom {
-  return { ...toRoom(row), retired: !row.active, retiredAt: row.retired_at };
+async function toSetupRooms(db: Knex, rows: RoomRow[]): Promise<SetupRoom[]> {
+  const rooms = rows.map(toRoom);
+  const weeks = await roomWeeks(db, rooms);
+  return rooms.map((room, i) => ({ ...room, retired: !rows[i]!.active, retiredAt: rows[i]!.retired_at, week: weeks.get(room.id)! }));
 }
 
 /** Every room, retired ones last: Setup edits them all; the board and plan list only active ones. */
 export async function listSetupRooms(db: Knex): Promise<SetupRoom[]> {
   const rows: RoomRow[] = await db('rooms').orderBy([{ column: 'active', order: 'desc' }, { column: 'sort_order' }, { column: 'name' }]);
-  return rows.map(toSetupRoom);
+  return toSetupRooms(db, rows);
 }
 
-async function getRoom(db: Knex, id: number): Promise<SetupRoom> {
+export async function getSetupRoom(db: Knex, id: number): Promise<SetupRoom> {
   const row: RoomRow | undefined = await db('rooms').where({ id }).first();
   if (!row) throw new NotFoundError(`No room ${id}.`);
-  return toSetupRoom(row);
+  return (await toSetupRooms(db, [row]))[0]!;
 }
 
-function audited(room: RoomFields) {
+function audited(room: Omit<RoomFields, 'week'> & { week?: SetupRoom['week'] }) {
   return {
     name: room.name,
     modality: room.modality,
@@ -32,16 +35,20 @@ function audited(room: RoomFields) {
     staff: room.staff,
     opensAt: room.opensAt,
     closesAt: room.closesAt,
+    ...(room.week ? { week: weekText(room.week) } : {}),
   };
 }
 
-/** Name, modality, air changes, usual staff and hours; every plan recomputes (the setup version rises). */
+/**
+ * Name, modality, air changes, usual staff and hours (the usual pair, and the week when given);
+ * every plan recomputes (the setup version rises).
+ */
 export async function updateRoom(db: Knex, id: number, input: RoomFields, by: Actor, now: Date): Promise<SetupRoom> {
   if (input.closesAt <= input.opensAt) {
     throw new ValidationError('The room must close after it opens.', { problems: [{ field: 'closesAt', message: 'must be after the opening time' }] });
   }
   return db.transaction(async (trx) => {
-    const before = await getRoom(trx, id);
+    const before = await getSetupRoom(trx, id);
     const clash = await trx('rooms').whereRaw('lower(name) = lower(?)', [input.name]).whereNot({ id }).first('id');
     if (clash) throw new ValidationError(`A room named "${input.name}" already exists.`, { problems: [{ field: 'name', message: 'already exists' }] });
     if (input.modality === 'MR' && before.modality !== 'MR') {
@@ -57,7 +64,8 @@ export async function updateRoom(db: Knex, id: number, input: RoomFields, by: Ac
       opens_at: input.opensAt,
       closes_at: input.closesAt,
     });
-    const after = await getRoom(trx, id);
+    if (input.week) await saveRoomWeek(trx, id, input.week);
+    const after = await getSetupRoom(trx, id);
     const diff = changedFields(audited(before), audited(after));
     if (Object.keys(diff.after).length > 0) await recordAudit(trx, by, { area: 'room', action: 'changed', subject: after.name, ...diff }, now);
     return after;
@@ -70,7 +78,7 @@ export async function updateRoom(db: Knex, id: number, input: RoomFields, by: Ac
  */
 export async function retireRoom(db: Knex, id: number, today: string, by: Actor, now: Date): Promise<SetupRoom> {
   return db.transaction(async (trx) => {
-    const before = await getRoom(trx, id);
+    const before = await getSetupRoom(trx, id);
     if (before.retired) return before;
     const [{ n, first }] = await trx('exams').where({ room_id: id }).andWhere('day', '>=', today).count({ n: '*' }).min({ first: 'day' });
     if (Number(n) > 0) {
@@ -81,17 +89,17 @@ export async function retireRoom(db: Knex, id: number, today: string, by: Actor,
     }
     await trx('rooms').where({ id }).update({ active: false, retired_at: now.toISOString() });
     await recordAudit(trx, by, { area: 'room', action: 'retired', subject: before.name, before: { retired: false }, after: { retired: true } }, now);
-    return getRoom(trx, id);
+    return getSetupRoom(trx, id);
   });
 }
 
 /** Back on the board and plan. */
 export async function restoreRoom(db: Knex, id: number, by: Actor, now: Date): Promise<SetupRoom> {
   return db.transaction(async (trx) => {
-    const before = await getRoom(trx, id);
+    const before = await getSetupRoom(trx, id);
     if (!before.retired) return before;
     await trx('rooms').where({ id }).update({ active: true, retired_at: null });
     await recordAudit(trx, by, { area: 'room', action: 'restored', subject: before.name, before: { retired: true }, after: { retired: false } }, now);
-    return getRoom(trx, id);
+    return getSetupRoom(trx, id);
   });
 }

@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import type { Room, RoomFields } from '../../shared/api/rooms';
 import { ValidationError } from '../errors';
 import { recordAudit, type Actor } from './audit';
+import { saveRoomWeek, weekText } from './room-hours';
 import { addDefaultShiftTasks } from './shift-tasks';
 
 interface RoomRow {
@@ -47,11 +48,13 @@ export async function createRoom(db: Knex, room: RoomFields, now: Date, by?: Act
       sort_order: (Number(max) || 0) + 1,
       created_at: now.toISOString(),
     });
+    if (room.week) await saveRoomWeek(trx, roomId, room.week);
     // every new room starts with our default shift tasks (wipe-downs, scanner QA, deep clean)
     await addDefaultShiftTasks(trx, roomId, room, now);
     if (by) {
-      const { name, modality, airChangesPerHour, staff, opensAt, closesAt } = room;
-      await recordAudit(trx, by, { area: 'room', action: 'created', subject: name, before: null, after: { name, modality, airChangesPerHour, staff, opensAt, closesAt } }, now);
+      const { name, modality, airChangesPerHour, staff, opensAt, closesAt, week } = room;
+      const after = { name, modality, airChangesPerHour, staff, opensAt, closesAt, ...(week ? { week: weekText(week) } : {}) };
+      await recordAudit(trx, by, { area: 'room', action: 'created', subject: name, before: null, after }, now);
     }
     return roomId;
   });

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { AIR_CHANGES_PER_HOUR, ROOM_NAME_MAX, TURNOVER_STAFF } from './limits';
+import { hhmm, roomWeekSchema, type RoomDay } from './room-hours';
 
 /**
  * DICOM modality codes, attribute (0008,0060), PS3.3 C.7.3.1.1.1 — the subset an imaging
@@ -7,8 +8,6 @@ import { AIR_CHANGES_PER_HOUR, ROOM_NAME_MAX, TURNOVER_STAFF } from './limits';
  */
 export const MODALITIES = ['MR', 'CT', 'US', 'CR', 'DX', 'NM', 'PT', 'MG', 'XA', 'RF', 'OT'] as const;
 export type Modality = (typeof MODALITIES)[number];
-
-const hhmm = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'use HH:MM (24-hour)');
 
 export const roomInputSchema = z.object({
   name: z.string().trim().min(1, 'a room needs a name').max(ROOM_NAME_MAX),
@@ -20,6 +19,8 @@ export const roomInputSchema = z.object({
   staff: z.number().int().min(TURNOVER_STAFF.min).max(TURNOVER_STAFF.max).default(1),
   opensAt: hhmm.default('07:00'),
   closesAt: hhmm.default('19:00'),
+  /** Hours per weekday, Monday to Sunday; a weekday without its own hours keeps `opensAt`–`closesAt`. */
+  week: roomWeekSchema.optional(),
 });
 export type RoomInput = z.input<typeof roomInputSchema>;
 export type RoomFields = z.output<typeof roomInputSchema>;
@@ -38,4 +39,6 @@ export interface Room {
 export interface SetupRoom extends Room {
   retired: boolean;
   retiredAt: string | null;
+  /** Monday to Sunday: each weekday's own hours, or the usual ones where it has none. */
+  week: RoomDay[];
 }

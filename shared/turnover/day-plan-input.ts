@@ -11,6 +11,8 @@ export interface DayPlanRoom {
   opensAt?: string;
   /** Local `HH:MM`; default `19:00`. A closing at or before the opening is on the next day. */
   closesAt?: string;
+  /** Closed all day (its weekday's hours say so): no open hours, so every exam booked is outside them. */
+  closed?: boolean;
 }
 
 /** An exam slot as stored. */

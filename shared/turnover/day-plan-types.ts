@@ -71,6 +71,8 @@ export interface PlanRoom {
   protocol: PlanProtocol | null;
   /** Why the room has no numbers (e.g. "No protocol for CT: set one up in Setup"); null otherwise. */
   message: string | null;
+  /** Closed all day on this date (its weekday's hours): `opensAt` equals `closesAt`. */
+  closed: boolean;
   /** The room's opening and closing on this date. */
   opensAt: string;
   closesAt: string;

@@ -100,7 +100,8 @@ function planRoom(room: DayPlanRoom, slots: DayPlanSlot[], ctx: RoomContext): Pl
   const closesAt = room.closesAt ?? DEFAULT_CLOSES_AT;
   const openMs = ctx.wallTime(opensAt);
   let closeMs = ctx.wallTime(closesAt);
-  if (closeMs <= openMs) closeMs = wallTimeToMillis(nextDate(input.date), closesAt, input.timezone);
+  if (room.closed) closeMs = openMs;
+  else if (closeMs <= openMs) closeMs = wallTimeToMillis(nextDate(input.date), closesAt, input.timezone);
 
   slots.sort((a, b) => a.startMs - b.startMs || a.exam.id - b.exam.id);
   const protocol = protocolFor(room.modality, input.protocols);
@@ -130,6 +131,7 @@ function planRoom(room: DayPlanRoom, slots: DayPlanSlot[], ctx: RoomContext): Pl
       ? { id: protocol.id ?? null, modality: protocol.modality, version: protocol.version ?? null, effectiveFrom: protocol.effectiveFrom ?? null }
       : null,
     message: protocol ? null : NO_PROTOCOL_MESSAGE(room.modality),
+    closed: room.closed === true,
     opensAt: format(openMs),
     closesAt: format(closeMs),
     exams: slots.map((slot) => toPlanExam(slot, format, slot.startMs < openMs || slot.endMs > closeMs)),

@@ -44,4 +44,16 @@ describe('RoomLane', () => {
   it('says nothing of protocols when the room has one', async () => {
     expect((await lane(true)).querySelector('.no-protocol')).toBeNull();
   });
+
+  it('says a room is closed on a weekday its hours close it, and shades the whole lane as closed time', async () => {
+    const closedDay = exampleRoom([], [], { closed: true, opensAt: '2027-03-15T07:00:00-05:00', closesAt: '2027-03-15T07:00:00-05:00' });
+    const page = await lane(true, closedDay);
+    expect(page.querySelector('.closed-day')!.textContent).toContain('Closed this day');
+    const shaded = Array.from(page.querySelectorAll<HTMLElement>('.track > .closed')).reduce((sum, el) => sum + parseFloat(el.style.width), 0);
+    expect(shaded).toBe(scale.widthPx);
+  });
+
+  it('says nothing of a closed day when the room is open', async () => {
+    expect((await lane(true)).querySelector('.closed-day')).toBeNull();
+  });
 });

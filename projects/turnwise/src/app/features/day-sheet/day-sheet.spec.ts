@@ -20,6 +20,7 @@ const NO_PROTOCOL_ROOM: PlanRoom = {
   staff: 1,
   protocol: null,
   message: 'No protocol for CT: set one up in Setup',
+  closed: false,
   opensAt: '2027-03-15T07:00:00-05:00',
   closesAt: '2027-03-15T19:00:00-05:00',
   exams: [

@@ -7,16 +7,18 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 
 import { AIR_CHANGES_PER_HOUR, ROOM_NAME_MAX, TURNOVER_STAFF } from '@shared/api/limits';
+import type { RoomDay } from '@shared/api/room-hours';
 import { MODALITIES, type SetupRoom } from '@shared/api/rooms';
 import { action } from '../../core/state/action';
 import { CautionNote } from '../../shared/ui/caution-note';
 import { fieldMessage, submitForm } from './form-problems';
+import { RoomWeek, weekForm } from './room-week';
 import { SetupApi } from './setup-api';
 
 /** Add or edit a room; the API's 422 problems appear under their fields. */
 @Component({
   selector: 'tw-room-dialog',
-  imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, CautionNote],
+  imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, CautionNote, RoomWeek],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <h2 mat-dialog-title>{{ room ? 'Edit ' + room.name : 'Add a room' }}</h2>
@@ -50,18 +52,10 @@ import { SetupApi } from './setup-api';
           <mat-hint>People on a turnover, {{ staff.min }}–{{ staff.max }}</mat-hint>
           <mat-error>{{ message('staff') }}</mat-error>
         </mat-form-field>
-        <div class="hours">
-          <mat-form-field>
-            <mat-label>Opens at</mat-label>
-            <input matInput type="time" formControlName="opensAt" required />
-            <mat-error>{{ message('opensAt') }}</mat-error>
-          </mat-form-field>
-          <mat-form-field>
-            <mat-label>Closes at</mat-label>
-            <input matInput type="time" formControlName="closesAt" required />
-            <mat-error>{{ message('closesAt') }}</mat-error>
-          </mat-form-field>
-        </div>
+        <tw-room-week [week]="form.controls.week" />
+        @if (form.controls.week.errors?.['server']; as problem) {
+          <p class="form-error" role="alert">Opening hours: {{ problem }}</p>
+        }
         @if (form.controls.modality.value === 'MR') {
           <tw-caution-note kind="mr" />
         }
@@ -92,17 +86,33 @@ export class RoomDialog {
     modality: [this.room?.modality ?? 'MR', Validators.required],
     airChangesPerHour: [this.room?.airChangesPerHour ?? 12, [Validators.required, Validators.min(AIR_CHANGES_PER_HOUR.min), Validators.max(AIR_CHANGES_PER_HOUR.max)]],
     staff: [this.room?.staff ?? 1, [Validators.required, Validators.min(TURNOVER_STAFF.min), Validators.max(TURNOVER_STAFF.max)]],
-    opensAt: [this.room?.opensAt ?? '07:00', Validators.required],
-    closesAt: [this.room?.closesAt ?? '19:00', Validators.required],
+    week: weekForm(this.room?.week),
   });
 
   protected readonly saving = action(() => {
     const value = this.form.getRawValue();
-    const body = { ...value, name: value.name.trim(), airChangesPerHour: Number(value.airChangesPerHour), staff: Number(value.staff) };
+    const body = {
+      ...value,
+      ...this.usualHours(value.week),
+      name: value.name.trim(),
+      airChangesPerHour: Number(value.airChangesPerHour),
+      staff: Number(value.staff),
+    };
     return this.room ? this.api.updateRoom(this.room.id, body) : this.api.createRoom(body);
   });
 
-  protected message(field: keyof typeof this.form.controls): string {
+  /**
+   * The room's usual hours, for weekdays without their own (none, once a week is saved) and for
+   * a new room's default shift tasks: kept on an edit; a new room takes its first open weekday
+   * that closes the same day.
+   */
+  private usualHours(week: RoomDay[]): { opensAt: string; closesAt: string } {
+    if (this.room) return { opensAt: this.room.opensAt, closesAt: this.room.closesAt };
+    const day = week.find((d) => !d.closed && d.closesAt > d.opensAt);
+    return day ? { opensAt: day.opensAt, closesAt: day.closesAt } : { opensAt: '07:00', closesAt: '19:00' };
+  }
+
+  protected message(field: 'name' | 'modality' | 'airChangesPerHour' | 'staff'): string {
     return fieldMessage(this.form.controls[field]);
   }
 

@@ -12,6 +12,7 @@ import { serverState } from '../../core/state/server-state';
 import { ConfirmDialog, type ConfirmData } from './confirm-dialog';
 import { KitDialog, type KitDialogData } from './kit-dialog';
 import { RoomDialog } from './room-dialog';
+import { weekSummary } from './room-week';
 import { SetupApi } from './setup-api';
 import { tableView } from './table-view';
 
@@ -54,7 +55,7 @@ import { tableView } from './table-view';
         </ng-container>
         <ng-container matColumnDef="hours">
           <th mat-header-cell *matHeaderCellDef mat-sort-header>Open</th>
-          <td mat-cell *matCellDef="let room">{{ room.opensAt }}–{{ room.closesAt }}</td>
+          <td mat-cell *matCellDef="let room">{{ hours(room) }}</td>
         </ng-container>
         <ng-container matColumnDef="status">
           <th mat-header-cell *matHeaderCellDef mat-sort-header>Status</th>
@@ -97,6 +98,7 @@ export class RoomsTab {
     (room, column) => (column === 'hours' ? room.opensAt : column === 'status' ? String(room.retired) : (room[column as keyof SetupRoom] as string | number)),
     50,
   );
+  protected readonly hours = (room: SetupRoom) => (room.week ? weekSummary(room.week) : `${room.opensAt}–${room.closesAt}`);
 
   constructor() {
     this.rooms.show('all');

@@ -1,11 +1,12 @@
 import type { EquipmentItem } from '@shared/api/equipment';
 import type { SetupRoom } from '@shared/api/rooms';
-import { errorUnder, renderSetup as render, settle, submit, type } from '../../../testing/setup-dialogs';
+import { button, errorUnder, refusal, renderSetup as render, settle, submit, type } from '../../../testing/setup-dialogs';
 import { KitDialog } from './kit-dialog';
 import { RoomDialog } from './room-dialog';
 import { UserDialog } from './user-dialog';
 
-const MR2: SetupRoom = { id: 2, name: 'MR 2', modality: 'MR', airChangesPerHour: 12, staff: 1, opensAt: '07:00', closesAt: '19:00', retired: false, retiredAt: null };
+const WEEK = [1, 2, 3, 4, 5, 6, 7].map((weekday) => ({ weekday, closed: weekday === 7, opensAt: '07:00', closesAt: '19:00' }));
+const MR2: SetupRoom = { id: 2, name: 'MR 2', modality: 'MR', airChangesPerHour: 12, staff: 1, opensAt: '07:00', closesAt: '19:00', retired: false, retiredAt: null, week: WEEK };
 
 describe('RoomDialog', () => {
   it('puts the API’s 422 problems under their fields and stays open', async () => {
@@ -47,6 +48,58 @@ describe('RoomDialog', () => {
     await settle(fixture);
     expect(page.textContent).toMatch(/ASTM F2503/);
     expect(page.textContent).toMatch(/Zone IV/);
+  });
+});
+
+describe('RoomDialog week editor', () => {
+  const time = (weekday: number, which: 'opens' | 'closes') => `input[aria-label="${['Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday', 'Sunday'][weekday - 1]} ${which} at"]`;
+  const closedBox = (page: HTMLElement, weekday: number) => page.querySelectorAll<HTMLInputElement>('.day input[type="checkbox"]')[weekday - 1]!;
+
+  it('edits Monday to Sunday, copies Monday to the other weekdays, and sends the whole week', async () => {
+    const { fixture, backend, page } = render(RoomDialog, MR2);
+    await settle(fixture);
+    expect(Array.from(page.querySelectorAll('.day .name')).map((n) => n.textContent)).toEqual(['Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday', 'Sunday']);
+    // Sunday is closed: its times are kept but not editable
+    expect(closedBox(page, 7).checked).toBe(true);
+    expect(page.querySelector<HTMLInputElement>(time(7, 'opens'))!.disabled).toBe(true);
+
+    type(page, time(1, 'opens'), '08:00');
+    type(page, time(1, 'closes'), '17:00');
+    button(page, 'Copy Monday').click();
+    type(page, time(6, 'closes'), '12:30');
+    closedBox(page, 7).click();
+    await settle(fixture);
+    type(page, time(7, 'opens'), '22:00');
+    type(page, time(7, 'closes'), '02:00'); // over midnight, as the engine reads it
+    submit(page);
+    const request = backend.expectOne({ method: 'PUT', url: '/api/rooms/2' });
+    expect(request.request.body.week).toEqual([
+      { weekday: 1, closed: false, opensAt: '08:00', closesAt: '17:00' },
+      { weekday: 2, closed: false, opensAt: '08:00', closesAt: '17:00' },
+      { weekday: 3, closed: false, opensAt: '08:00', closesAt: '17:00' },
+      { weekday: 4, closed: false, opensAt: '08:00', closesAt: '17:00' },
+      { weekday: 5, closed: false, opensAt: '08:00', closesAt: '17:00' },
+      { weekday: 6, closed: false, opensAt: '07:00', closesAt: '12:30' },
+      { weekday: 7, closed: false, opensAt: '22:00', closesAt: '02:00' },
+    ]);
+    // the usual hours stay as stored on an edit
+    expect(request.request.body).toMatchObject({ opensAt: '07:00', closesAt: '19:00' });
+  });
+
+  it('refuses a day that closes when it opens before sending, and puts the API’s problem on its day', async () => {
+    const { fixture, backend, page } = render(RoomDialog, MR2);
+    await settle(fixture);
+    type(page, time(3, 'closes'), '07:00');
+    submit(page);
+    await settle(fixture);
+    backend.expectNone('/api/rooms/2');
+    expect(errorUnder(page, time(3, 'closes'))).toMatch(/must differ from the opening time/);
+
+    type(page, time(3, 'closes'), '19:00');
+    submit(page);
+    backend.expectOne({ method: 'PUT', url: '/api/rooms/2' }).flush(...refusal([{ field: 'week.4.opensAt', message: 'use HH:MM (24-hour)' }]));
+    await settle(fixture);
+    expect(errorUnder(page, time(5, 'opens'))).toBe('use HH:MM (24-hour)');
   });
 });
 

@@ -57,6 +57,7 @@ export function exampleRoom(exams: PlanExam[], gaps: PlanGap[], extra: Partial<P
     staff: 1,
     protocol: { id: 1, modality: 'MR', version: 1, effectiveFrom: '2027-01-01' },
     message: null,
+    closed: false,
     opensAt: '2027-03-15T07:00:00-05:00',
     closesAt: '2027-03-15T19:00:00-05:00',
     exams,
