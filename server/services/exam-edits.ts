@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { DateTime } from 'luxon';
-import type { ExamEdit, ExamFields, ExamFormInput } from '../../shared/api/changes';
+import type { ChangeReason, ExamEdit, ExamFields, ExamFormInput } from '../../shared/api/changes';
 import { EXAM_LIST_COLUMNS, parseExamTable, type ExamListRow } from '../../shared/exam-list';
 import { NotFoundError, Refusal, ValidationError } from '../errors';
 import { examColumns, storedFields, type ExamRow } from './exams';
@@ -19,6 +19,10 @@ type Exam = ExamFields & { accession: string };
 export interface ExamEditRequest {
   userId: number;
   now: Date;
+  /** The history's reason; a hand edit's own by default (the HL7 feed says `hl7`). */
+  reason?: ChangeReason;
+  /** Added to the history entry's summary (the HL7 feed's "after a manual change" flag). */
+  note?: string;
 }
 
 /** Adds one exam to `day`. 422 for a bad cell (the import's message) or an accession the day already has. */
@@ -30,7 +34,7 @@ export async function addExam(db: Knex, day: string, input: ExamFormInput, req: 
     const [id] = await trx('exams').insert({ ...examColumns(row, roomId), day, version: 1, updated_at: stamp });
     const to = fieldsOf(row, roomId);
     const change: ExamEdit = { type: 'exam', examId: id as number, accession: row.accession, from: null, to };
-    await recordChange(trx, { day, userId: req.userId, reason: 'exam added', summary: `Added ${row.accession}: ${row.room} ${hhmm(row.start, timezone)}, ${row.durationMinutes} min`, changes: [change] }, req.now);
+    await recordChange(trx, { day, userId: req.userId, reason: req.reason ?? 'exam added', summary: `Added ${row.accession}: ${row.room} ${hhmm(row.start, timezone)}, ${row.durationMinutes} min${req.note ?? ''}`, changes: [change] }, req.now);
     return day;
   });
 }
@@ -49,7 +53,7 @@ export async function editExam(db: Knex, examId: number, input: ExamFormInput & 
     await trx('exams').where({ id: examId }).update({ ...examColumns(row, roomId), version: exam.version + 1, updated_at: req.now.toISOString() });
     const change: ExamEdit = { type: 'exam', examId, accession: row.accession, from: storedFields(exam), to: fieldsOf(row, roomId) };
     const renamed = exam.accession === row.accession ? '' : ` (was ${exam.accession})`;
-    await recordChange(trx, { day: exam.day, userId: req.userId, reason: 'exam edited', summary: `Edited ${row.accession}${renamed}: ${row.room} ${hhmm(row.start, timezone)}, ${row.durationMinutes} min`, changes: [change] }, req.now);
+    await recordChange(trx, { day: exam.day, userId: req.userId, reason: req.reason ?? 'exam edited', summary: `Edited ${row.accession}${renamed}: ${row.room} ${hhmm(row.start, timezone)}, ${row.durationMinutes} min${req.note ?? ''}`, changes: [change] }, req.now);
     return exam.day;
   });
 }
@@ -65,7 +69,7 @@ export async function cancelExam(db: Knex, examId: number, version: number, req:
     const room = await trx('rooms').where({ id: exam.room_id }).first('name');
     await trx('exams').where({ id: examId }).delete();
     const change: ExamEdit = { type: 'exam', examId, accession: exam.accession, from: storedFields(exam), to: null };
-    await recordChange(trx, { day: exam.day, userId: req.userId, reason: 'exam cancelled', summary: `Cancelled ${exam.accession}: ${room?.name ?? `room ${exam.room_id}`} ${hhmm(exam.start_at, timezone)}`, changes: [change] }, req.now);
+    await recordChange(trx, { day: exam.day, userId: req.userId, reason: req.reason ?? 'exam cancelled', summary: `Cancelled ${exam.accession}: ${room?.name ?? `room ${exam.room_id}`} ${hhmm(exam.start_at, timezone)}${req.note ?? ''}`, changes: [change] }, req.now);
     return exam.day;
   });
 }

@@ -29,8 +29,11 @@ export const SNUG_MARGIN_MINUTES = { min: 0, max: 60 } as const;
 export const MOVE_REASONS = ['drag', 'keyboard', 'api'] as const;
 export type MoveReason = (typeof MOVE_REASONS)[number];
 
-/** Why a day's plan changed: a move's reason, or an action that is not a single move. */
-export const CHANGE_REASONS = [...MOVE_REASONS, 'suggestion', 'undo', 'redo', 'staffing', 'exam added', 'exam edited', 'exam cancelled'] as const;
+/**
+ * Why a day's plan changed: a move's reason, or an action that is not a single move. `hl7`: a
+ * message from the booking system's HL7 feed (a booking, reschedule, change or cancellation).
+ */
+export const CHANGE_REASONS = [...MOVE_REASONS, 'suggestion', 'undo', 'redo', 'staffing', 'exam added', 'exam edited', 'exam cancelled', 'hl7'] as const;
 export type ChangeReason = (typeof CHANGE_REASONS)[number];
 
 /** Days one report may cover (a quarter): its work grows with the range, so the range is capped. */

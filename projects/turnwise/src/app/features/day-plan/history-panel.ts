@@ -19,6 +19,7 @@ const REASONS: Readonly<Record<ChangeReason, string>> = {
   'exam added': 'exam added',
   'exam edited': 'exam edited',
   'exam cancelled': 'exam cancelled',
+  hl7: 'booking system (HL7)',
 };
 
 /**
