@@ -25,6 +25,9 @@ import { createFixesPool, type FixesPool } from './workers/fixes-pool';
 import { createMailer, type Mailer } from './services/mail/mailer';
 import type { SmtpSettings } from './services/mail/smtp-settings';
 import { startNoticeLoop } from './services/notices/loop';
+import type { AddressInfo } from 'node:net';
+import { startHl7Feed, type Hl7FeedOptions } from './services/hl7/feed';
+import type { MllpListener } from './services/hl7/mllp-listener';
 
 export interface AppDeps {
   db: Knex;
@@ -58,6 +61,8 @@ export interface AppDeps {
   publicUrl?: string;
   /** Run the notice sender loop (main.ts); tests drive `sendDue` / `runNotices` themselves. */
   sendNotices?: boolean;
+  /** The HL7 booking feed's MLLP listener (HL7_PORT); off when omitted. Port 0 picks a free one. */
+  hl7?: Hl7FeedOptions | null;
 }
 
 /** Builds the Express app without listening, so tests drive it with supertest. */
@@ -71,8 +76,10 @@ export function createApp(deps: AppDeps): Express {
   const mailer: Mailer = createMailer({ db: deps.db, smtp: deps.smtp ?? null, demoServer: !production || Boolean(deps.demo), now: () => clock.now() });
   const noticeContext = { publicUrl: (deps.publicUrl ?? 'http://localhost:3000').replace(/\/+$/, ''), secret: deps.sessionSecret };
   const stopNotices = deps.sendNotices ? startNoticeLoop(deps.db, mailer, noticeContext, clock, logError) : async () => {};
+  const hl7 = deps.hl7 ? startHl7Feed({ db: deps.db, clock, events, logError }, deps.hl7) : null;
   const app = express();
   app.locals['mailer'] = mailer;
+  app.locals['hl7'] = hl7;
   app.disable('x-powered-by');
   // req.ip (and so the sign-in throttle) believes X-Forwarded-For only from these proxies
   app.set('trust proxy', deps.trustProxy?.length ? deps.trustProxy : false);
@@ -155,6 +162,7 @@ export function createApp(deps: AppDeps): Express {
       fixesPool,
       demo: Boolean(deps.demo),
       notices: { mailer, context: noticeContext },
+      hl7,
       auth: {
         passport,
         limits: { perAccount: 10, perAddress: 30, ...deps.signInLimits },
@@ -181,7 +189,7 @@ export function createApp(deps: AppDeps): Express {
   app.locals['close'] = async () => {
     sessionStore.close();
     await stopNotices();
-    await Promise.all([workers.close(), fixesPool.close(), mailer.close()]);
+    await Promise.all([workers.close(), fixesPool.close(), mailer.close(), hl7?.close()]);
   };
   return app;
 }
@@ -191,7 +199,13 @@ export function appMailer(app: Express): Mailer {
   return app.locals['mailer'] as Mailer;
 }
 
-/** Ends what an app started besides its routes (worker threads, the notice loop, the demo mail server); the caller closes the server and database. */
+/** Where the app's HL7 booking feed listens; null when it is off or could not bind. */
+export function appHl7Address(app: Express): Promise<AddressInfo | null> {
+  const hl7 = app.locals['hl7'] as MllpListener | null;
+  return hl7 ? hl7.address() : Promise.resolve(null);
+}
+
+/** Ends what an app started besides its routes (worker threads, the notice loop, the demo mail server, the HL7 listener); the caller closes the server and database. */
 export function closeApp(app: Express): Promise<void> {
   const close = app.locals['close'] as (() => Promise<void>) | undefined;
   return close ? close() : Promise.resolve();

@@ -14,6 +14,11 @@ export interface ServerConfig {
    * `loopback`); empty trusts none, so the sign-in throttle keys on the connecting address.
    */
   trustProxy: string[];
+  /**
+   * The HL7 booking feed's MLLP listener (HL7_PORT, HL7_HOST); null: off. Off by default, on in
+   * demo mode at 127.0.0.1:2575; HL7_PORT=off turns it off there too.
+   */
+  hl7: { port: number; host: string } | null;
 }
 
 /**
@@ -38,7 +43,18 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     demo,
     clientDir: env['CLIENT_DIR'] ?? path.resolve(__dirname, '..', 'dist', 'turnwise', 'browser'),
     trustProxy: (env['TRUST_PROXY'] ?? '').split(',').map((entry) => entry.trim()).filter(Boolean),
+    hl7: hl7Listener(env, demo),
   };
+}
+
+function hl7Listener(env: NodeJS.ProcessEnv, demo: boolean): ServerConfig['hl7'] {
+  const port = env['HL7_PORT']?.trim();
+  const host = env['HL7_HOST']?.trim() || (demo ? '127.0.0.1' : '0.0.0.0');
+  if (port === 'off') return null;
+  if (!port) return demo ? { port: 2575, host } : null;
+  const n = Number(port);
+  if (!Number.isInteger(n) || n < 0 || n > 65535) throw new Error(`HL7_PORT must be a port number (0–65535) or off, not "${port}".`);
+  return { port: n, host };
 }
 
 function storedDemoSecret(file: string): string {

@@ -1,4 +1,4 @@
-import { appMailer, closeApp, createApp } from './app';
+import { appHl7Address, appMailer, closeApp, createApp } from './app';
 import { readConfig } from './config';
 import { createDb, migrateToLatest } from './db';
 import { seedDemo, seedReferenceData } from './seeding';
@@ -25,12 +25,16 @@ async function main(): Promise<void> {
     smtp: smtpFromEnv(),
     publicUrl: process.env['PUBLIC_URL'] || `http://localhost:${config.port}`,
     sendNotices: true,
+    hl7: config.hl7,
   });
   const delivery = appMailer(app).delivery;
   if (delivery === 'off') console.warn('E-mail notices are off: no SMTP_URL or SMTP_HOST is set, so nothing is sent (README, E-mail notices).');
   else if (delivery === 'demo-server') console.log('E-mail notices go to the local demo mail server; admins read them in the Outbox.');
   if (config.production && config.trustProxy.length === 0) {
     console.warn('TRUST_PROXY is unset: X-Forwarded-For is ignored. Behind a TLS-terminating proxy, set it to the proxy address (README, Security).');
+  }
+  if (config.hl7) {
+    void appHl7Address(app).then((at) => at && console.log(`HL7 booking feed (MLLP) listening on ${at.address}:${at.port}`));
   }
   const demoAccounts = config.demo ? await listDemoAccounts(db) : null;
   const server = app.listen(config.port, () => {

@@ -4,6 +4,7 @@ import type { Clock } from '../clock';
 import type { DayEvents } from '../services/day-events';
 import type { WorkerPool } from '../workers/pool';
 import type { FixesPool } from '../workers/fixes-pool';
+import type { MllpListener } from '../services/hl7/mllp-listener';
 import { authRoutes, type AuthDeps } from './auth';
 import { dayChangeRoutes } from './day-changes';
 import { dayRoutes } from './days';
@@ -16,6 +17,7 @@ import { shiftTaskRoutes } from './shift-tasks';
 import { turnoverRoutes } from './turnovers';
 import { auditRoutes } from './audit';
 import { equipmentRoutes } from './equipment';
+import { hl7Routes } from './hl7';
 import { productRoutes } from './products';
 import { profileRoutes } from './profile';
 import { reportRoutes } from './reports';
@@ -35,6 +37,8 @@ export interface ApiDeps {
   demo: boolean;
   /** E-mail notices: where they go and what their links need. */
   notices: NoticeDeps;
+  /** The HL7 booking feed's listener, when on (its interface log says where it listens). */
+  hl7?: MllpListener | null;
   /** What sign-in needs from the app (sessions, XSRF, throttling). */
   auth: Omit<AuthDeps, 'db' | 'demo'>;
 }
@@ -75,6 +79,8 @@ export function apiRoutes(deps: ApiDeps): Router {
   // E-mail notices: the Outbox (admin) and the unsubscribe link (no sign-in)
   router.use('/outbox', outboxRoutes(deps));
   router.use('/notices', unsubscribeRoutes(deps));
+  // The HL7 booking feed's interface log (admin)
+  router.use('/hl7', hl7Routes(deps));
   // Calendar feeds: fetched by calendar apps with the token in the path (no sign-in)
   router.use('/calendar', calendarFeedRoutes({ ...deps, calendar: deps.notices.context }));
   return router;

@@ -234,6 +234,9 @@ export const ROUTE_TABLE: RouteCase[] = [
   { method: 'put', path: '/api/profile/notices', allowed: 'signed-in', send: (c) => c.put('/api/profile/notices', { email: 'matrix@example.test', kinds: { 'import-digest': true, 'slot-moves': false } }) },
   { method: 'get', path: '/api/outbox', allowed: ['admin'], send: (c) => c.get('/api/outbox?limit=5') },
   { method: 'get', path: '/api/outbox/:id', allowed: ['admin'], prepare: freshNotice, send: (c, id) => c.get(`/api/outbox/${id as number}`) },
+  // The HL7 booking feed's interface log (admin)
+  { method: 'get', path: '/api/hl7/messages', allowed: ['admin'], send: (c) => c.get('/api/hl7/messages?limit=5') },
+  { method: 'get', path: '/api/hl7/messages/:id', allowed: ['admin'], prepare: freshHl7Message, send: (c, id) => c.get(`/api/hl7/messages/${id as number}`) },
   {
     method: 'get',
     path: '/api/notices/unsubscribe',
@@ -316,6 +319,13 @@ async function openTurnover(h: Harness): Promise<OpenTurnover> {
   const ref = await finishExam(h.db, await unfinishedExam(h), { id: user.id, username: user.username, displayName: user.display_name, role: user.role }, now, 'Role matrix check');
   const checklist = await loadChecklist(h.db, ref.roomId, ref.day, now, ref.turnoverId);
   return { id: ref.turnoverId, firstStep: checklist.steps[0]!.key };
+}
+
+/** An interface-log row as the feed stores it (refused, so it made no change). */
+async function freshHl7Message(h: Harness): Promise<number> {
+  const stamp = h.clock.now().toISOString();
+  const [id] = await h.db('hl7_messages').insert({ received_at: stamp, last_received_at: stamp, sender: 'RIS^INVENTED', control_id: `MATRIX-${++counter}`, message_type: 'SIU^S12', ack_code: 'AE', outcome: 'Unknown room', raw: 'MSH|^~\\&|RIS|INVENTED' });
+  return id as number;
 }
 
 /** A room made for one check (retire, restore, kit), so checks never share state. */

@@ -1,0 +1,24 @@
+import { Router } from 'express';
+import type { Knex } from 'knex';
+import { hl7LogQuerySchema, type Hl7LogPage } from '../../shared/api/hl7';
+import { requireRole } from '../middleware/roles';
+import { listHl7Messages, readHl7Message } from '../services/hl7/hl7-log';
+import type { MllpListener } from '../services/hl7/mllp-listener';
+import { parseInput } from '../validate';
+import { idParam } from './params';
+
+/** The HL7 booking feed's interface log (admin): messages received, their ACKs and what they changed. */
+export function hl7Routes(deps: { db: Knex; hl7?: MllpListener | null }): Router {
+  const router = Router();
+  router.use(requireRole('admin'));
+  router.get('/messages', async (req, res) => {
+    const query = parseInput(hl7LogQuerySchema, req.query, 'interface log query');
+    const at = deps.hl7 ? await deps.hl7.address() : null;
+    const page: Hl7LogPage = { ...(await listHl7Messages(deps.db, query)), listener: at && { host: at.address, port: at.port } };
+    res.json(page);
+  });
+  router.get('/messages/:id', async (req, res) => {
+    res.json(await readHl7Message(deps.db, idParam(req.params['id'], 'a message')));
+  });
+  return router;
+}
