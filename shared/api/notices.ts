@@ -4,12 +4,14 @@ import { z } from 'zod';
  * E-mail notices: the kinds a user can turn on or off (profile page), the Outbox's rows (admin),
  * and the preference form. Notices carry accession numbers only, never patient data.
  */
-export const NOTICE_KINDS = ['import-digest', 'slot-moves'] as const;
+export const NOTICE_KINDS = ['import-digest', 'slot-moves', 'day-before', 'weekly-summary'] as const;
 export type NoticeKind = (typeof NOTICE_KINDS)[number];
 
 export const NOTICE_KIND_LABELS: Record<NoticeKind, string> = {
   'import-digest': 'After an import with short or overlapping gaps',
   'slot-moves': 'When slots of a day I follow move',
+  'day-before': 'The day before: tomorrow’s problem gaps and isolation cases (charge technologists)',
+  'weekly-summary': 'Weekly summary: early closes, contact time below required, overdue shift tasks (admins)',
 };
 
 export const NOTICE_STATUSES = ['queued', 'sending', 'sent', 'failed'] as const;
@@ -56,5 +58,6 @@ export interface NoticePreferences {
 
 export const noticePreferencesSchema = z.object({
   email: z.union([z.literal(''), z.null(), z.string().trim().max(254, 'use at most 254 characters').pipe(z.email('not an e-mail address'))]),
-  kinds: z.object(Object.fromEntries(NOTICE_KINDS.map((k) => [k, z.boolean()])) as Record<NoticeKind, z.ZodBoolean>),
+  // a kind left out keeps its setting (a client older than the kind still saves the rest)
+  kinds: z.object(Object.fromEntries(NOTICE_KINDS.map((k) => [k, z.boolean().optional()])) as Record<NoticeKind, z.ZodOptional<z.ZodBoolean>>),
 });

@@ -186,6 +186,6 @@ describe('e-mail notices', () => {
     const res = await anonymous.get(link);
     expect(res.status).toBe(200);
     expect(res.text).toContain('Notice turned off');
-    expect((await charge.get('/api/profile/notices')).body.kinds).toEqual({ 'import-digest': false, 'slot-moves': true });
+    expect((await charge.get('/api/profile/notices')).body.kinds).toEqual({ 'import-digest': false, 'slot-moves': true, 'day-before': true, 'weekly-summary': true });
   });
 });

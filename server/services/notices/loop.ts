@@ -4,17 +4,23 @@ import type { Mailer } from '../mail/mailer';
 import type { NoticeContext } from './render';
 import { sendDue, type SendOptions } from './sender';
 import { queueMoveNotices } from './slot-moves';
+import { queueDayBeforeNotices } from './day-before';
+import { queueWeeklySummaries } from './weekly-summary';
 
 export const NOTICE_LOOP_MS = 30_000;
 
 /**
- * One pass of the sender loop: queue the closed batches of slot moves, then send what is due.
+ * One pass of the sender loop: queue the closed batches of slot moves, the day-before notice once
+ * its time has come and the weekly summary on Mondays (each keyed by its day or week, so a pass
+ * queues nothing twice), then send what is due.
  * Tests call it (or `sendDue`) directly with their own clock instead of waiting on the timer.
  */
 export async function runNotices(db: Knex, mailer: Mailer, ctx: NoticeContext, now: Date, options: Partial<SendOptions> = {}): Promise<void> {
   const transport = await mailer.transport();
   if (!transport) return;
   await queueMoveNotices(db, ctx, now);
+  await queueDayBeforeNotices(db, ctx, now);
+  await queueWeeklySummaries(db, ctx, now);
   await sendDue(db, transport, now, { fallbackSender: mailer.delivery === 'demo-server' ? 'notices@turnwise.invalid' : undefined, ...options });
 }
 

@@ -19,11 +19,14 @@ export async function readPreferences(db: Knex, userId: number): Promise<NoticeP
   return { email: user.email ?? null, kinds: Object.fromEntries(NOTICE_KINDS.map((k) => [k, !off.has(k)])) as Record<NoticeKind, boolean> };
 }
 
-/** One's own address and choices, in one transaction. */
-export async function writePreferences(db: Knex, userId: number, prefs: { email: string | null; kinds: Record<NoticeKind, boolean> }): Promise<NoticePreferences> {
+/** One's own address and choices (a kind left out keeps its setting), in one transaction. */
+export async function writePreferences(db: Knex, userId: number, prefs: { email: string | null; kinds: Partial<Record<NoticeKind, boolean>> }): Promise<NoticePreferences> {
   await db.transaction(async (trx) => {
     await trx('users').where({ id: userId }).update({ email: prefs.email || null });
-    for (const kind of NOTICE_KINDS) await setKind(trx, userId, kind, prefs.kinds[kind]);
+    for (const kind of NOTICE_KINDS) {
+      const enabled = prefs.kinds[kind];
+      if (enabled !== undefined) await setKind(trx, userId, kind, enabled);
+    }
   });
   return readPreferences(db, userId);
 }

@@ -5,12 +5,12 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 
 import { SNUG_MARGIN_MINUTES } from '@shared/api/limits';
-import type { SiteSettings } from '@shared/api/settings';
+import { DEFAULT_SETTINGS, settingsInputSchema, type SiteSettings } from '@shared/api/settings';
 import { action } from '../../core/state/action';
-import { fieldMessage, submitForm } from './form-problems';
+import { fieldMessage, schemaValidator, submitForm } from './form-problems';
 import { SetupApi } from './setup-api';
 
-/** Setup → Site: the department's name, its IANA time zone, the snug margin and the notices sender. */
+/** Setup → Site: the department's name, its IANA time zone, the snug margin, the notices sender and the day-before notice's time. */
 @Component({
   selector: 'tw-site-tab',
   imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule],
@@ -45,6 +45,12 @@ import { SetupApi } from './setup-api';
         <mat-hint>The From address of notices Turnwise e-mails; leave empty until your mail team gives one</mat-hint>
         <mat-error>{{ message('noticesSender') }}</mat-error>
       </mat-form-field>
+      <mat-form-field>
+        <mat-label>Day-before notice at</mat-label>
+        <input matInput type="time" formControlName="dayBeforeNoticeAt" required />
+        <mat-hint>Site time the charge technologists get tomorrow's problem gaps and isolation cases</mat-hint>
+        <mat-error>{{ message('dayBeforeNoticeAt') }}</mat-error>
+      </mat-form-field>
       @if (formError(); as text) {
         <p class="form-error" role="alert">{{ text }}</p>
       }
@@ -72,6 +78,7 @@ export class SiteTab {
     timezone: ['', Validators.required],
     snugMarginMinutes: [3, [Validators.required, Validators.min(SNUG_MARGIN_MINUTES.min), Validators.max(SNUG_MARGIN_MINUTES.max)]],
     noticesSender: ['', [Validators.email, Validators.maxLength(254)]],
+    dayBeforeNoticeAt: [DEFAULT_SETTINGS.dayBeforeNoticeAt, [Validators.required, schemaValidator(settingsInputSchema(() => true).shape.dayBeforeNoticeAt)]],
   });
   protected readonly saving = action(() => {
     const value = this.form.getRawValue();
@@ -81,7 +88,13 @@ export class SiteTab {
   constructor() {
     this.api.settings().subscribe({
       next: (settings: SiteSettings) => {
-        this.form.setValue({ siteName: settings.siteName, timezone: settings.timezone, snugMarginMinutes: settings.snugMarginMinutes, noticesSender: settings.noticesSender ?? '' });
+        this.form.setValue({
+          siteName: settings.siteName,
+          timezone: settings.timezone,
+          snugMarginMinutes: settings.snugMarginMinutes,
+          noticesSender: settings.noticesSender ?? '',
+          dayBeforeNoticeAt: settings.dayBeforeNoticeAt ?? DEFAULT_SETTINGS.dayBeforeNoticeAt,
+        });
         this.loading.set(false);
       },
       error: (error: { message: string }) => this.formError.set(error.message),
