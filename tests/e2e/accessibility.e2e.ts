@@ -47,6 +47,13 @@ const VIEWS: Record<string, View[]> = {
         await page.locator('.live[data-live="live"]').waitFor();
       },
     },
+    {
+      name: 'day-sheet',
+      url: '/day/2027-03-10/sheet',
+      heading: 'Day sheet',
+      bare: true,
+      loaded: (page) => page.locator('tw-sheet-room').first().waitFor(),
+    },
   ],
   import: [{ name: 'import', url: '/import', heading: 'Import', loaded: (page) => page.locator('tw-drop-zone').waitFor() }],
   'rooms-now': [
