@@ -6,7 +6,7 @@ import type { Clock } from '../clock';
 import type { DayEvents } from '../services/day-events';
 import { currentUser, requireRole, requireUser } from '../middleware/roles';
 import { roomKit, setRoomKit } from '../services/equipment';
-import { listSetupRooms, restoreRoom, retireRoom, updateRoom } from '../services/room-setup';
+import { getSetupRoom, listSetupRooms, restoreRoom, retireRoom, updateRoom } from '../services/room-setup';
 import { parseInput } from '../validate';
 import { publishDayEvent } from './announce';
 import { dayOrToday, idParam } from './params';
@@ -42,9 +42,12 @@ export function roomSetupRoutes(deps: { db: Knex; clock: Clock; events: DayEvent
     res.json({ room });
   });
 
-  /** The room's cleaning kit; the Turnover screen of an MR room will list it with the Zone IV caution. */
+  /** The room's cleaning kit and, for an MR room, its zone layout: the Turnover screen lists both with the Zone IV caution. */
   router.get('/:id/kit', requireUser, async (req, res) => {
-    res.json({ kit: await roomKit(deps.db, idParam(req.params['id'], 'a room')) });
+    const id = idParam(req.params['id'], 'a room');
+    const kit = await roomKit(deps.db, id);
+    const room = await getSetupRoom(deps.db, id);
+    res.json({ kit, mrZones: room.mrZones });
   });
 
   router.put('/:id/kit', requireRole('admin'), async (req, res) => {

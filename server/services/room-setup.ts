@@ -5,14 +5,21 @@ import { RoomHasExamsError } from '../setup-errors';
 import { changedFields, recordAudit, type Actor } from './audit';
 import { refuseUnsafeForMr } from './equipment';
 import { roomWeeks, saveRoomWeek, weekText } from './room-hours';
+import { mrZonesText, readMrZones, saveMrZones } from './room-mr-zones';
 import { toRoom } from './rooms';
 
 type RoomRow = Parameters<typeof toRoom>[0] & { active: number | boolean; retired_at: string | null };
 
 async function toSetupRooms(db: Knex, rows: RoomRow[]): Promise<SetupRoom[]> {
   const rooms = rows.map(toRoom);
-  const weeks = await roomWeeks(db, rooms);
-  return rooms.map((room, i) => ({ ...room, retired: !rows[i]!.active, retiredAt: rows[i]!.retired_at, week: weeks.get(room.id)! }));
+  const [weeks, zones] = await Promise.all([roomWeeks(db, rooms), readMrZones(db, rooms.map((r) => r.id))]);
+  return rooms.map((room, i) => ({
+    ...room,
+    retired: !rows[i]!.active,
+    retiredAt: rows[i]!.retired_at,
+    week: weeks.get(room.id)!,
+    mrZones: room.modality === 'MR' ? (zones.get(room.id) ?? null) : null,
+  }));
 }
 
 /** Every room, retired ones last: Setup edits them all; the board and plan list only active ones. */
@@ -27,7 +34,7 @@ export async function getSetupRoom(db: Knex, id: number): Promise<SetupRoom> {
   return (await toSetupRooms(db, [row]))[0]!;
 }
 
-function audited(room: Omit<RoomFields, 'week'> & { week?: SetupRoom['week'] }) {
+function audited(room: Omit<RoomFields, 'week' | 'mrZones'> & Partial<Pick<SetupRoom, 'week' | 'mrZones'>>) {
   return {
     name: room.name,
     modality: room.modality,
@@ -36,6 +43,7 @@ function audited(room: Omit<RoomFields, 'week'> & { week?: SetupRoom['week'] }) 
     opensAt: room.opensAt,
     closesAt: room.closesAt,
     ...(room.week ? { week: weekText(room.week) } : {}),
+    ...(room.mrZones ? { mrZones: mrZonesText(room.mrZones) } : {}),
   };
 }
 
@@ -65,6 +73,7 @@ export async function updateRoom(db: Knex, id: number, input: RoomFields, by: Ac
       closes_at: input.closesAt,
     });
     if (input.week) await saveRoomWeek(trx, id, input.week);
+    if (input.mrZones) await saveMrZones(trx, id, input.mrZones);
     const after = await getSetupRoom(trx, id);
     const diff = changedFields(audited(before), audited(after));
     if (Object.keys(diff.after).length > 0) await recordAudit(trx, by, { area: 'room', action: 'changed', subject: after.name, ...diff }, now);

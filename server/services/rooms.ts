@@ -3,6 +3,7 @@ import type { Room, RoomFields } from '../../shared/api/rooms';
 import { ValidationError } from '../errors';
 import { recordAudit, type Actor } from './audit';
 import { saveRoomWeek, weekText } from './room-hours';
+import { mrZonesText, saveMrZones } from './room-mr-zones';
 import { addDefaultShiftTasks } from './shift-tasks';
 
 interface RoomRow {
@@ -49,11 +50,16 @@ export async function createRoom(db: Knex, room: RoomFields, now: Date, by?: Act
       created_at: now.toISOString(),
     });
     if (room.week) await saveRoomWeek(trx, roomId, room.week);
+    if (room.mrZones) await saveMrZones(trx, roomId, room.mrZones);
     // every new room starts with our default shift tasks (wipe-downs, scanner QA, deep clean)
     await addDefaultShiftTasks(trx, roomId, room, now);
     if (by) {
       const { name, modality, airChangesPerHour, staff, opensAt, closesAt, week } = room;
-      const after = { name, modality, airChangesPerHour, staff, opensAt, closesAt, ...(week ? { week: weekText(week) } : {}) };
+      const after = {
+        name, modality, airChangesPerHour, staff, opensAt, closesAt,
+        ...(week ? { week: weekText(week) } : {}),
+        ...(room.mrZones ? { mrZones: mrZonesText(room.mrZones) } : {}),
+      };
       await recordAudit(trx, by, { area: 'room', action: 'created', subject: name, before: null, after }, now);
     }
     return roomId;

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { AIR_CHANGES_PER_HOUR, ROOM_NAME_MAX, TURNOVER_STAFF } from './limits';
+import { mrZonesSchema, type MrZones } from './mr-zones';
 import { hhmm, roomWeekSchema, type RoomDay } from './room-hours';
 
 /**
@@ -21,6 +22,10 @@ export const roomInputSchema = z.object({
   closesAt: hhmm.default('19:00'),
   /** Hours per weekday, Monday to Sunday; a weekday without its own hours keeps `opensAt`–`closesAt`. */
   week: roomWeekSchema.optional(),
+  /** MR rooms only: the ACR zone layout (where the kit is kept, what is Zone IV). */
+  mrZones: mrZonesSchema.optional(),
+}).superRefine((room, ctx) => {
+  if (room.mrZones && room.modality !== 'MR') ctx.addIssue({ code: 'custom', path: ['mrZones'], message: 'only an MR room has MR zones' });
 });
 export type RoomInput = z.input<typeof roomInputSchema>;
 export type RoomFields = z.output<typeof roomInputSchema>;
@@ -41,4 +46,6 @@ export interface SetupRoom extends Room {
   retiredAt: string | null;
   /** Monday to Sunday: each weekday's own hours, or the usual ones where it has none. */
   week: RoomDay[];
+  /** An MR room's zone layout; null for other rooms and an MR room not yet described. */
+  mrZones: MrZones | null;
 }

@@ -1,10 +1,12 @@
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
+import { map } from 'rxjs';
 
 import { AIR_CHANGES_PER_HOUR, ROOM_NAME_MAX, TURNOVER_STAFF } from '@shared/api/limits';
 import type { RoomDay } from '@shared/api/room-hours';
@@ -12,13 +14,14 @@ import { MODALITIES, type SetupRoom } from '@shared/api/rooms';
 import { action } from '../../core/state/action';
 import { CautionNote } from '../../shared/ui/caution-note';
 import { fieldMessage, submitForm } from './form-problems';
+import { mrZonesForm, RoomMrZones } from './room-mr-zones';
 import { RoomWeek, weekForm } from './room-week';
 import { SetupApi } from './setup-api';
 
 /** Add or edit a room; the API's 422 problems appear under their fields. */
 @Component({
   selector: 'tw-room-dialog',
-  imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, CautionNote, RoomWeek],
+  imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, CautionNote, RoomMrZones, RoomWeek],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <h2 mat-dialog-title>{{ room ? 'Edit ' + room.name : 'Add a room' }}</h2>
@@ -56,7 +59,8 @@ import { SetupApi } from './setup-api';
         @if (form.controls.week.errors?.['server']; as problem) {
           <p class="form-error" role="alert">Opening hours: {{ problem }}</p>
         }
-        @if (form.controls.modality.value === 'MR') {
+        @if (isMr()) {
+          <tw-room-mr-zones [zones]="form.controls.mrZones" />
           <tw-caution-note kind="mr" />
         }
         @if (formError(); as text) {
@@ -87,12 +91,16 @@ export class RoomDialog {
     airChangesPerHour: [this.room?.airChangesPerHour ?? 12, [Validators.required, Validators.min(AIR_CHANGES_PER_HOUR.min), Validators.max(AIR_CHANGES_PER_HOUR.max)]],
     staff: [this.room?.staff ?? 1, [Validators.required, Validators.min(TURNOVER_STAFF.min), Validators.max(TURNOVER_STAFF.max)]],
     week: weekForm(this.room?.week),
+    mrZones: mrZonesForm(this.room?.mrZones),
   });
+  protected readonly isMr = toSignal(this.form.controls.modality.valueChanges.pipe(map((m) => m === 'MR')), { initialValue: this.form.controls.modality.value === 'MR' });
 
   protected readonly saving = action(() => {
-    const value = this.form.getRawValue();
+    const { mrZones, ...value } = this.form.getRawValue();
     const body = {
       ...value,
+      // the zone layout belongs to MR rooms only (the API refuses it for others)
+      ...(value.modality === 'MR' ? { mrZones } : {}),
       ...this.usualHours(value.week),
       name: value.name.trim(),
       airChangesPerHour: Number(value.airChangesPerHour),

@@ -6,7 +6,7 @@ import { RoomDialog } from './room-dialog';
 import { UserDialog } from './user-dialog';
 
 const WEEK = [1, 2, 3, 4, 5, 6, 7].map((weekday) => ({ weekday, closed: weekday === 7, opensAt: '07:00', closesAt: '19:00' }));
-const MR2: SetupRoom = { id: 2, name: 'MR 2', modality: 'MR', airChangesPerHour: 12, staff: 1, opensAt: '07:00', closesAt: '19:00', retired: false, retiredAt: null, week: WEEK };
+const MR2: SetupRoom = { id: 2, name: 'MR 2', modality: 'MR', airChangesPerHour: 12, staff: 1, opensAt: '07:00', closesAt: '19:00', retired: false, retiredAt: null, week: WEEK, mrZones: null };
 
 describe('RoomDialog', () => {
   it('puts the API’s 422 problems under their fields and stays open', async () => {
@@ -100,6 +100,27 @@ describe('RoomDialog week editor', () => {
     backend.expectOne({ method: 'PUT', url: '/api/rooms/2' }).flush(...refusal([{ field: 'week.4.opensAt', message: 'use HH:MM (24-hour)' }]));
     await settle(fixture);
     expect(errorUnder(page, time(5, 'opens'))).toBe('use HH:MM (24-hour)');
+  });
+});
+
+describe('RoomDialog MR zones', () => {
+  it('records where an MR room’s kit is kept and what is Zone IV (the ACR’s four zones), and sends it', async () => {
+    const { fixture, backend, page } = render(RoomDialog, { ...MR2, mrZones: { kitKeptIn: 'zone-iii', zoneIvAreas: '', notes: '' } });
+    await settle(fixture);
+    // ACR Manual on MR Safety: Zone I public … Zone IV the magnet room
+    expect(page.querySelector('tw-room-mr-zones')!.textContent).toMatch(/ACR Manual on MR Safety.*Zone I public areas.*Zone IV the magnet room/s);
+    type(page, 'textarea[formcontrolname="zoneIvAreas"]', 'Magnet room and the door from the control room');
+    submit(page);
+    const request = backend.expectOne({ method: 'PUT', url: '/api/rooms/2' });
+    expect(request.request.body.mrZones).toEqual({ kitKeptIn: 'zone-iii', zoneIvAreas: 'Magnet room and the door from the control room', notes: '' });
+  });
+
+  it('has no zone layout for a room that is not MR, and sends none', async () => {
+    const { fixture, backend, page } = render(RoomDialog, { ...MR2, modality: 'CT', name: 'CT 1' });
+    await settle(fixture);
+    expect(page.querySelector('tw-room-mr-zones')).toBeNull();
+    submit(page);
+    expect(backend.expectOne({ method: 'PUT', url: '/api/rooms/2' }).request.body).not.toHaveProperty('mrZones');
   });
 });
 

@@ -3,6 +3,7 @@ import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 
 import type { BoardShiftTask, Checklist } from '@shared/api/board';
+import type { RoomKitAnswer } from '@shared/api/mr-zones';
 import type { Room } from '@shared/api/rooms';
 import { showsOwnErrors } from '../../core/http/shows-own-errors';
 
@@ -47,6 +48,11 @@ export class TurnoverService {
   complete(turnoverId: number, overrideReason?: string): Observable<Checklist> {
     const body = overrideReason ? { overrideReason } : {};
     return this.http.post<Checklist>(`/api/turnovers/${turnoverId}/complete`, body, this.quiet);
+  }
+
+  /** The room's cleaning kit and, for an MR room, its zone layout. */
+  kit(roomId: number): Observable<RoomKitAnswer> {
+    return this.http.get<RoomKitAnswer>(`/api/rooms/${roomId}/kit`, this.quiet);
   }
 
   shiftTaskDone(task: BoardShiftTask): Observable<BoardShiftTask> {

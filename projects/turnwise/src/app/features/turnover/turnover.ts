@@ -17,6 +17,7 @@ import { LiveIndicator } from '../../shared/ui/live-indicator';
 import { SiteTime } from '../../shared/ui/site-time';
 import { ChecklistStepRow } from './checklist-step-row';
 import { readLastRoom, rememberRoom } from './last-room';
+import { MrKitPanel } from './mr-kit-panel';
 import { ShiftTaskList } from './shift-task-list';
 import { TurnoverClose } from './turnover-close';
 import { ExamFinished, TurnoverExams } from './turnover-exams';
@@ -34,7 +35,7 @@ interface ChecklistAt {
   selector: 'tw-turnover',
   imports: [
     MatFormFieldModule, MatIconModule, MatInputModule,
-    CautionNote, ChecklistStepRow, LiveIndicator, ShiftTaskList, SiteTime, TurnoverClose, TurnoverExams, TurnoverTabs,
+    CautionNote, ChecklistStepRow, LiveIndicator, MrKitPanel, ShiftTaskList, SiteTime, TurnoverClose, TurnoverExams, TurnoverTabs,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './turnover.html',
