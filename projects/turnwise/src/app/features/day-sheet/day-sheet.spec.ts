@@ -95,7 +95,11 @@ describe('DaySheet', () => {
     const steps = Array.from(beforeAcc2.querySelectorAll('.steps li'));
     expect(steps).toHaveLength(short.steps.length);
     expect(text(steps[0].querySelector('.person'))).toBe('Person 1');
-    expect(steps.map((step) => text(step.querySelector('.label')))).toEqual(expect.arrayContaining(short.steps.map((step) => step.label)));
+    expect(steps.map((step) => text(step.querySelector('.name')))).toEqual(expect.arrayContaining(short.steps.map((step) => step.label)));
+    // A step that leaves a surface wet says when it is dry, beside the step's name.
+    const wet = short.steps.find((step) => step.dryAt !== step.end)!;
+    const wetItem = steps.find((step) => text(step.querySelector('.name')) === wet.label)!;
+    expect(text(wetItem.querySelector('.label'))).toMatch(new RegExp(`^${wet.label.replace(/[()]/g, '\\$&')} · dry at \\d\\d:\\d\\d$`));
     expect(text(rows[4].querySelector('.verdict'))).toBe(shown.rooms[0].gaps.find((gap) => gap.toExamId === 3)!.verdict);
   });
 
