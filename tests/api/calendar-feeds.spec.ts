@@ -1,5 +1,6 @@
 import ICAL from 'ical.js';
 import { DateTime } from 'luxon';
+import { FEED_MISSES_PER_WINDOW } from '../../server/routes/calendar';
 import { ruleOccurrences } from '../../server/services/shift-task-rules';
 import { EXAM_LIST_HEADER, toCsv } from '../fixtures/exam-lists';
 import { client, signedIn, startHarness, type Client, type Harness } from './harness';
@@ -186,5 +187,19 @@ describe('calendar feeds', () => {
     expect((await fetchFeed(app, fresh)).status).toBe(404);
     expect((await charge.get('/api/profile/calendar')).body.active).toBe(false);
     expect((await fetchFeed(app, `${PUBLIC_URL}/api/calendar/${'A'.repeat(43)}/mine.ics`)).status).toBe(404);
+  });
+
+  // last: it spends this address's allowance for the rest of the file
+  it('throttles an address that keeps asking for unknown tokens (429 too_many_attempts), not the token routes', async () => {
+    const unknown = (n: number) => `/api/calendar/${n.toString().padStart(43, 'B')}/mine.ics`;
+    const statuses: number[] = [];
+    for (let n = 1; n <= FEED_MISSES_PER_WINDOW; n++) statuses.push((await app.get(unknown(n))).status);
+    // the tests above asked for a few unknown tokens of their own from this address
+    expect(statuses.filter((s) => s === 404).length).toBeGreaterThan(FEED_MISSES_PER_WINDOW - 10);
+    expect(statuses.filter((s) => s !== 404 && s !== 429)).toEqual([]);
+    const throttled = await app.get(unknown(FEED_MISSES_PER_WINDOW + 1));
+    expect(throttled.status).toBe(429);
+    expect(throttled.body.error.code).toBe('too_many_attempts');
+    expect((await charge.get('/api/profile/calendar')).status).toBe(200);
   });
 });
