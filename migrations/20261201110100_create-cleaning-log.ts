@@ -41,6 +41,17 @@ export async function up(knex: Knex): Promise<void> {
     t.integer('achieved_minutes').notNullable();
     t.string('recorded_at', 40).notNullable();
   });
+  // PostgreSQL: one plpgsql function refuses the row change, fired before each UPDATE or DELETE.
+  if (knex.client.config.client === 'pg') {
+    await knex.raw(
+      `CREATE FUNCTION append_only_refuse() RETURNS trigger LANGUAGE plpgsql AS $$ ` +
+        `BEGIN RAISE EXCEPTION '% is append-only: add a correction instead', TG_TABLE_NAME; END $$`,
+    );
+    for (const table of ['cleaning_log', 'cleaning_log_contact']) {
+      await knex.raw(`CREATE TRIGGER ${table}_append_only BEFORE UPDATE OR DELETE ON ${table} FOR EACH ROW EXECUTE FUNCTION append_only_refuse()`);
+    }
+    return;
+  }
   for (const table of ['cleaning_log', 'cleaning_log_contact']) {
     for (const action of ['UPDATE', 'DELETE']) {
       await knex.raw(
@@ -55,4 +66,5 @@ export async function down(knex: Knex): Promise<void> {
   // DROP TABLE removes the triggers with the table and fires none of them.
   await knex.schema.dropTable('cleaning_log_contact');
   await knex.schema.dropTable('cleaning_log');
+  if (knex.client.config.client === 'pg') await knex.raw('DROP FUNCTION append_only_refuse()');
 }

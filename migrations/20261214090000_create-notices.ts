@@ -29,9 +29,14 @@ export async function up(knex: Knex): Promise<void> {
     t.index(['status', 'next_attempt_at']);
     t.index(['created_at']);
   });
-  await knex.raw(`create trigger notices_status_check before insert on notices
+  // PostgreSQL: the same rule as a CHECK constraint, dropped with the table.
+  if (knex.client.config.client === 'pg') {
+    await knex.raw("ALTER TABLE notices ADD CONSTRAINT notices_status_check CHECK (status IN ('queued', 'sending', 'sent', 'failed'))");
+  } else {
+    await knex.raw(`create trigger notices_status_check before insert on notices
     when new.status not in ('queued', 'sending', 'sent', 'failed')
     begin select raise(abort, 'notices.status must be queued, sending, sent or failed'); end`);
+  }
 
   await knex.schema.createTable('notice_settings', (t) => {
     t.integer('user_id').notNullable().references('users.id').onDelete('CASCADE');
@@ -63,6 +68,6 @@ export async function down(knex: Knex): Promise<void> {
   await knex.schema.dropTable('caught_mail');
   await knex.schema.dropTable('notice_cursors');
   await knex.schema.dropTable('notice_settings');
-  await knex.raw('drop trigger if exists notices_status_check');
+  if (knex.client.config.client !== 'pg') await knex.raw('drop trigger if exists notices_status_check');
   await knex.schema.dropTable('notices');
 }

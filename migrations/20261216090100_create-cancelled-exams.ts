@@ -19,6 +19,16 @@ export async function up(knex: Knex): Promise<void> {
     t.index(['day', 'room_id']);
     t.index(['exam_id']);
   });
+  // PostgreSQL: the same row trigger, through a plpgsql function.
+  if (knex.client.config.client === 'pg') {
+    await knex.raw(`create function exams_keep_cancelled() returns trigger language plpgsql as $$ begin
+      insert into cancelled_exams (exam_id, day, accession, room_id, start_at, duration_minutes, procedure, version)
+      values (old.id, old.day, old.accession, old.room_id, old.start_at, old.duration_minutes, old.procedure, old.version);
+      return null;
+    end $$`);
+    await knex.raw('create trigger exams_keep_cancelled after delete on exams for each row execute function exams_keep_cancelled()');
+    return;
+  }
   await knex.raw(`create trigger exams_keep_cancelled after delete on exams
     begin
       insert into cancelled_exams (exam_id, day, accession, room_id, start_at, duration_minutes, procedure, version)
@@ -27,6 +37,9 @@ export async function up(knex: Knex): Promise<void> {
 }
 
 export async function down(knex: Knex): Promise<void> {
-  await knex.raw('drop trigger if exists exams_keep_cancelled');
+  if (knex.client.config.client === 'pg') {
+    await knex.raw('drop trigger if exists exams_keep_cancelled on exams');
+    await knex.raw('drop function if exists exams_keep_cancelled()');
+  } else await knex.raw('drop trigger if exists exams_keep_cancelled');
   await knex.schema.dropTable('cancelled_exams');
 }

@@ -17,6 +17,12 @@ export async function up(knex: Knex): Promise<void> {
     t.string('closes_at', 5).notNullable();
     t.primary(['room_id', 'weekday']);
   });
+  // PostgreSQL: the weekday rule as a CHECK, the setup version by the shared plpgsql function.
+  if (knex.client.config.client === 'pg') {
+    await knex.raw('ALTER TABLE room_hours ADD CONSTRAINT room_hours_weekday_check CHECK (weekday BETWEEN 1 AND 7)');
+    await knex.raw('CREATE TRIGGER room_hours_day_version AFTER INSERT OR UPDATE OR DELETE ON room_hours FOR EACH ROW EXECUTE FUNCTION day_version_bump_setup()');
+    return;
+  }
   await knex.raw(
     'CREATE TRIGGER room_hours_weekday_check BEFORE INSERT ON room_hours WHEN NEW.weekday NOT BETWEEN 1 AND 7 ' +
       "BEGIN SELECT RAISE(ABORT, 'weekday must be 1 (Monday) to 7 (Sunday)'); END",
@@ -28,6 +34,10 @@ export async function up(knex: Knex): Promise<void> {
 }
 
 export async function down(knex: Knex): Promise<void> {
+  if (knex.client.config.client === 'pg') {
+    await knex.schema.dropTable('room_hours');
+    return;
+  }
   for (const action of ['insert', 'update', 'delete']) await knex.raw(`DROP TRIGGER IF EXISTS room_hours_day_version_${action}`);
   await knex.raw('DROP TRIGGER IF EXISTS room_hours_weekday_check');
   await knex.schema.dropTable('room_hours');
