@@ -5,6 +5,8 @@ import { randomBytes } from 'node:crypto';
 export interface ServerConfig {
   port: number;
   databaseFile: string;
+  /** DATABASE_URL (`postgres://…`): PostgreSQL, for more than one server process; null: the SQLite file. */
+  databaseUrl: string | null;
   sessionSecret: string;
   production: boolean;
   demo: boolean;
@@ -38,6 +40,7 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
   return {
     port: Number(env['PORT'] ?? 3000),
     databaseFile,
+    databaseUrl: databaseUrl(env),
     sessionSecret,
     production,
     demo,
@@ -45,6 +48,13 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     trustProxy: (env['TRUST_PROXY'] ?? '').split(',').map((entry) => entry.trim()).filter(Boolean),
     hl7: hl7Listener(env, demo),
   };
+}
+
+function databaseUrl(env: NodeJS.ProcessEnv): string | null {
+  const url = env['DATABASE_URL']?.trim();
+  if (!url) return null;
+  if (!/^postgres(ql)?:\/\//i.test(url)) throw new Error('DATABASE_URL must be a postgres:// URL; leave it unset to use the SQLite file (DATABASE_FILE).');
+  return url;
 }
 
 function hl7Listener(env: NodeJS.ProcessEnv, demo: boolean): ServerConfig['hl7'] {

@@ -1,6 +1,6 @@
 import { createInterface } from 'node:readline/promises';
 import { readConfig } from './config';
-import { createDb, migrateToLatest } from './db';
+import { createDb, describeDatabase, migrateToLatest } from './db';
 import { seedReferenceData } from './seeding';
 import { createUser } from './services/users';
 
@@ -8,14 +8,14 @@ import { createUser } from './services/users';
 async function main(): Promise<void> {
   const username = process.argv[2] ?? 'admin';
   const config = readConfig({ ...process.env, SESSION_SECRET: process.env['SESSION_SECRET'] ?? 'unused-here' });
-  const db = createDb(config.databaseFile);
+  const db = createDb(config.databaseUrl ?? config.databaseFile);
   try {
     await migrateToLatest(db);
     await seedReferenceData(db);
     const password = process.env['ADMIN_PASSWORD'] ?? (await ask(`Password for ${username} (12+ characters): `));
     if (password.length < 12) throw new Error('Use a password of at least 12 characters.');
     await createUser(db, { username, password, role: 'admin', displayName: 'Administrator' }, new Date());
-    console.log(`Admin "${username}" created in ${config.databaseFile}.`);
+    console.log(`Admin "${username}" created in ${describeDatabase(config.databaseUrl ?? config.databaseFile)}.`);
   } finally {
     await db.destroy();
   }

@@ -1,6 +1,7 @@
 import path from 'node:path';
 import fs from 'node:fs';
 import knex, { Knex } from 'knex';
+import { types as pgTypes } from 'pg';
 
 export const MIGRATIONS_DIR = path.resolve(__dirname, '..', 'migrations');
 
@@ -10,11 +11,19 @@ export const migrationConfig: Knex.MigratorConfig = {
   loadExtensions: ['.ts', '.js'],
 };
 
+/** A `postgres://` or `postgresql://` URL selects PostgreSQL; anything else is an SQLite file. */
+export function isPostgresUrl(target: string): boolean {
+  return /^postgres(ql)?:\/\//i.test(target);
+}
+
 /**
- * Opens the SQLite file (or `:memory:`) with WAL and foreign keys on every pooled connection.
- * The parent folder is created so a fresh clone starts without setup.
+ * Opens the database: PostgreSQL for a `postgres://` URL (DATABASE_URL, the scale-out setup),
+ * else the SQLite file (or `:memory:`) with WAL and foreign keys on every pooled connection.
+ * The SQLite file's parent folder is created so a fresh clone starts without setup.
  */
-export function createDb(filename: string): Knex {
+export function createDb(target: string): Knex {
+  if (isPostgresUrl(target)) return createPostgresDb(target);
+  const filename = target;
   if (filename !== ':memory:') fs.mkdirSync(path.dirname(path.resolve(filename)), { recursive: true });
   return knex({
     client: 'better-sqlite3',
@@ -29,6 +38,40 @@ export function createDb(filename: string): Knex {
       },
     },
   });
+}
+
+/** PostgreSQL type ids whose text pg would hand over as a string. */
+const INT8 = 20;
+const NUMERIC = 1700;
+
+/**
+ * PostgreSQL through the same Knex code. Counts and sums come back as int8 and averages as
+ * numeric, which pg answers as strings (they may exceed 2^53); every such number here is a
+ * count of rows or minutes, so they are read as JavaScript numbers, as SQLite answers them.
+ * The parsers are this pool's own, not pg's global ones.
+ */
+function createPostgresDb(connectionString: string): Knex {
+  return knex({
+    client: 'pg',
+    connection: {
+      connectionString,
+      types: {
+        getTypeParser: (oid: number, format?: string) => {
+          if (oid === INT8 || oid === NUMERIC) return (value: string) => Number(value);
+          return pgTypes.getTypeParser(oid, format === 'binary' ? 'binary' : 'text');
+        },
+      },
+    },
+    pool: { min: 0, max: 10 },
+  });
+}
+
+/** The database a target names, for a log line: the URL without its password, or the file. */
+export function describeDatabase(target: string): string {
+  if (!isPostgresUrl(target)) return target;
+  const url = new URL(target);
+  if (url.password) url.password = '***';
+  return url.toString();
 }
 
 export async function migrateToLatest(db: Knex): Promise<void> {

@@ -1,6 +1,6 @@
 import { appHl7Address, appMailer, closeApp, createApp } from './app';
 import { readConfig } from './config';
-import { createDb, migrateToLatest } from './db';
+import { createDb, describeDatabase, migrateToLatest } from './db';
 import { seedDemo, seedReferenceData } from './seeding';
 import { systemClock } from './clock';
 import { listDemoAccounts } from './services/demo-accounts';
@@ -8,7 +8,7 @@ import { smtpFromEnv } from './services/mail/smtp-settings';
 
 async function main(): Promise<void> {
   const config = readConfig();
-  const db = createDb(config.databaseFile);
+  const db = createDb(config.databaseUrl ?? config.databaseFile);
   await migrateToLatest(db);
   await seedReferenceData(db);
   // the demo day is played forward to now, so the board and log start from a believable state
@@ -38,7 +38,7 @@ async function main(): Promise<void> {
   }
   const demoAccounts = config.demo ? await listDemoAccounts(db) : null;
   const server = app.listen(config.port, () => {
-    console.log(`Turnwise is ready at http://localhost:${config.port} (${config.demo ? 'demo mode' : 'production'}; database ${config.databaseFile})`);
+    console.log(`Turnwise is ready at http://localhost:${config.port} (${config.demo ? 'demo mode' : 'production'}; database ${describeDatabase(config.databaseUrl ?? config.databaseFile)})`);
     if (demoAccounts) {
       console.log(`Demo accounts (password "${demoAccounts.password}"): ${demoAccounts.accounts.map((a) => `${a.username} (${a.role})`).join(', ')}`);
     }

@@ -17,6 +17,7 @@ interface ChangeRow {
   created_at: string;
   username: string;
   display_name: string;
+  after_manual_change: number | boolean | null;
 }
 
 /** Records one user action (any number of moves/staffing changes) as one audit row. */
@@ -45,9 +46,11 @@ export async function dayHistory(db: Knex, day: string, userId: number): Promise
   const { timezone } = await readSettings(db);
   const rows: ChangeRow[] = await db('plan_changes')
     .join('users', 'users.id', 'plan_changes.user_id')
+    // the booking feed's flag lives on the message that made the change (at most one per change)
+    .leftJoin('hl7_messages', 'hl7_messages.change_id', 'plan_changes.id')
     .where('plan_changes.day', day)
     .orderBy('plan_changes.id', 'desc')
-    .select('plan_changes.*', 'users.username', 'users.display_name');
+    .select('plan_changes.*', 'users.username', 'users.display_name', 'hl7_messages.after_manual_change');
   // Retired rooms too: an old move still names the room it left.
   const rooms = new Map<number, string>((await db('rooms').select('id', 'name')).map((r: { id: number; name: string }) => [r.id, r.name]));
   const byId = new Map(rows.map((r) => [r.id, r]));
@@ -68,6 +71,7 @@ export async function dayHistory(db: Knex, day: string, userId: number): Promise
       changes: list,
       revertsId: r.reverts_id,
       undone: r.undone_at !== null,
+      afterManualChange: Boolean(r.after_manual_change),
       at: siteTime(r.created_at),
     };
   });
@@ -178,6 +182,6 @@ export async function undoOrRedo(db: Knex, day: string, userId: number, mode: 'u
     await applyChanges(trx, changes, userId, now);
     const id = await recordChange(trx, { day, userId, reason: mode, summary: `${mode === 'undo' ? 'Undid' : 'Redid'}: ${target.summary}`, changes, revertsId: target.id }, now);
     await trx('plan_changes').where({ id: target.id }).update({ undone_at: mode === 'undo' ? now.toISOString() : null });
-    return { id, day, username: '', displayName: '', reason: mode, summary: '', changes, revertsId: target.id, undone: false, at: now.toISOString() };
+    return { id, day, username: '', displayName: '', reason: mode, summary: '', changes, revertsId: target.id, undone: false, afterManualChange: false, at: now.toISOString() };
   });
 }

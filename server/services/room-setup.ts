@@ -6,9 +6,9 @@ import { changedFields, recordAudit, type Actor } from './audit';
 import { refuseUnsafeForMr } from './equipment';
 import { roomWeeks, saveRoomWeek, weekText } from './room-hours';
 import { mrZonesText, readMrZones, saveMrZones } from './room-mr-zones';
-import { toRoom } from './rooms';
+import { refuseTakenHl7Code, toRoom } from './rooms';
 
-type RoomRow = Parameters<typeof toRoom>[0] & { active: number | boolean; retired_at: string | null };
+type RoomRow = Parameters<typeof toRoom>[0] & { active: number | boolean; retired_at: string | null; hl7_code: string | null };
 
 async function toSetupRooms(db: Knex, rows: RoomRow[]): Promise<SetupRoom[]> {
   const rooms = rows.map(toRoom);
@@ -17,6 +17,7 @@ async function toSetupRooms(db: Knex, rows: RoomRow[]): Promise<SetupRoom[]> {
     ...room,
     retired: !rows[i]!.active,
     retiredAt: rows[i]!.retired_at,
+    hl7Code: rows[i]!.hl7_code ?? null,
     week: weeks.get(room.id)!,
     mrZones: room.modality === 'MR' ? (zones.get(room.id) ?? null) : null,
   }));
@@ -42,6 +43,7 @@ function audited(room: Omit<RoomFields, 'week' | 'mrZones'> & Partial<Pick<Setup
     staff: room.staff,
     opensAt: room.opensAt,
     closesAt: room.closesAt,
+    ...(room.hl7Code ? { hl7Code: room.hl7Code } : {}),
     ...(room.week ? { week: weekText(room.week) } : {}),
     ...(room.mrZones ? { mrZones: mrZonesText(room.mrZones) } : {}),
   };
@@ -59,6 +61,7 @@ export async function updateRoom(db: Knex, id: number, input: RoomFields, by: Ac
     const before = await getSetupRoom(trx, id);
     const clash = await trx('rooms').whereRaw('lower(name) = lower(?)', [input.name]).whereNot({ id }).first('id');
     if (clash) throw new ValidationError(`A room named "${input.name}" already exists.`, { problems: [{ field: 'name', message: 'already exists' }] });
+    await refuseTakenHl7Code(trx, input.hl7Code ?? null, id);
     if (input.modality === 'MR' && before.modality !== 'MR') {
       // a room becoming MR keeps its kit only if all of it may enter Zone IV
       const kit = await trx('equipment as e').join('room_kit as k', 'k.equipment_id', 'e.id').where('k.room_id', id).select('e.id', 'e.name', 'e.marking');
@@ -71,6 +74,7 @@ export async function updateRoom(db: Knex, id: number, input: RoomFields, by: Ac
       staff: input.staff,
       opens_at: input.opensAt,
       closes_at: input.closesAt,
+      ...(input.hl7Code !== undefined ? { hl7_code: input.hl7Code } : {}),
     });
     if (input.week) await saveRoomWeek(trx, id, input.week);
     if (input.mrZones) await saveMrZones(trx, id, input.mrZones);

@@ -28,6 +28,15 @@ export function toRoom(row: RoomRow): Room {
   };
 }
 
+/** Two rooms cannot answer to one HL7 location code (case aside): the feed would not know which. */
+export async function refuseTakenHl7Code(db: Knex, code: string | null, roomId: number | null): Promise<void> {
+  if (!code) return;
+  const q = db('rooms').whereRaw('lower(hl7_code) = lower(?)', [code]);
+  if (roomId !== null) q.whereNot({ id: roomId });
+  const taken = await q.first('name');
+  if (taken) throw new ValidationError(`The HL7 location code "${code}" is already ${taken.name}'s.`, { problems: [{ field: 'hl7Code', message: `already ${taken.name}'s` }] });
+}
+
 export async function listRooms(db: Knex): Promise<Room[]> {
   const rows: RoomRow[] = await db('rooms').where({ active: true }).orderBy([{ column: 'sort_order' }, { column: 'name' }]);
   return rows.map(toRoom);
@@ -37,6 +46,7 @@ export async function listRooms(db: Knex): Promise<Room[]> {
 export async function createRoom(db: Knex, room: RoomFields, now: Date, by?: Actor): Promise<Room> {
   const clash = await db('rooms').whereRaw('lower(name) = lower(?)', [room.name]).first();
   if (clash) throw new ValidationError(`A room named "${room.name}" already exists.`, { problems: [{ field: 'name', message: 'already exists' }] });
+  await refuseTakenHl7Code(db, room.hl7Code ?? null, null);
   const [{ max }] = await db('rooms').max({ max: 'sort_order' });
   const id = await db.transaction(async (trx) => {
     const [roomId] = await trx('rooms').insert({
@@ -46,6 +56,7 @@ export async function createRoom(db: Knex, room: RoomFields, now: Date, by?: Act
       staff: room.staff,
       opens_at: room.opensAt,
       closes_at: room.closesAt,
+      hl7_code: room.hl7Code ?? null,
       sort_order: (Number(max) || 0) + 1,
       created_at: now.toISOString(),
     });

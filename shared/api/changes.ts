@@ -59,6 +59,8 @@ export interface PlanChangeRecord {
   changes: PlanChange[];
   revertsId: number | null;
   undone: boolean;
+  /** Made by the booking feed (reason `hl7`) and moved an exam someone had changed by hand since the feed's last message about it. */
+  afterManualChange: boolean;
   at: string;
 }
 

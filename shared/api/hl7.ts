@@ -4,6 +4,16 @@ import { z } from 'zod';
 export const HL7_ACK_CODES = ['AA', 'AE', 'AR'] as const;
 export type Hl7AckCode = (typeof HL7_ACK_CODES)[number];
 
+/** How the day's history, the timeline and the interface log word a booking-feed move over a hand change. */
+export const AFTER_MANUAL_CHANGE = 'moved by the booking system after a manual change';
+
+/**
+ * The interface log keeps this many days of messages; older rows are pruned as new ones arrive
+ * (a few per message, so pruning never holds up the feed). A sender repeating a control id older
+ * than this would be applied again.
+ */
+export const HL7_LOG_KEEP_DAYS = 90;
+
 /** One message of the booking feed's interface log (`GET /api/hl7/messages`). */
 export interface Hl7LogEntry {
   id: number;

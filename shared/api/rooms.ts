@@ -3,6 +3,9 @@ import { AIR_CHANGES_PER_HOUR, ROOM_NAME_MAX, TURNOVER_STAFF } from './limits';
 import { mrZonesSchema, type MrZones } from './mr-zones';
 import { hhmm, roomWeekSchema, type RoomDay } from './room-hours';
 
+/** A room's HL7 location code (AIL-3) is at most this long. */
+export const HL7_CODE_MAX = 60;
+
 /**
  * DICOM modality codes, attribute (0008,0060), PS3.3 C.7.3.1.1.1 — the subset an imaging
  * department books scan rooms for.
@@ -22,6 +25,8 @@ export const roomInputSchema = z.object({
   closesAt: hhmm.default('19:00'),
   /** Hours per weekday, Monday to Sunday; a weekday without its own hours keeps `opensAt`–`closesAt`. */
   week: roomWeekSchema.optional(),
+  /** What the booking feed sends for this room in AIL-3 (matched before the name); '' or null: none. Left out: kept. */
+  hl7Code: z.string().trim().max(HL7_CODE_MAX, `at most ${HL7_CODE_MAX} characters`).nullable().optional().transform((code) => (code === '' ? null : code)),
   /** MR rooms only: the ACR zone layout (where the kit is kept, what is Zone IV). */
   mrZones: mrZonesSchema.optional(),
 }).superRefine((room, ctx) => {
@@ -46,6 +51,8 @@ export interface SetupRoom extends Room {
   retiredAt: string | null;
   /** Monday to Sunday: each weekday's own hours, or the usual ones where it has none. */
   week: RoomDay[];
+  /** The booking feed's location code for this room (AIL-3), matched before the room's name. */
+  hl7Code: string | null;
   /** An MR room's zone layout; null for other rooms and an MR room not yet described. */
   mrZones: MrZones | null;
 }

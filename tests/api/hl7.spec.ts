@@ -160,11 +160,14 @@ describe('HL7 v2 SIU booking feed over MLLP', () => {
     const log = await logOf('C-181');
     expect(log).toMatchObject({ afterManualChange: true, ackCode: 'AA' });
     const history = (await scheduler.get(`/api/days/${DAY}/history`)).body.changes[0];
-    expect(history).toMatchObject({ reason: 'hl7' });
+    expect(history).toMatchObject({ reason: 'hl7', afterManualChange: true });
     expect(history.summary).toContain('moved by the booking system after a manual change');
     // a later message with no hand move between is not flagged
     await send(siu('S13', { control: 'C-182', accession: 'HL-10', start: '202703120930-0600', minutes: 30, room: 'MR 3', sentAt: '20270312062000-0600' }));
     expect((await logOf('C-182')).afterManualChange).toBe(false);
+    const after = (await scheduler.get(`/api/days/${DAY}/history`)).body.changes;
+    expect(after[0]).toMatchObject({ reason: 'hl7', afterManualChange: false });
+    expect(after.find((c: { reason: string }) => c.reason === 'drag')).toMatchObject({ afterManualChange: false });
   });
 
   it('reads a message split across TCP packets, even between 0x1C and 0x0D', async () => {

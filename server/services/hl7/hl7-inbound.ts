@@ -6,7 +6,7 @@ import type { DayEvents } from '../day-events';
 import { readSettings } from '../settings';
 import { buildAck } from './ack';
 import { hl7Instant } from './hl7-time';
-import { withoutPatient, type LogRow } from './hl7-log';
+import { pruneHl7Log, withoutPatient, type LogRow } from './hl7-log';
 import { applySiu, FEED_USER, SiuRefusal, type SiuApplied } from './siu-apply';
 import type { SiuMapping } from './siu-mapping';
 import { hl7Text, readSiu, type Hl7ErrorCode, type Hl7Header } from './siu-read';
@@ -64,6 +64,7 @@ export async function receiveHl7(deps: Hl7InboundDeps, raw: string): Promise<str
         after_manual_change: outcome.applied?.afterManualChange ?? false,
         raw: stored,
       });
+      await pruneHl7Log(trx, now);
       return { outcome, logId: logId as number };
     });
     if (outcome.applied) {

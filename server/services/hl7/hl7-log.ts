@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import type { Hl7AckCode, Hl7LogEntry, Hl7LogMessage, Hl7LogQuery } from '../../../shared/api/hl7';
+import { HL7_LOG_KEEP_DAYS, type Hl7AckCode, type Hl7LogEntry, type Hl7LogMessage, type Hl7LogQuery } from '../../../shared/api/hl7';
 import { NotFoundError } from '../../errors';
 
 /**
@@ -69,4 +69,20 @@ export async function readHl7Message(db: Knex, id: number): Promise<Hl7LogMessag
   const row = (await db<LogRow>('hl7_messages').where({ id }).first()) as LogRow | undefined;
   if (!row) throw new NotFoundError(`No HL7 message ${id}.`);
   return { ...toEntry(row), raw: row.raw ?? '' };
+}
+
+/** At most this many rows go per message received, so pruning a long-idle log is spread out, never one long delete. */
+export const HL7_PRUNE_BATCH = 100;
+
+/**
+ * Drops messages first received more than {@link HL7_LOG_KEEP_DAYS} days before `now`, oldest
+ * first and at most {@link HL7_PRUNE_BATCH} at a time. Ids rise with arrival, so the oldest rows
+ * are found on the primary key alone. Answers how many went.
+ */
+export async function pruneHl7Log(db: Knex, now: Date): Promise<number> {
+  const cutoff = new Date(now.getTime() - HL7_LOG_KEEP_DAYS * 24 * 60 * 60 * 1000).toISOString();
+  const oldest: { id: number; received_at: string }[] = await db('hl7_messages').orderBy('id').limit(HL7_PRUNE_BATCH).select('id', 'received_at');
+  const ids = oldest.filter((row) => row.received_at < cutoff).map((row) => row.id);
+  if (ids.length > 0) await db('hl7_messages').whereIn('id', ids).delete();
+  return ids.length;
 }

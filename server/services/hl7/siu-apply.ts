@@ -1,8 +1,10 @@
 import type { Knex } from 'knex';
 import type { ExamFormInput } from '../../../shared/api/changes';
+import { AFTER_MANUAL_CHANGE } from '../../../shared/api/hl7';
 import { Refusal } from '../../errors';
 import { addExam, cancelExam, editExam } from '../exam-edits';
 import type { ExamRow } from '../exams';
+import type { Room } from '../../../shared/api/rooms';
 import { listRooms } from '../rooms';
 import { readSettings } from '../settings';
 import { resolveStart } from '../../../shared/exam-list';
@@ -26,7 +28,7 @@ export interface SiuApplied {
   afterManualChange: boolean;
 }
 
-export const AFTER_MANUAL_CHANGE = 'moved by the booking system after a manual change';
+export { AFTER_MANUAL_CHANGE };
 
 /** The user the feed's changes are recorded under: cannot sign in (inactive, no password). */
 export const FEED_USER = { username: 'hl7-feed', displayName: 'Booking system (HL7)' };
@@ -40,8 +42,8 @@ export async function applySiu(trx: Knex.Transaction, booking: SiuBooking, remov
   const [{ timezone }, rooms] = await Promise.all([readSettings(trx), listRooms(trx)]);
   const req = { userId: await feedUserId(trx, now), now, reason: 'hl7' as const };
   const start = booking.startTs ? readStart(booking.startTs, timezone) : null;
-  const room = booking.location ? rooms.find((r) => r.name.trim().toLowerCase() === booking.location.toLowerCase()) : undefined;
-  if (booking.location && !room) throw new SiuRefusal(204, `Unknown room "${booking.location}" (AIL-3): no room of that name is set up.`);
+  const room = booking.location ? await roomFor(trx, rooms, booking.location) : undefined;
+  if (booking.location && !room) throw new SiuRefusal(204, `Unknown room "${booking.location}" (AIL-3): no room has that HL7 location code or name.`);
   const exam = await findExam(trx, booking.accession, start?.day ?? null);
 
   if (removing || booking.action === 'cancel' || booking.action === 'delete' || booking.action === 'no-show') {
@@ -79,6 +81,13 @@ export async function applySiu(trx: Knex.Transaction, booking: SiuBooking, remov
   });
   const day = await editExam(trx, exam.id, { ...input, version: exam.version }, { ...req, note: afterManualChange ? ` (${AFTER_MANUAL_CHANGE})` : '' });
   return applied(trx, day, afterManualChange);
+}
+
+/** AIL-3 matched to an active room's HL7 location code first, then to its name (case aside). */
+async function roomFor(trx: Knex, rooms: Room[], location: string): Promise<Room | undefined> {
+  const wanted = location.trim().toLowerCase();
+  const coded = await trx('rooms').where({ active: true }).whereRaw('lower(hl7_code) = ?', [wanted]).first('id');
+  return rooms.find((r) => r.id === coded?.id) ?? rooms.find((r) => r.name.trim().toLowerCase() === wanted);
 }
 
 /** The start as an instant with the site's offset and its day; a local time a DST change skips is refused. */
