@@ -4,6 +4,7 @@ import { ValidationError } from '../errors';
 import { recordAudit, type Actor } from './audit';
 import { saveRoomWeek, weekText } from './room-hours';
 import { mrZonesText, saveMrZones } from './room-mr-zones';
+import { readSettings } from './settings';
 import { addDefaultShiftTasks } from './shift-tasks';
 
 interface RoomRow {
@@ -63,7 +64,7 @@ export async function createRoom(db: Knex, room: RoomFields, now: Date, by?: Act
     if (room.week) await saveRoomWeek(trx, roomId, room.week);
     if (room.mrZones) await saveMrZones(trx, roomId, room.mrZones);
     // every new room starts with our default shift tasks (wipe-downs, scanner QA, deep clean)
-    await addDefaultShiftTasks(trx, roomId, room, now);
+    await addDefaultShiftTasks(trx, roomId, room, now, (await readSettings(trx)).timezone);
     if (by) {
       const { name, modality, airChangesPerHour, staff, opensAt, closesAt, week } = room;
       const after = {

@@ -1,75 +1,5 @@
 import { DateTime } from 'luxon';
-import { RRule, type Options } from 'rrule';
-
-/*
- * rrule computes in UTC and knows nothing of daylight saving. We treat every rule's DTSTART as
- * a floating wall-clock time: generate occurrences as if the zone were UTC, then read each
- * one's fields as a local time in the site's zone with luxon. A daily 07:00 task therefore
- * stays at 07:00 local on both sides of a clock change. A TZID on DTSTART names the zone to
- * use instead of the site's; an UNTIL in UTC is compared as a wall-clock time (at most the
- * zone's offset off, which only matters for an UNTIL within hours of an occurrence).
- */
-
-const TZID = /DTSTART;TZID=([^:;\s]+)/;
-
-const DAY_MS = 86_400_000;
-
-/**
- * rrule walks from DTSTART to the window, which costs tens of milliseconds a call for a daily
- * task started a year ago. A daily or weekly rule without COUNT repeats every INTERVAL days
- * (weeks), so DTSTART moves forward by whole periods to just before the window: same
- * occurrences, a few steps each. COUNT (and monthly or yearly rules) keep their DTSTART.
- */
-function rebased(options: Partial<Options>, windowStart: Date): Partial<Options> {
-  const { dtstart, freq, count } = options;
-  if (!dtstart || count != null || (freq !== RRule.DAILY && freq !== RRule.WEEKLY)) return options;
-  const periodMs = (options.interval ?? 1) * (freq === RRule.WEEKLY ? 7 : 1) * DAY_MS;
-  const periods = Math.floor((windowStart.getTime() - dtstart.getTime()) / periodMs) - 2;
-  return periods > 0 ? { ...options, dtstart: new Date(dtstart.getTime() + periods * periodMs) } : options;
-}
-
-/** A recurrence rule ready to expand, with the zone its wall-clock times belong to. */
-function compile(rule: string, siteZone: string, windowStart: Date): { rrule: RRule; zone: string } {
-  const zone = TZID.exec(rule)?.[1] ?? siteZone;
-  let options;
-  try {
-    options = RRule.parseString(rule.replace(/;TZID=[^:;\s]+/g, ''));
-  } catch {
-    throw new RangeError(`not an RFC 5545 recurrence rule: "${rule}"`);
-  }
-  if (!options.dtstart || options.freq === undefined) throw new RangeError(`a recurrence rule needs DTSTART and FREQ: "${rule}"`);
-  if (!DateTime.local().setZone(zone).isValid) throw new RangeError(`not an IANA time zone: "${zone}"`);
-  return { rrule: new RRule(rebased(options, windowStart)), zone };
-}
-
-const floating = (date: string) => new Date(`${date}T00:00:00Z`);
-
-/**
- * Occurrences of a rule whose local date is in [from, to) (`YYYY-MM-DD`), as luxon times in
- * the rule's zone. A wall time skipped by a spring-forward change moves forward (luxon's rule).
- *
- * @throws RangeError on a rule without DTSTART or FREQ, or an unknown zone
- */
-export function ruleOccurrences(rule: string, window: { zone: string; from: string; to: string }): DateTime[] {
-  const start = floating(window.from);
-  const end = floating(window.to);
-  const { rrule, zone } = compile(rule, window.zone, start);
-  return rrule
-    .between(start, end, true)
-    .filter((d) => d < end)
-    .map((d) =>
-      DateTime.fromObject(
-        { year: d.getUTCFullYear(), month: d.getUTCMonth() + 1, day: d.getUTCDate(), hour: d.getUTCHours(), minute: d.getUTCMinutes(), second: d.getUTCSeconds() },
-        { zone },
-      ),
-    );
-}
-
-/** Occurrences on one local date. */
-export function occurrencesOn(rule: string, date: string, zone: string): DateTime[] {
-  const next = DateTime.fromISO(date, { zone: 'UTC' }).plus({ days: 1 }).toISODate()!;
-  return ruleOccurrences(rule, { zone, from: date, to: next });
-}
+export { occurrencesOn, ruleOccurrences } from '../../shared/shift-tasks/recurrence';
 
 export interface ShiftTaskDefault {
   key: string;
@@ -78,10 +8,19 @@ export interface ShiftTaskDefault {
   durationMinutes: number;
 }
 
-/** A rule at a local `HH:MM`, every day or on the given RFC 5545 weekdays. */
-function at(hhmm: string, byDay?: string): string {
+/**
+ * A rule at a local `HH:MM`, every day or on the given RFC 5545 weekdays, starting on `from`'s
+ * date, or the next day when `from` is already past that time (so nothing falls due before the
+ * room existed). Without `from` the rule starts on 1 January 2026 (the demo's rooms).
+ */
+function at(hhmm: string, byDay?: string, from?: DateTime): string {
   const [h, m] = hhmm.split(':');
-  const start = `DTSTART:20260101T${h}${m}00`;
+  let date = '20260101';
+  if (from) {
+    const due = from.set({ hour: Number(h), minute: Number(m), second: 0, millisecond: 0 });
+    date = (due < from ? due.plus({ days: 1 }) : due).toFormat('yyyyLLdd');
+  }
+  const start = `DTSTART:${date}T${h}${m}00`;
   return byDay ? `${start}\nRRULE:FREQ=WEEKLY;BYDAY=${byDay}` : `${start}\nRRULE:FREQ=DAILY`;
 }
 
@@ -91,13 +30,14 @@ const plus = (hhmm: string, minutes: number) => minus(hhmm, -minutes);
 /**
  * Our default shift tasks for a room (invented; each site sets its own): a workstation
  * wipe-down when the room opens and when it closes, the daily scanner QA just after opening,
- * and a weekly deep clean on Saturdays in the last hour.
+ * and a weekly deep clean on Saturdays in the last hour. `from` (local to the site): when the
+ * room is set up, so no occurrence falls due before it existed.
  */
-export function defaultShiftTasks(room: { opensAt: string; closesAt: string }): ShiftTaskDefault[] {
+export function defaultShiftTasks(room: { opensAt: string; closesAt: string }, from?: DateTime): ShiftTaskDefault[] {
   return [
-    { key: 'wipe-start', label: 'Workstation wipe-down, start of shift', rrule: at(room.opensAt), durationMinutes: 5 },
-    { key: 'scanner-qa', label: 'Daily scanner QA', rrule: at(plus(room.opensAt, 5)), durationMinutes: 10 },
-    { key: 'wipe-end', label: 'Workstation wipe-down, end of shift', rrule: at(room.closesAt), durationMinutes: 5 },
-    { key: 'deep-clean', label: 'Weekly deep clean', rrule: at(minus(room.closesAt, 60), 'SA'), durationMinutes: 60 },
+    { key: 'wipe-start', label: 'Workstation wipe-down, start of shift', rrule: at(room.opensAt, undefined, from), durationMinutes: 5 },
+    { key: 'scanner-qa', label: 'Daily scanner QA', rrule: at(plus(room.opensAt, 5), undefined, from), durationMinutes: 10 },
+    { key: 'wipe-end', label: 'Workstation wipe-down, end of shift', rrule: at(room.closesAt, undefined, from), durationMinutes: 5 },
+    { key: 'deep-clean', label: 'Weekly deep clean', rrule: at(minus(room.closesAt, 60), 'SA', from), durationMinutes: 60 },
   ];
 }

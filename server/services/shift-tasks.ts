@@ -16,9 +16,14 @@ interface TaskRow {
   duration_minutes: number;
 }
 
-/** Gives a room our default shift tasks (those it has already are kept). */
-export async function addDefaultShiftTasks(db: Knex, roomId: number, room: { opensAt: string; closesAt: string }, now: Date): Promise<void> {
-  const rows = defaultShiftTasks(room).map((t) => ({
+/**
+ * Gives a room our default shift tasks (those it has already are kept). `zone`: the site's, for a
+ * room set up now, whose rules then start after `now` (no task is overdue from before the room
+ * existed); the demo seed leaves it out.
+ */
+export async function addDefaultShiftTasks(db: Knex, roomId: number, room: { opensAt: string; closesAt: string }, now: Date, zone?: string): Promise<void> {
+  const from = zone ? DateTime.fromJSDate(now, { zone }) : undefined;
+  const rows = defaultShiftTasks(room, from).map((t) => ({
     room_id: roomId,
     key: t.key,
     label: t.label,

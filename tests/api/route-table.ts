@@ -178,6 +178,25 @@ export const ROUTE_TABLE: RouteCase[] = [
     prepare: async (h) => (await h.db('shift_tasks').where({ room_id: 1, key: 'wipe-start' }).first('id')).id,
     send: (c, id) => c.post(`/api/shift-tasks/${id as number}/done`, { due: '2027-03-10T07:00:00-06:00' }),
   },
+  { method: 'get', path: '/api/shift-tasks', allowed: ['admin'], send: (c) => c.get('/api/shift-tasks') },
+  {
+    method: 'post',
+    path: '/api/shift-tasks',
+    allowed: ['admin'],
+    send: (c) => c.post('/api/shift-tasks', { roomId: 1, label: 'Matrix task', rrule: 'DTSTART:20270310T120000\nRRULE:FREQ=DAILY', durationMinutes: 5 }),
+  },
+  {
+    method: 'put',
+    path: '/api/shift-tasks/:taskId',
+    allowed: ['admin'],
+    prepare: async (h) => (await h.db('shift_tasks').where({ room_id: 1, key: 'deep-clean' }).first()) as Record<string, unknown>,
+    // the task as it is: the role is checked, nothing changes
+    send: (c, t) => {
+      const row = t as { id: number; label: string; rrule: string; duration_minutes: number };
+      return c.put(`/api/shift-tasks/${row.id}`, { label: row.label, rrule: row.rrule, durationMinutes: row.duration_minutes });
+    },
+  },
+  { method: 'post', path: '/api/shift-tasks/:taskId/retire', allowed: ['admin'], prepare: freshShiftTask, send: (c, id) => c.post(`/api/shift-tasks/${id as number}/retire`, {}) },
   // Setup (admin) and the profile (every role)
   { method: 'get', path: '/api/rooms/setup', allowed: ['admin'], send: (c) => c.get('/api/rooms/setup') },
   {
@@ -331,6 +350,12 @@ async function freshHl7Message(h: Harness): Promise<number> {
 /** A room made for one check (retire, restore, kit), so checks never share state. */
 async function freshRoom(h: Harness): Promise<number> {
   return (await createRoom(h.db, roomInputSchema.parse({ name: unique(), modality: 'CT', airChangesPerHour: 12 }), h.clock.now())).id;
+}
+
+/** A shift task made for one check (retire), so checks never share state. */
+async function freshShiftTask(h: Harness): Promise<number> {
+  const [id] = await h.db('shift_tasks').insert({ room_id: 1, key: `matrix-${++counter}`, label: 'Matrix task', rrule: 'DTSTART:20270310T120000\nRRULE:FREQ=DAILY', duration_minutes: 5, created_at: h.clock.now().toISOString() });
+  return id as number;
 }
 
 async function freshItem(h: Harness): Promise<number> {
