@@ -1,10 +1,11 @@
 import { Clipboard } from '@angular/cdk/clipboard';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { TestBed } from '@angular/core/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
 
 import type { CalendarFeedStatus } from '@shared/api/calendar';
 import { provideApiHttp } from '../../core/http/api-http';
+import { button, settle } from '../../../testing/setup-dialogs';
 import { CalendarFeeds } from './calendar-feeds';
 
 const URL_MINE = 'https://turnwise.example.test/api/calendar/tok/mine.ics';
@@ -23,14 +24,6 @@ async function render(status: CalendarFeedStatus) {
   await settle(fixture);
   return { fixture, backend, clipboard, page: fixture.nativeElement as HTMLElement };
 }
-
-async function settle(fixture: ComponentFixture<unknown>): Promise<void> {
-  await new Promise((resolve) => setTimeout(resolve));
-  fixture.detectChanges();
-  await fixture.whenStable();
-}
-
-const button = (page: HTMLElement, text: string) => Array.from(page.querySelectorAll('button')).find((b) => b.textContent!.includes(text))!;
 
 describe('CalendarFeeds', () => {
   it('turns feeds on and shows each address once with a copy button', async () => {

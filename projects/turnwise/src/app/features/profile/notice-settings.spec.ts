@@ -1,9 +1,10 @@
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { TestBed } from '@angular/core/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
 
 import { NOTICE_KINDS, type NoticeKind, type NoticePreferences } from '@shared/api/notices';
 import { provideApiHttp } from '../../core/http/api-http';
+import { errorUnder, refusal, settle, submit, type } from '../../../testing/setup-dialogs';
 import { NoticeSettings } from './notice-settings';
 
 const allOn = Object.fromEntries(NOTICE_KINDS.map((k) => [k, true])) as Record<NoticeKind, boolean>;
@@ -21,22 +22,11 @@ async function render(prefs: NoticePreferences) {
   return { fixture, backend, page: fixture.nativeElement as HTMLElement };
 }
 
-async function settle(fixture: ComponentFixture<unknown>): Promise<void> {
-  await new Promise((resolve) => setTimeout(resolve));
-  fixture.detectChanges();
-  await fixture.whenStable();
-}
-
-const emailInput = (page: HTMLElement) => page.querySelector<HTMLInputElement>('input[formcontrolname="email"]')!;
+const EMAIL = 'input[formcontrolname="email"]';
+const emailInput = (page: HTMLElement) => page.querySelector<HTMLInputElement>(EMAIL)!;
 const toggle = (page: HTMLElement, kind: NoticeKind) => page.querySelector<HTMLButtonElement>(`mat-slide-toggle[data-kind="${kind}"] button`)!;
-const errorUnderEmail = (page: HTMLElement) => emailInput(page).closest('mat-form-field')!.querySelector('mat-error')?.textContent?.trim();
-
-function typeEmail(page: HTMLElement, value: string): void {
-  emailInput(page).value = value;
-  emailInput(page).dispatchEvent(new Event('input'));
-}
-
-const submit = (page: HTMLElement) => page.querySelector('form')!.dispatchEvent(new Event('submit'));
+const errorUnderEmail = (page: HTMLElement) => errorUnder(page, EMAIL);
+const typeEmail = (page: HTMLElement, value: string) => type(page, EMAIL, value);
 
 describe('NoticeSettings', () => {
   it('shows the stored address and one switch per notice, as stored', async () => {
@@ -75,10 +65,7 @@ describe('NoticeSettings', () => {
     submit(page);
     backend
       .expectOne({ method: 'PUT', url: '/api/profile/notices' })
-      .flush(
-        { error: { code: 'validation_failed', message: 'The notice settings are not valid.', details: { problems: [{ field: 'email', message: 'this address is refused here' }] } } },
-        { status: 422, statusText: 'Unprocessable' },
-      );
+      .flush(...refusal([{ field: 'email', message: 'this address is refused here' }]));
     await settle(fixture);
     expect(errorUnderEmail(page)).toBe('this address is refused here');
     expect(page.querySelector('[role="status"]')).toBeNull();

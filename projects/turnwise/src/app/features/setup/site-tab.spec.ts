@@ -1,9 +1,10 @@
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { TestBed } from '@angular/core/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
 
 import type { SiteSettings } from '@shared/api/settings';
 import { provideApiHttp } from '../../core/http/api-http';
+import { errorUnder, refusal, settle, submit, type } from '../../../testing/setup-dialogs';
 import { SiteTab } from './site-tab';
 
 const SETTINGS: SiteSettings = { siteName: 'North Imaging', timezone: 'America/Chicago', snugMarginMinutes: 3, noticesSender: '', dayBeforeNoticeAt: '16:00' };
@@ -21,26 +22,17 @@ async function render() {
   return { fixture, backend, page: fixture.nativeElement as HTMLElement };
 }
 
-async function settle(fixture: ComponentFixture<unknown>): Promise<void> {
-  await new Promise((resolve) => setTimeout(resolve));
-  fixture.detectChanges();
-  await fixture.whenStable();
-}
-
-const timeInput = (page: HTMLElement) => page.querySelector<HTMLInputElement>('input[formcontrolname="dayBeforeNoticeAt"]')!;
-const errorUnderTime = (page: HTMLElement) => timeInput(page).closest('mat-form-field')!.querySelector('mat-error')?.textContent?.trim();
-
-function setTime(page: HTMLElement, value: string): void {
-  timeInput(page).value = value;
-  timeInput(page).dispatchEvent(new Event('input'));
-}
+const TIME = 'input[formcontrolname="dayBeforeNoticeAt"]';
+const timeInput = (page: HTMLElement) => page.querySelector<HTMLInputElement>(TIME)!;
+const errorUnderTime = (page: HTMLElement) => errorUnder(page, TIME);
+const setTime = (page: HTMLElement, value: string) => type(page, TIME, value);
 
 describe('SiteTab: day-before notice time', () => {
   it('shows the stored time and saves a new one with the rest of the site', async () => {
     const { fixture, backend, page } = await render();
     expect(timeInput(page).value).toBe('16:00');
     setTime(page, '15:30');
-    page.querySelector('form')!.dispatchEvent(new Event('submit'));
+    submit(page);
     const request = backend.expectOne({ method: 'PUT', url: '/api/settings' });
     expect(request.request.body).toEqual({ ...SETTINGS, dayBeforeNoticeAt: '15:30' });
     request.flush({ settings: { ...SETTINGS, dayBeforeNoticeAt: '15:30' } });
@@ -50,13 +42,10 @@ describe('SiteTab: day-before notice time', () => {
 
   it('puts the API’s 422 problem for the time under its field', async () => {
     const { fixture, backend, page } = await render();
-    page.querySelector('form')!.dispatchEvent(new Event('submit'));
+    submit(page);
     backend
       .expectOne({ method: 'PUT', url: '/api/settings' })
-      .flush(
-        { error: { code: 'validation_failed', message: 'The settings are not valid.', details: { problems: [{ field: 'dayBeforeNoticeAt', message: 'use HH:MM, 00:00 to 23:59' }] } } },
-        { status: 422, statusText: 'Unprocessable' },
-      );
+      .flush(...refusal([{ field: 'dayBeforeNoticeAt', message: 'use HH:MM, 00:00 to 23:59' }]));
     await settle(fixture);
     expect(errorUnderTime(page)).toBe('use HH:MM, 00:00 to 23:59');
   });
@@ -64,7 +53,7 @@ describe('SiteTab: day-before notice time', () => {
   it('refuses an empty time before sending, in the API schema’s words', async () => {
     const { fixture, backend, page } = await render();
     setTime(page, '');
-    page.querySelector('form')!.dispatchEvent(new Event('submit'));
+    submit(page);
     await settle(fixture);
     backend.expectNone({ method: 'PUT', url: '/api/settings' });
     expect(errorUnderTime(page)).toBe('use HH:MM, 00:00 to 23:59');
