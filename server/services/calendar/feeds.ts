@@ -199,9 +199,23 @@ async function addShiftTasks(db: Knex, feed: Feed, rooms: Room[]): Promise<void>
       start: tzid ? start : start.toUTC(),
       end: (tzid ? start : start.toUTC()).plus({ minutes: task.duration_minutes }),
       timezone: tzid,
-      repeating: `RRULE:${rule[1].trim()}`,
+      repeating: `RRULE:${utcUntil(rule[1].trim(), zone)}`,
       summary: `${task.label} (${task.room_name})`,
       location: task.room_name,
     });
   }
 }
+
+/**
+ * The rules keep UNTIL as a wall-clock time (see shift-task-rules.ts), but with a TZID on DTSTART
+ * RFC 5545 §3.3.10 wants UNTIL in UTC: a local UNTIL (a date means its last second) is read in
+ * the rule's zone and written in UTC.
+ */
+export function utcUntil(rule: string, zone: string): string {
+  return rule.replace(/UNTIL=(\d{8})(T\d{6})?(Z?)/, (whole, date: string, time: string | undefined, z: string) => {
+    if (z) return whole;
+    const local = DateTime.fromFormat(`${date}${time ?? 'T235959'}`, "yyyyLLdd'T'HHmmss", { zone });
+    return local.isValid ? `UNTIL=${local.toUTC().toFormat("yyyyLLdd'T'HHmmss'Z'")}` : whole;
+  });
+}
+
