@@ -68,6 +68,16 @@ describe('app routes', () => {
     expect(page.title).toBe(`${name} · Turnwise`);
   });
 
+  it('opens the day sheet outside the shell, for a signed-in role only', async () => {
+    const page = await visit({ username: 'pat', role: 'tech' }, '/day/2027-03-10/sheet');
+    expect(page.url).toBe('/day/2027-03-10/sheet');
+    expect(page.title).toBe('Day sheet · Turnwise');
+    expect(document.querySelector('tw-day-sheet')).not.toBeNull();
+    expect(document.querySelector('tw-shell')).toBeNull();
+    TestBed.resetTestingModule();
+    expect((await visit(null, '/day/2027-03-10/sheet')).url).toBe('/sign-in?returnUrl=%2Fday%2F2027-03-10%2Fsheet');
+  });
+
   it('shows a page-not-found screen for an unknown address', async () => {
     const page = await visit(null, '/no-such-screen');
     expect(page.text).toContain('Page not found');

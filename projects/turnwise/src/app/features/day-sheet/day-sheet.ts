@@ -36,8 +36,8 @@ export class DaySheet {
   private readonly clock = inject(Clock);
   protected readonly settings = inject(SiteSettingsService).settings;
 
-  /** `YYYY-MM-DD` from the address (`/day/2027-03-15/sheet`). */
-  readonly date = input.required<string>();
+  /** `YYYY-MM-DD` from the address (`/day/2027-03-15/sheet`, bound by the router). */
+  readonly date = input('');
 
   protected readonly sheet = serverState((date: string) => this.api.sheet(date), 'The day sheet could not be loaded.');
   protected readonly plan = computed(() => this.sheet.value()?.plan ?? null);
@@ -67,7 +67,10 @@ export class DaySheet {
   constructor() {
     // Outside the shell, so the sheet registers the icons it draws itself.
     registerIcons(ICONS);
-    effect(() => this.sheet.show(this.date()));
+    effect(() => {
+      const date = this.date();
+      if (date) this.sheet.show(date);
+    });
 
     // One `@page` rule in the document's head, following the choosers; gone with the sheet.
     const rule = this.document.createElement('style');
