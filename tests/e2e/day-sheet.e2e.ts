@@ -141,6 +141,12 @@ describe('the day sheet: on screen and printed', { timeout: 240_000 }, () => {
       assert.deepEqual([Math.round(facts.width), Math.round(facts.height)], [595, 842], 'A4 portrait paper');
       assert.ok(facts.pages > 1, `the demo day takes more than one A4 page (got ${facts.pages})`);
       assertSheetText(run('pdftotext', ['-layout', pdf, '-']), plan, 'A4 portrait');
+      // A page in the middle of a room still says which room it is (the repeated header row, or the room's heading).
+      const names = plan.rooms.map((room) => room.name);
+      for (let at = 2; at <= facts.pages; at++) {
+        const first = run('pdftotext', ['-layout', '-f', String(at), '-l', String(at), pdf, '-']).split('\n').map((line) => line.trim()).find(Boolean) ?? '';
+        assert.ok(names.some((name) => first.startsWith(name)), `page ${at} starts with its room's name, not "${first}"`);
+      }
       const pngs = pagesAsPng(pdf, 'day-sheet-a4-portrait');
       assert.equal(pngs.length, facts.pages, 'a PNG per page');
       for (const png of pngs) assert.ok(fs.statSync(png).size > 10_000, `${path.basename(png)} has something on it`);
