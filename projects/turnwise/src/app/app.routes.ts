@@ -36,6 +36,7 @@ export const routes: Routes = [
       screenRoute('reports', () => import('./features/reports/reports.routes')),
       screenRoute('setup', () => import('./features/setup/setup.routes')),
       screenRoute('outbox', () => import('./features/outbox/outbox.routes')),
+      screenRoute('interface-log', () => import('./features/interface-log/interface-log.routes')),
       {
         // every role's own account (the user menu); not a screen of the navigation
         path: 'profile',

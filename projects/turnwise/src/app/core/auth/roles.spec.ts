@@ -2,7 +2,7 @@ import { ROLES, Role, homeFor, may, screen, screensFor } from './roles';
 
 // Expected access comes from the project brief's screen list (our product rule, not a published source).
 const EXPECTED: Record<Role, string[]> = {
-  admin: ['day', 'import', 'rooms-now', 'turnover', 'reports', 'setup', 'outbox'],
+  admin: ['day', 'import', 'rooms-now', 'turnover', 'reports', 'setup', 'outbox', 'interface-log'],
   scheduler: ['day', 'import', 'rooms-now'],
   charge: ['day', 'import', 'rooms-now', 'turnover', 'reports'],
   tech: ['day', 'rooms-now', 'turnover'],

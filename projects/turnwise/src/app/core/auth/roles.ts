@@ -25,6 +25,7 @@ export const SCREENS: readonly Screen[] = [
   { path: 'reports', label: 'Reports', icon: 'bar_chart', roles: ['charge', 'admin'] },
   { path: 'setup', label: 'Setup', icon: 'settings', roles: ['admin'] },
   { path: 'outbox', label: 'Outbox', icon: 'outbox', roles: ['admin'] },
+  { path: 'interface-log', label: 'Interface log', icon: 'sync_alt', roles: ['admin'] },
 ];
 
 /** The role as people read it, e.g. "Charge technologist". */

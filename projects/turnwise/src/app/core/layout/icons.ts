@@ -74,6 +74,8 @@ import done from '@material-design-icons/svg/outlined/done.svg';
 import moreVert from '@material-design-icons/svg/outlined/more_vert.svg';
 // The day sheet: printing it.
 import print from '@material-design-icons/svg/outlined/print.svg';
+// The interface log (HL7 booking feed).
+import syncAlt from '@material-design-icons/svg/outlined/sync_alt.svg';
 
 /** Every icon drawn under the shell: its toolbar and navigation, the screens and their shared pieces. */
 export const ICONS: IconSet = {
@@ -140,6 +142,7 @@ export const ICONS: IconSet = {
   done,
   more_vert: moreVert,
   print,
+  sync_alt: syncAlt,
 };
 
 /** Registers a set of icons (by default every icon in ICONS) when an injector is created: for specs. */

@@ -9,6 +9,7 @@ import { AuthService } from '../../core/auth/auth-service';
 import { DayEvents } from '../../core/live/day-events';
 import { action } from '../../core/state/action';
 import { serverState } from '../../core/state/server-state';
+import { movedByBookingSystem } from './booking-moves';
 import { DayPlanService } from './day-plan-service';
 import { PatientToCall, movedExams, withMoves } from './patients-to-call';
 
@@ -64,6 +65,8 @@ export class DayPlanStore {
   readonly historyError = this.changes.error;
   readonly canUndo = computed(() => this.history()?.canUndo ?? false);
   readonly canRedo = computed(() => this.history()?.canRedo ?? false);
+  /** Exams the booking feed moved after a hand change, marked on their blocks. */
+  readonly movedByBooking = computed(() => movedByBookingSystem(this.history()?.changes ?? []));
   /** The engine input for live previews while dragging: the server's own, sent with the plan. */
   readonly previewInput = computed(() => this.plan()?.input ?? null);
 

@@ -242,7 +242,7 @@ describe('DayPlan timeline', () => {
     const { page, fixture } = await renderDay({
       history: {
         changes: [
-          { id: 4, day: '2027-03-15', username: 'sam', displayName: 'Sam Scheduler', reason: 'drag', summary: 'Moved ACC-2 from MR 1 08:45 to 08:55', changes: [], revertsId: null, undone: false, at: '2027-03-15T07:58:00-05:00' },
+          { id: 4, day: '2027-03-15', username: 'sam', displayName: 'Sam Scheduler', reason: 'drag', summary: 'Moved ACC-2 from MR 1 08:45 to 08:55', changes: [], revertsId: null, undone: false, afterManualChange: false, at: '2027-03-15T07:58:00-05:00' },
         ],
       },
     });
@@ -252,6 +252,32 @@ describe('DayPlan timeline', () => {
     expect(['.when', '.who', '.what', '.how'].map((part) => text(row.querySelector(part)))).toEqual([
       '07:58', 'Sam Scheduler', 'Moved ACC-2 from MR 1 08:45 to 08:55', 'dragged',
     ]);
+    expect(row.querySelector('.after-manual')).toBeNull();
+  });
+
+  it('marks an exam the booking system moved after a manual change: icon and words on its block, its label and in the history', async () => {
+    const move = { type: 'move' as const, examId: 2, accession: 'ACC-2', from: { roomId: 1, start: '2027-03-15T08:55:00-05:00' }, to: { roomId: 1, start: '2027-03-15T09:10:00-05:00' } };
+    const { page, fixture } = await renderDay({
+      history: {
+        changes: [
+          {
+            id: 5, day: '2027-03-15', username: 'hl7-feed', displayName: 'Booking system (HL7)', reason: 'hl7', changes: [move], revertsId: null, undone: false, afterManualChange: true,
+            summary: 'Edited ACC-2: MR 1 08:55 → 09:10 (moved by the booking system after a manual change)', at: '2027-03-15T08:01:00-05:00',
+          },
+        ],
+      },
+    });
+    const words = 'moved by the booking system after a manual change';
+    expect(block(page, 2).getAttribute('aria-label')).toContain(words);
+    expect(block(page, 2).getAttribute('title')).toContain(words);
+    expect(block(page, 2).querySelector('.flags li.booking mat-icon')).not.toBeNull();
+    expect(block(page, 1).getAttribute('aria-label')).not.toContain(words);
+    page.querySelector<HTMLButtonElement>('button.history')!.click();
+    await settle(fixture);
+    const row = page.querySelector('tw-history-panel li')!;
+    expect(text(row.querySelector('.what'))).toBe('Edited ACC-2: MR 1 08:55 → 09:10');
+    expect(text(row.querySelector('.after-manual'))).toBe(words);
+    expect(row.querySelector('.after-manual mat-icon')).not.toBeNull();
   });
 
   it('disables Undo and Redo when the server says the user has nothing to undo or redo', async () => {

@@ -34,6 +34,7 @@ const CLICK_WOBBLE_PX = 4;
 })
 export class DayTimeline {
   private readonly store = inject(DayPlanStore);
+  protected readonly movedByBooking = this.store.movedByBooking;
   private readonly injector = inject(Injector);
 
   readonly plan = input.required<DayPlan>();

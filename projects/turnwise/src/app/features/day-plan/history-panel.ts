@@ -3,7 +3,8 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 
-import type { ChangeReason, DayHistory } from '@shared/api/changes';
+import type { ChangeReason, DayHistory, PlanChangeRecord } from '@shared/api/changes';
+import { AFTER_MANUAL_CHANGE } from '@shared/api/hl7';
 import type { ApiError } from '@shared/api/errors';
 import type { LoadStatus } from '../../core/state/server-state';
 import { SiteTime } from '../../shared/ui/site-time';
@@ -42,7 +43,10 @@ const REASONS: Readonly<Record<ChangeReason, string>> = {
           <li [class.undone]="change.undone">
             <span class="when">{{ change.at | siteTime }}</span>
             <span class="who">{{ change.displayName || change.username }}</span>
-            <span class="what">{{ change.summary }}</span>
+            <span class="what">{{ summary(change) }}</span>
+            @if (change.afterManualChange) {
+              <span class="after-manual"><mat-icon svgIcon="sync_problem" aria-hidden="true" />{{ afterManual }}</span>
+            }
             <span class="how">{{ reason(change.reason) }}{{ change.undone ? ' · undone' : '' }}</span>
           </li>
         } @empty {
@@ -66,14 +70,22 @@ const REASONS: Readonly<Record<ChangeReason, string>> = {
     .how, .quiet { color: var(--mat-sys-on-surface-variant); }
     li.quiet { display: block; }
     .undone .what { text-decoration: line-through; }
+    .after-manual { grid-column: 2; display: flex; align-items: center; gap: 4px; font-weight: 600; }
+    .after-manual mat-icon { width: 16px; height: 16px; flex: none; }
   `,
 })
 export class HistoryPanel {
+  protected readonly afterManual = AFTER_MANUAL_CHANGE;
   /** Kept on screen while a refetch runs, so the list is replaced, never blanked. */
   readonly history = input.required<DayHistory | null>();
   readonly status = input<LoadStatus>('loading');
   readonly error = input<ApiError | null>(null);
   readonly closed = output<void>();
+
+  /** The stored summary carries the mark as a note; shown once, beside its icon, instead. */
+  protected summary(change: PlanChangeRecord): string {
+    return change.afterManualChange ? change.summary.replace(` (${AFTER_MANUAL_CHANGE})`, '') : change.summary;
+  }
 
   protected reason(reason: ChangeReason): string {
     return REASONS[reason] ?? reason;

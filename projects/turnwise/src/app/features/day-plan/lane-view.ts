@@ -70,9 +70,9 @@ export function blockAccession(accession: string, width: number): string {
 /**
  * Every block and gap of a lane placed on the scale, with their words: computed once per lane
  * when its room, the scale or the filter change. With `onlyProblems`, fitting gaps and the exams
- * that touch no problem gap are dimmed.
+ * that touch no problem gap are dimmed; exams in `movedByBooking` carry the booking feed's mark.
  */
-export function laneView(room: PlanRoom, scale: TimelineScale, onlyProblems: boolean): LaneSlot[] {
+export function laneView(room: PlanRoom, scale: TimelineScale, onlyProblems: boolean, movedByBooking: ReadonlySet<number> = NONE): LaneSlot[] {
   const gapBefore = new Map(room.gaps.map((gap) => [gap.toExamId, gap]));
   const byId = new Map(room.exams.map((exam) => [exam.id, exam]));
   const problemNeighbours = new Set<number>();
@@ -85,7 +85,7 @@ export function laneView(room: PlanRoom, scale: TimelineScale, onlyProblems: boo
     const gap = gapBefore.get(exam.id);
     const from = gap ? (gap.fromExamId === null ? room.opensAt : byId.get(gap.fromExamId)?.end) : undefined;
     return {
-      block: blockView(room.name, exam, scale, onlyProblems && !problemNeighbours.has(exam.id)),
+      block: blockView(room.name, exam, scale, onlyProblems && !problemNeighbours.has(exam.id), movedByBooking.has(exam.id)),
       gap: gap && from ? gapView(gap, exam.accession, from, scale, onlyProblems && gap.verdict === 'fits') : null,
     };
   });
@@ -96,9 +96,11 @@ export function laneView(room: PlanRoom, scale: TimelineScale, onlyProblems: boo
   return slots;
 }
 
-function blockView(roomName: string, exam: PlanExam, scale: TimelineScale, dimmed: boolean): BlockView {
+const NONE: ReadonlySet<number> = new Set();
+
+function blockView(roomName: string, exam: PlanExam, scale: TimelineScale, dimmed: boolean, movedByBooking: boolean): BlockView {
   const width = Math.max(4, exam.durationMinutes * scale.pxPerMinute);
-  const flags = examFlags(exam);
+  const flags = examFlags(exam, movedByBooking);
   // "MR 2, ACC-123, MR brain with contrast, 09:30–10:15, contact precautions": after the room, the
   // words the block shows, whole and in its markup's order, so that any cut of them a narrow block
   // shows is a run of the label's words, and a voice command naming what is seen finds the block.

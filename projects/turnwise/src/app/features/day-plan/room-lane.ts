@@ -36,6 +36,8 @@ export class RoomLane {
   readonly movingExamId = input<number | null>(null);
   readonly selectedGap = input<number | null>(null);
   readonly drawn = input(true);
+  /** Exams the booking feed moved after a hand change (the day's history). */
+  readonly movedByBooking = input<ReadonlySet<number>>(new Set());
   readonly gapOpened = output<number>();
   readonly staffChanged = output<number>();
   /** "N to check" was chosen: show the room's first problem gap. */
@@ -59,7 +61,7 @@ export class RoomLane {
     return { left, right: Math.max(left, Math.min(widthPx, xOf(this.scale(), this.room().closesAt))) };
   });
 
-  protected readonly slots = computed((): LaneSlot[] => (this.drawn() ? laneView(this.room(), this.scale(), this.onlyProblems()) : []));
+  protected readonly slots = computed((): LaneSlot[] => (this.drawn() ? laneView(this.room(), this.scale(), this.onlyProblems(), this.movedByBooking()) : []));
 
   protected staffWord(staff: number): string {
     return staff === 1 ? 'person' : 'people';

@@ -10,7 +10,7 @@ import { map } from 'rxjs';
 
 import { AIR_CHANGES_PER_HOUR, ROOM_NAME_MAX, TURNOVER_STAFF } from '@shared/api/limits';
 import type { RoomDay } from '@shared/api/room-hours';
-import { MODALITIES, type SetupRoom } from '@shared/api/rooms';
+import { HL7_CODE_MAX, MODALITIES, type SetupRoom } from '@shared/api/rooms';
 import { action } from '../../core/state/action';
 import { CautionNote } from '../../shared/ui/caution-note';
 import { fieldMessage, submitForm } from './form-problems';
@@ -55,6 +55,12 @@ import { SetupApi } from './setup-api';
           <mat-hint>People on a turnover, {{ staff.min }}–{{ staff.max }}</mat-hint>
           <mat-error>{{ message('staff') }}</mat-error>
         </mat-form-field>
+        <mat-form-field>
+          <mat-label>HL7 location code</mat-label>
+          <input matInput formControlName="hl7Code" [maxlength]="hl7CodeMax" autocomplete="off" />
+          <mat-hint>What the booking system sends for this room (AIL-3); matched before the room's name. Optional</mat-hint>
+          <mat-error>{{ message('hl7Code') }}</mat-error>
+        </mat-form-field>
         <tw-room-week [week]="form.controls.week" />
         @if (form.controls.week.errors?.['server']; as problem) {
           <p class="form-error" role="alert">Opening hours: {{ problem }}</p>
@@ -83,6 +89,7 @@ export class RoomDialog {
   protected readonly staff = TURNOVER_STAFF;
   protected readonly airChanges = AIR_CHANGES_PER_HOUR;
   protected readonly nameMax = ROOM_NAME_MAX;
+  protected readonly hl7CodeMax = HL7_CODE_MAX;
   protected readonly formError = signal<string | null>(null);
 
   protected readonly form = inject(NonNullableFormBuilder).group({
@@ -90,6 +97,7 @@ export class RoomDialog {
     modality: [this.room?.modality ?? 'MR', Validators.required],
     airChangesPerHour: [this.room?.airChangesPerHour ?? 12, [Validators.required, Validators.min(AIR_CHANGES_PER_HOUR.min), Validators.max(AIR_CHANGES_PER_HOUR.max)]],
     staff: [this.room?.staff ?? 1, [Validators.required, Validators.min(TURNOVER_STAFF.min), Validators.max(TURNOVER_STAFF.max)]],
+    hl7Code: [this.room?.hl7Code ?? '', [Validators.maxLength(HL7_CODE_MAX)]],
     week: weekForm(this.room?.week),
     mrZones: mrZonesForm(this.room?.mrZones),
   });
@@ -120,7 +128,7 @@ export class RoomDialog {
     return day ? { opensAt: day.opensAt, closesAt: day.closesAt } : { opensAt: '07:00', closesAt: '19:00' };
   }
 
-  protected message(field: 'name' | 'modality' | 'airChangesPerHour' | 'staff'): string {
+  protected message(field: 'name' | 'modality' | 'airChangesPerHour' | 'staff' | 'hl7Code'): string {
     return fieldMessage(this.form.controls[field]);
   }
 

@@ -6,7 +6,7 @@ import { RoomDialog } from './room-dialog';
 import { UserDialog } from './user-dialog';
 
 const WEEK = [1, 2, 3, 4, 5, 6, 7].map((weekday) => ({ weekday, closed: weekday === 7, opensAt: '07:00', closesAt: '19:00' }));
-const MR2: SetupRoom = { id: 2, name: 'MR 2', modality: 'MR', airChangesPerHour: 12, staff: 1, opensAt: '07:00', closesAt: '19:00', retired: false, retiredAt: null, week: WEEK, mrZones: null };
+const MR2: SetupRoom = { id: 2, name: 'MR 2', modality: 'MR', airChangesPerHour: 12, staff: 1, opensAt: '07:00', closesAt: '19:00', retired: false, retiredAt: null, week: WEEK, mrZones: null, hl7Code: null };
 
 describe('RoomDialog', () => {
   it('puts the API’s 422 problems under their fields and stays open', async () => {
@@ -41,6 +41,20 @@ describe('RoomDialog', () => {
     request.flush({ room: { ...MR2, id: 9, name: 'CT 2', airChangesPerHour: 15 } }, { status: 201, statusText: 'Created' });
     await settle(fixture);
     expect(close).toHaveBeenCalledWith(expect.objectContaining({ id: 9, name: 'CT 2' }));
+  });
+
+  it('sends the HL7 location code and shows a code another room has under its field', async () => {
+    const { fixture, backend, page, close } = render(RoomDialog, { ...MR2, hl7Code: 'MRI-2' });
+    await settle(fixture);
+    expect(page.querySelector<HTMLInputElement>('input[formcontrolname="hl7Code"]')!.value).toBe('MRI-2');
+    type(page, 'input[formcontrolname="hl7Code"]', 'MRI-1');
+    submit(page);
+    const request = backend.expectOne({ method: 'PUT', url: '/api/rooms/2' });
+    expect(request.request.body).toMatchObject({ name: 'MR 2', hl7Code: 'MRI-1' });
+    request.flush(...refusal([{ field: 'hl7Code', message: "already MR 1's" }]));
+    await settle(fixture);
+    expect(errorUnder(page, 'input[formcontrolname="hl7Code"]')).toBe("already MR 1's");
+    expect(close).not.toHaveBeenCalled();
   });
 
   it('shows the MR caution (ASTM F2503, Zone IV) for an MR room', async () => {
