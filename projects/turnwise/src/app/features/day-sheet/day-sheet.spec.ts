@@ -103,6 +103,22 @@ describe('DaySheet', () => {
     expect(text(rows[4].querySelector('.verdict'))).toBe(shown.rooms[0].gaps.find((gap) => gap.toExamId === 3)!.verdict);
   });
 
+  it('says where each exam stands when two overlap, instead of a time running backwards', async () => {
+    const day = plan();
+    const acc3 = day.input.exams.find((exam) => exam.id === 3)!;
+    // ACC-3 booked at 09:05, before ACC-2 (08:45, 30 min) ends.
+    const overlapping = dayPlan({ ...day.input, exams: day.input.exams.map((exam) => (exam === acc3 ? { ...exam, start: '2027-03-15T09:05:00-05:00' } : exam)) });
+    const gap = overlapping.rooms[0].gaps.find((candidate) => candidate.toExamId === 3)!;
+    expect(gap.verdict).toBe('overlap');
+    const { room } = await renderSheet(overlapping);
+    const row = room('MR 1').querySelector('tr.turnover[data-verdict="overlap"]')!;
+    // ACC-2 ends at 09:15.
+    expect(row.querySelector('.time')!.firstChild!.textContent!.trim()).toBe('09:15');
+    expect(text(row.querySelector('.next-start'))).toBe('next starts 09:05');
+    expect(text(row)).toContain('exams overlap by 10 min');
+    expect(text(row.querySelector('.verdict'))).toBe('overlap');
+  });
+
   it('marks isolation cases with an icon and words, and no other exam', async () => {
     const { examRow } = await renderSheet(plan());
     const contact = examRow('ACC-2');
