@@ -8,6 +8,7 @@ import { ProductsTab } from './products-tab';
 import { ProtocolsTab } from './protocols-tab';
 import { RoomsTab } from './rooms-tab';
 import { SetupChecklist } from './setup-checklist';
+import { ShiftTasksTab } from './shift-tasks-tab';
 import { SiteTab } from './site-tab';
 import { UsersTab } from './users-tab';
 
@@ -21,7 +22,7 @@ export type SetupTabName = (typeof SETUP_TABS)[number];
  */
 @Component({
   selector: 'tw-setup',
-  imports: [MatTabsModule, RoomsTab, EquipmentTab, UsersTab, SiteTab, AuditTab, ProductsTab, ProtocolsTab, SetupChecklist],
+  imports: [MatTabsModule, RoomsTab, EquipmentTab, UsersTab, SiteTab, AuditTab, ProductsTab, ProtocolsTab, SetupChecklist, ShiftTasksTab],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <h1>Setup</h1>
@@ -34,13 +35,12 @@ export type SetupTabName = (typeof SETUP_TABS)[number];
       <mat-tab label="Audit"><ng-template matTabContent><tw-audit-tab /></ng-template></mat-tab>
       <mat-tab label="Products"><ng-template matTabContent><tw-products-tab /></ng-template></mat-tab>
       <mat-tab label="Protocols"><ng-template matTabContent><tw-protocols-tab /></ng-template></mat-tab>
-      <mat-tab label="Shift tasks"><ng-template matTabContent><p class="later">Shift tasks are set up here in a later release.</p></ng-template></mat-tab>
+      <mat-tab label="Shift tasks"><ng-template matTabContent><tw-shift-tasks-tab /></ng-template></mat-tab>
     </mat-tab-group>
   `,
   styles: `
     :host { display: block; }
     h1 { margin: 0 0 8px; }
-    .later { padding-top: 16px; }
   `,
 })
 export class Setup {
