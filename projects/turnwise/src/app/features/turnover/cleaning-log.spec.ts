@@ -43,7 +43,7 @@ function entry(id: number, overrides: Partial<LogEntry> = {}): LogEntry {
 const ENTRIES = [
   // As the server writes a correction: it copies the step it is about and adds the note.
   entry(8, { kind: 'correction', productName: null, contactRequiredMinutes: null, contactAchievedMinutes: null, note: 'Product was the sporicidal wipe', correctsId: 7, at: at('10:50') }),
-  entry(7, { earlyReason: 'Patient waiting on a stretcher', contactAchievedMinutes: 1 }),
+  entry(7, { earlyReason: 'Patient waiting on a stretcher', contactAchievedMinutes: 1, protocol: { modality: 'MR', version: 2, effectiveFrom: '2027-03-01' } }),
 ];
 
 async function render() {
@@ -86,7 +86,9 @@ describe('CleaningLog', () => {
     expect(firstParams.has('roomId')).toBe(false);
     const step = rows(page)[1];
     expect(text(step.querySelector('.mat-column-step'))).toBe('step Table top and rails');
-    expect(text(step.querySelector('.mat-column-room'))).toBe('MR 1 ACC-2041 routine clean');
+    // with the protocol version its turnover was planned with
+    expect(text(step.querySelector('.mat-column-room'))).toBe('MR 1 ACC-2041 routine clean MR protocol v2 (from 2027-03-01)');
+    expect(text(rows(page)[0].querySelector('.mat-column-room'))).toBe('MR 1 ACC-2041 routine clean');
     expect(text(step.querySelector('.mat-column-product'))).toBe('Standard surface wipe 2 min / 1 min');
     expect(step.querySelector('.mat-column-product .contact')!.classList).toContain('short');
     expect(text(step.querySelector('.mat-column-earlyReason'))).toBe('Patient waiting on a stretcher');

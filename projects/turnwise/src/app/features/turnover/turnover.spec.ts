@@ -84,6 +84,15 @@ describe('Turnover', () => {
     expect(button(row(page, 'clear'), 'button.tick').disabled).toBe(false);
   });
 
+  it('says which protocol version the turnover was planned with, and when a step is applied more than once (re-wet)', async () => {
+    const rewet = { ...table, applications: 3 };
+    const { page } = await render(exampleChecklist({ protocol: { id: 5, modality: 'MR', version: 2, effectiveFrom: '2027-03-01' }, steps: [clear, rewet, linen] }));
+    expect(text(page.querySelector('.protocol'))).toBe('Planned with the MR protocol, version 2 (in force from 2027-03-01).');
+    // re-wet: the surface must stay wet for the whole label contact time (common practice, no source)
+    expect(text(row(page, 'table').querySelector('.applications'))).toBe('applied 3 times: the product dries before its contact time');
+    expect(row(page, 'clear').querySelector('.applications')).toBeNull();
+  });
+
   it('ticks a disinfecting step with the product picked', async () => {
     const { page, backend, fixture } = await render(exampleChecklist({ steps: [ticked(clear, '10:32'), table, linen] }));
     const select = row(page, 'table').querySelector('select')!;
