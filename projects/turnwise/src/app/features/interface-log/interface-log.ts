@@ -31,7 +31,6 @@ export class InterfaceLog {
   private readonly site = inject(SiteSettingsService).settings;
   protected readonly codes = HL7_ACK_CODES;
   protected readonly words = ACK_WORDS;
-  protected readonly icons = ACK_ICONS;
   protected readonly afterManual = AFTER_MANUAL_CHANGE;
   protected readonly columns = ['time', 'type', 'control', 'ack', 'outcome'];
   protected readonly page = serverState((key: LogPageKey) => this.api.page(key), 'The interface log could not be shown.');
@@ -74,6 +73,15 @@ export class InterfaceLog {
   protected open(entry: Hl7LogEntry): void {
     const data: RawMessageData = { id: entry.id, messageType: entry.messageType, controlId: entry.controlId };
     this.dialog.open(RawMessageDialog, { data, width: '880px', maxWidth: '96vw', autoFocus: 'dialog' });
+  }
+
+  // a table row is untyped in the template: read its code here
+  protected ackIcon(entry: Hl7LogEntry): string {
+    return ACK_ICONS[entry.ackCode];
+  }
+
+  protected ackWord(entry: Hl7LogEntry): string {
+    return ACK_WORDS[entry.ackCode];
   }
 
   /** In the site's time zone, as every other time on screen. */
