@@ -104,6 +104,15 @@ const VIEWS: Record<string, View[]> = {
       loaded: (page) => page.getByRole('region', { name: 'Room use' }).locator('tbody tr').first().waitFor(),
     },
   ],
+  'interface-log': [
+    {
+      name: 'interface-log',
+      url: '/interface-log',
+      heading: 'Interface log',
+      // a message row, or the empty row once the first page has answered
+      loaded: (page) => page.getByRole('table', { name: 'Messages received, newest first' }).locator('tr.mat-mdc-row:not(:has-text("Loading"))').first().waitFor(),
+    },
+  ],
   setup: ['rooms', 'equipment', 'users', 'site', 'audit', 'products', 'protocols'].map((tab) => ({
     name: `setup-${tab}`,
     url: `/setup?tab=${tab}`,
