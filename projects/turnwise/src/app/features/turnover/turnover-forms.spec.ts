@@ -11,7 +11,7 @@ import { fakeEventSources } from '../../core/live/testing/fake-event-source';
 import { fakeClock } from '../../core/time/testing/fake-clock';
 import { Turnover } from './turnover';
 
-import { at, clear, exampleChecklist, linen, table, ticked } from './testing/example-checklist';
+import { at, clear, exampleChecklist, flushKits, linen, table, ticked } from './testing/example-checklist';
 
 const SETTINGS = { settings: { siteName: 'Example Imaging', timezone: 'America/Chicago', snugMarginMinutes: 3 } };
 const ROOMS = { rooms: [{ id: 1, name: 'MR 1', modality: 'MR' }] };
@@ -70,7 +70,11 @@ const button = (scope: Element, selector: string) => scope.querySelector<HTMLBut
 const NEXT_EXAM = exampleChecklist().arriving!;
 
 describe('Turnover: each turnover has its own form, and times come from what happened', () => {
-  afterEach(() => TestBed.inject(HttpTestingController).verify());
+  afterEach(() => {
+    const backend = TestBed.inject(HttpTestingController);
+    flushKits(backend);
+    backend.verify();
+  });
 
   it('does not carry an early-tick reason over to the next turnover', async () => {
     const wet = [ticked(clear, '10:32'), ticked(table, '10:34', at('10:38')), linen];

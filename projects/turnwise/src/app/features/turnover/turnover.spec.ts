@@ -10,7 +10,7 @@ import { errorInterceptor } from '../../core/http/error-interceptor';
 import { provideIcons } from '../../core/layout/icons';
 import { fakeClock } from '../../core/time/testing/fake-clock';
 import { fakeEventSources } from '../../core/live/testing/fake-event-source';
-import { at, clear, exampleChecklist, linen, table, ticked } from './testing/example-checklist';
+import { at, clear, exampleChecklist, flushKits, linen, table, ticked } from './testing/example-checklist';
 import { LAST_ROOM_KEY } from './last-room';
 import { Turnover } from './turnover';
 
@@ -66,8 +66,7 @@ describe('Turnover', () => {
   beforeEach(() => localStorage.clear());
   afterEach(() => {
     const backend = TestBed.inject(HttpTestingController);
-    // an MR room's kit panel asks for the kit (its own spec checks it)
-    for (const kit of backend.match((r) => /^\/api\/rooms\/\d+\/kit$/.test(r.url))) kit.flush({ kit: [], mrZones: null });
+    flushKits(backend);
     backend.verify();
   });
 

@@ -1,3 +1,5 @@
+import type { HttpTestingController } from '@angular/common/http/testing';
+
 import type { Checklist, ChecklistStep } from '@shared/api/board';
 
 // An invented turnover at an invented site (UTC−5), cut down to three steps.
@@ -65,4 +67,9 @@ export function exampleChecklist(overrides: Partial<Checklist> = {}): Checklist 
     tasks: [],
     ...overrides,
   };
+}
+
+/** Answers an MR room's kit request (the kit panel's own spec checks it) with an empty kit. */
+export function flushKits(backend: HttpTestingController): void {
+  for (const kit of backend.match((r) => /^\/api\/rooms\/\d+\/kit$/.test(r.url))) kit.flush({ kit: [], mrZones: null });
 }
