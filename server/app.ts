@@ -187,7 +187,7 @@ export function createApp(deps: AppDeps): Express {
   app.use(errorHandler(logError));
   // Whoever ends the app (main.ts on a signal, a test's afterAll) closes its worker threads.
   app.locals['close'] = async () => {
-    sessionStore.close();
+    await sessionStore.close();
     await stopNotices();
     await Promise.all([workers.close(), fixesPool.close(), mailer.close(), hl7?.close()]);
   };

@@ -59,14 +59,14 @@ export async function seedDemoRules(knex: Knex, now: Date): Promise<void> {
       productIds.set(product.key, existing.id);
       continue;
     }
-    const [id] = await knex('products').insert({
+    const [{ id }] = await knex('products').insert({
       name: product.name,
       contact_minutes: product.contactMinutes,
       stays_wet_minutes: product.staysWetMinutes ?? null,
       ...DEMO_PRODUCT_ROWS[product.key],
       created_at: stamp,
       updated_at: stamp,
-    });
+    }).returning('id');
     productIds.set(product.key, id as number);
   }
   for (const [modality, protocol] of Object.entries(DEFAULT_PROTOCOLS)) {

@@ -16,10 +16,13 @@ export function parseDay(value: unknown): string {
   return value;
 }
 
+const MAX_ID = 2_147_483_647;
+
 /** A positive whole-number id from a path parameter, else 422. */
 export function idParam(value: unknown, what: string): number {
   const id = Number(value);
-  if (!Number.isInteger(id) || id <= 0) throw new ValidationError(`"${String(value)}" is not ${what} id.`);
+  // ids are 32-bit integers (PostgreSQL refuses a larger one in a query rather than finding nothing)
+  if (!Number.isInteger(id) || id <= 0 || id > MAX_ID) throw new ValidationError(`"${String(value)}" is not ${what} id.`);
   return id;
 }
 

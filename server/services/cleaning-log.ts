@@ -26,7 +26,7 @@ export interface NewLogEntry {
 
 /** Appends one entry (inside the caller's transaction when given one) and returns its id. */
 export async function appendLog(db: Knex, entry: NewLogEntry, user: UserRecord): Promise<number> {
-  const [id] = await db('cleaning_log').insert({
+  const [{ id }] = await db('cleaning_log').insert({
     at: entry.at,
     at_ms: entry.atMs,
     day: entry.day,
@@ -47,7 +47,7 @@ export async function appendLog(db: Knex, entry: NewLogEntry, user: UserRecord):
     user_id: user.id,
     username: user.username,
     display_name: user.displayName || user.username,
-  });
+  }).returning('id');
   return id as number;
 }
 

@@ -73,7 +73,7 @@ export function refuseUnsafeForMr(items: { id: number; name: string; marking: st
 
 export async function createEquipment(db: Knex, input: EquipmentFields, by: Actor, now: Date): Promise<EquipmentItem> {
   return db.transaction(async (trx) => {
-    const [id] = await trx('equipment').insert({ ...input, active: true, created_at: now.toISOString() });
+    const [{ id }] = await trx('equipment').insert({ ...input, active: true, created_at: now.toISOString() }).returning('id');
     const item = await getItem(trx, id as number);
     await recordAudit(trx, by, { area: 'equipment', action: 'created', subject: item.name, before: null, after: audited(item) }, now);
     return item;

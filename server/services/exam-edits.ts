@@ -4,7 +4,7 @@ import type { ChangeReason, ExamEdit, ExamFields, ExamFormInput } from '../../sh
 import { EXAM_LIST_COLUMNS, parseExamTable, type ExamListRow } from '../../shared/exam-list';
 import { NotFoundError, Refusal, ValidationError } from '../errors';
 import { examColumns, storedFields, type ExamRow } from './exams';
-import { staleVersion } from './exam-moves';
+import { staleVersion, writeAtVersion } from './exam-moves';
 import { recordChange } from './plan-changes';
 import { listRooms } from './rooms';
 import { readSettings } from './settings';
@@ -31,7 +31,7 @@ export async function addExam(db: Knex, day: string, input: ExamFormInput, req: 
   return db.transaction(async (trx) => {
     await refuseTakenAccession(trx, day, row.accession, null);
     const stamp = req.now.toISOString();
-    const [id] = await trx('exams').insert({ ...examColumns(row, roomId), day, version: 1, updated_at: stamp });
+    const [{ id }] = await trx('exams').insert({ ...examColumns(row, roomId), day, version: 1, updated_at: stamp }).returning('id');
     const to = fieldsOf(row, roomId);
     const change: ExamEdit = { type: 'exam', examId: id as number, accession: row.accession, from: null, to };
     await recordChange(trx, { day, userId: req.userId, reason: req.reason ?? 'exam added', summary: `Added ${row.accession}: ${row.room} ${hhmm(row.start, timezone)}, ${row.durationMinutes} min${req.note ?? ''}`, changes: [change] }, req.now);
@@ -50,7 +50,7 @@ export async function editExam(db: Knex, examId: number, input: ExamFormInput & 
     if (exam.version !== input.version) throw await staleVersion(trx, exam, timezone);
     await refuseFinished(trx, exam, 'edited');
     await refuseTakenAccession(trx, exam.day, row.accession, examId);
-    await trx('exams').where({ id: examId }).update({ ...examColumns(row, roomId), version: exam.version + 1, updated_at: req.now.toISOString() });
+    await writeAtVersion(trx, exam, { ...examColumns(row, roomId), updated_at: req.now.toISOString() }, timezone);
     const change: ExamEdit = { type: 'exam', examId, accession: row.accession, from: storedFields(exam), to: fieldsOf(row, roomId) };
     const renamed = exam.accession === row.accession ? '' : ` (was ${exam.accession})`;
     await recordChange(trx, { day: exam.day, userId: req.userId, reason: req.reason ?? 'exam edited', summary: `Edited ${row.accession}${renamed}: ${row.room} ${hhmm(row.start, timezone)}, ${row.durationMinutes} min${req.note ?? ''}`, changes: [change] }, req.now);
@@ -67,7 +67,7 @@ export async function cancelExam(db: Knex, examId: number, version: number, req:
     if (exam.version !== version) throw await staleVersion(trx, exam, timezone);
     await refuseFinished(trx, exam, 'cancelled');
     const room = await trx('rooms').where({ id: exam.room_id }).first('name');
-    await trx('exams').where({ id: examId }).delete();
+    await writeAtVersion(trx, exam, null, timezone);
     const change: ExamEdit = { type: 'exam', examId, accession: exam.accession, from: storedFields(exam), to: null };
     await recordChange(trx, { day: exam.day, userId: req.userId, reason: req.reason ?? 'exam cancelled', summary: `Cancelled ${exam.accession}: ${room?.name ?? `room ${exam.room_id}`} ${hhmm(exam.start_at, timezone)}${req.note ?? ''}`, changes: [change] }, req.now);
     return exam.day;

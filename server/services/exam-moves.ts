@@ -27,6 +27,23 @@ export async function staleVersion(trx: Knex, exam: { id: number; day: string; a
 }
 
 /**
+ * Writes (or, with `null`, deletes) an exam only while its version is still the one read. On
+ * PostgreSQL two transactions may read the same version at once; the second writer waits for the
+ * first's row lock and then finds the version moved, so exactly one wins and the other gets the
+ * same 409 as a stale read. (SQLite runs one write transaction at a time, where this never fires.)
+ */
+export async function writeAtVersion(
+  trx: Knex,
+  exam: { id: number; day: string; accession: string; version: number },
+  changes: Record<string, unknown> | null,
+  timezone: string,
+): Promise<void> {
+  const row = trx('exams').where({ id: exam.id, version: exam.version });
+  const written = changes ? await row.update({ ...changes, version: exam.version + 1 }) : await row.delete();
+  if (written === 0) throw await staleVersion(trx, (await trx('exams').where({ id: exam.id }).first()) ?? exam, timezone);
+}
+
+/**
  * Moves an exam along its lane or to another room of the same modality on the same day.
  * Optimistic locking: a stale `version` is a 409 that names who moved the exam last.
  * Returns the exam's day.
@@ -61,7 +78,7 @@ export async function moveExam(
     }
     const to = { roomId: toRoomId, start: start.toISO({ suppressMilliseconds: true })! };
     const move: ExamMove = { type: 'move', examId, accession: exam.accession, from: { roomId: exam.room_id, start: exam.start_at }, to };
-    await trx('exams').where({ id: examId }).update({ ...examColumnsForMove(to.roomId, to.start), version: exam.version + 1, updated_at: now.toISOString() });
+    await writeAtVersion(trx, exam, { ...examColumnsForMove(to.roomId, to.start), updated_at: now.toISOString() }, timezone);
     const where = toRoomId === exam.room_id ? '' : ` to ${toRoom.name}`;
     await recordChange(
       trx,

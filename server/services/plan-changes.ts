@@ -26,7 +26,7 @@ export async function recordChange(
   entry: { day: string; userId: number; reason: ChangeReason; summary: string; changes: PlanChange[]; revertsId?: number | null },
   now: Date,
 ): Promise<number> {
-  const [id] = await trx('plan_changes').insert({
+  const [{ id }] = await trx('plan_changes').insert({
     day: entry.day,
     user_id: entry.userId,
     reason: entry.reason,
@@ -34,7 +34,7 @@ export async function recordChange(
     changes: JSON.stringify(entry.changes),
     reverts_id: entry.revertsId ?? null,
     created_at: now.toISOString(),
-  });
+  }).returning('id');
   return id as number;
 }
 

@@ -48,7 +48,7 @@ function audited(p: ProductView | ProductFields) {
 
 /** An active product of the same name (any case) is a 422 on the name. */
 async function refuseDuplicateName(db: Knex, name: string, exceptId: number | null): Promise<void> {
-  const q = db('products').whereRaw('name = ? COLLATE NOCASE', [name]).whereNull('retired_at');
+  const q = db('products').whereRaw('lower(name) = lower(?)', [name]).whereNull('retired_at');
   if (exceptId !== null) q.whereNot({ id: exceptId });
   if (await q.first('id')) {
     throw new ValidationError(`A product named "${name}" already exists.`, { problems: [{ field: 'name', message: 'an active product already has this name' }] });
@@ -59,7 +59,7 @@ export async function createProduct(db: Knex, fields: ProductFields, by: Actor, 
   return db.transaction(async (trx) => {
     await refuseDuplicateName(trx, fields.name, null);
     const stamp = now.toISOString();
-    const [id] = await trx('products').insert({ ...columns(fields), created_at: stamp, updated_at: stamp });
+    const [{ id }] = await trx('products').insert({ ...columns(fields), created_at: stamp, updated_at: stamp }).returning('id');
     const product = await getProduct(trx, id as number, now);
     await recordAudit(trx, by, { area: 'product', action: 'created', subject: product.name, before: null, after: audited(product) }, now);
     return { product, warnings: productWarnings(fields) };

@@ -174,7 +174,7 @@ export async function createProtocolVersion(db: Knex, input: NewProtocolVersion,
     if (problems.length > 0) refuse(problems);
     const latest: StoredVersion | undefined = snapshot.versions.find((v) => v.modality === input.modality);
     const version = (latest?.version ?? 0) + 1;
-    const [id] = await trx('protocol_versions').insert({
+    const [{ id }] = await trx('protocol_versions').insert({
       modality: input.modality,
       version,
       effective_from: input.effectiveFrom,
@@ -182,7 +182,7 @@ export async function createProtocolVersion(db: Knex, input: NewProtocolVersion,
       created_by: by.id,
       created_at: now.toISOString(),
       note: input.note,
-    });
+    }).returning('id');
     await recordAudit(
       trx,
       by,

@@ -246,7 +246,8 @@ async function recordedTurnovers(db: Knex, from: string, to: string, roomId: num
     .leftJoin('turnovers as t', 't.id', 'f.turnover_id')
     .where('f.kind', 'exam finished')
     .whereBetween('f.day', [from, to])
-    .groupBy('f.id')
+    // t.id too: PostgreSQL, unlike SQLite, selects only columns the grouping determines
+    .groupBy('f.id', 't.id')
     .select('f.day', 'f.room_id', 'f.room_name', 'f.exam_accession', 'f.at_ms', 't.precaution')
     .min('c.at_ms as completed_ms')
     .orderBy('f.at_ms');

@@ -50,7 +50,7 @@ export async function createRoom(db: Knex, room: RoomFields, now: Date, by?: Act
   await refuseTakenHl7Code(db, room.hl7Code ?? null, null);
   const [{ max }] = await db('rooms').max({ max: 'sort_order' });
   const id = await db.transaction(async (trx) => {
-    const [roomId] = await trx('rooms').insert({
+    const [{ id: roomId }] = await trx('rooms').insert({
       name: room.name,
       modality: room.modality,
       air_changes_per_hour: room.airChangesPerHour,
@@ -60,7 +60,7 @@ export async function createRoom(db: Knex, room: RoomFields, now: Date, by?: Act
       hl7_code: room.hl7Code ?? null,
       sort_order: (Number(max) || 0) + 1,
       created_at: now.toISOString(),
-    });
+    }).returning('id');
     if (room.week) await saveRoomWeek(trx, roomId, room.week);
     if (room.mrZones) await saveMrZones(trx, roomId, room.mrZones);
     // every new room starts with our default shift tasks (wipe-downs, scanner QA, deep clean)

@@ -26,11 +26,17 @@ export class SessionStore extends ConnectSessionKnexStore {
     await super.touch(sid, session, callback);
   }
 
-  /** Stops the periodic removal of expired sessions, before the database is closed. */
-  close(): void {
+  /**
+   * Stops the periodic removal of expired sessions, before the database is closed. Also waits for
+   * the library's start-up check of the table: on a database that takes time to connect
+   * (PostgreSQL) it may still be waiting for a connection, and closing the pool under it would
+   * reject it with nobody listening.
+   */
+  async close(): Promise<void> {
     clearTimeout(this.nextDbCleanup);
     // A cleanup already under way finishes; the library schedules the next only while the interval is set.
     this.options.cleanupInterval = 0;
+    await this.ready.catch(() => {});
   }
 
   override destroy(sid: string, callback?: (err?: unknown) => void): Promise<number> {

@@ -53,14 +53,14 @@ export async function createShiftTask(
   return db.transaction(async (trx) => {
     const room = await trx('rooms').where({ id: input.roomId, active: true }).first('id', 'name');
     if (!room) throw new NotFoundError(`No room ${input.roomId}.`);
-    const [id] = await trx('shift_tasks').insert({
+    const [{ id }] = await trx('shift_tasks').insert({
       room_id: input.roomId,
       key: `pending-${now.getTime()}`,
       label: input.label,
       rrule: input.rrule,
       duration_minutes: input.durationMinutes,
       created_at: now.toISOString(),
-    });
+    }).returning('id');
     await trx('shift_tasks').where({ id }).update({ key: `task-${id}` });
     await recordAudit(trx, by, { area: 'shift task', action: 'created', subject: `${room.name}: ${input.label}`, before: null, after: audited(input) }, now);
     return getTask(trx, id as number);

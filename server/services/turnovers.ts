@@ -52,7 +52,7 @@ export async function finishExam(db: Knex, examId: number, user: UserRecord, now
       .first('id');
     const at = localIso(now, zone);
     const cleanType = cleanTypeOf(exam.precaution, Boolean(next));
-    const [turnoverId] = await trx('turnovers').insert({
+    const [{ id: turnoverId }] = await trx('turnovers').insert({
       day: exam.day,
       room_id: exam.room_id,
       from_exam_id: examId,
@@ -63,7 +63,7 @@ export async function finishExam(db: Knex, examId: number, user: UserRecord, now
       ended_by: user.id,
       // the turnover keeps the protocol version it is planned with, even if a new one starts today
       protocol_version_id: (versionFor(setup, exam.room_modality, exam.day) ?? versionFor(setup, '*', exam.day))?.id ?? null,
-    });
+    }).returning('id');
     await appendLog(
       trx,
       { at, atMs: now.getTime(), day: exam.day, roomId: exam.room_id, roomName: exam.room_name, turnoverId, examAccession: exam.accession, cleanType, kind: 'exam finished', earlyReason: reason },

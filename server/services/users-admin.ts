@@ -40,9 +40,21 @@ export async function getAccount(db: Knex, id: number): Promise<UserAccount> {
  * after changing one's own password). connect-session-knex keeps the passport user id in `sess`.
  */
 export async function endSessions(db: Knex, userId: number, keepSid?: string): Promise<number> {
-  const query = db('sessions').whereRaw("json_extract(sess, '$.passport.user') = ?", [userId]);
-  if (keepSid) query.andWhereNot({ sid: keepSid });
-  return query.del();
+  // Read in code, not by a JSON path in SQL: `sess` is text on SQLite and json on PostgreSQL,
+  // and ending sessions is rare (deactivation, a password reset).
+  const query = db('sessions').select('sid', 'sess');
+  if (keepSid) query.whereNot({ sid: keepSid });
+  const sids = ((await query) as { sid: string; sess: unknown }[])
+    .filter((row) => sessionUser(row.sess) === userId)
+    .map((row) => row.sid);
+  let ended = 0;
+  for (let i = 0; i < sids.length; i += 500) ended += await db('sessions').whereIn('sid', sids.slice(i, i + 500)).del();
+  return ended;
+}
+
+function sessionUser(sess: unknown): unknown {
+  const value = (typeof sess === 'string' ? JSON.parse(sess) : sess) as { passport?: { user?: unknown } } | null;
+  return value?.passport?.user;
 }
 
 /** Refuses when the change would leave no active admin (a department could no longer set itself up). */

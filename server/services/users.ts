@@ -45,7 +45,7 @@ export async function createUser(
   now: Date,
 ): Promise<number> {
   if (!ROLES.includes(user.role)) throw new Error(`Unknown role ${user.role}`);
-  const [id] = await db('users').insert({
+  const [{ id }] = await db('users').insert({
     username: user.username,
     display_name: user.displayName ?? '',
     password_hash: await hashPassword(user.password),
@@ -54,6 +54,6 @@ export async function createUser(
     email: user.email ?? null,
     must_change_password: user.mustChangePassword ?? false,
     created_at: now.toISOString(),
-  });
+  }).returning('id');
   return id as number;
 }

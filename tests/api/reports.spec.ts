@@ -74,14 +74,14 @@ describe('reports', () => {
     mr2 = (await h.db('rooms').where({ name: 'MR 2' }).first('id')).id;
     // Only this test's shift task counts: the demo's defaults are switched off.
     await h.db('shift_tasks').update({ active: false });
-    const [taskId] = await h.db('shift_tasks').insert({
+    const [{ id: taskId }] = await h.db('shift_tasks').insert({
       room_id: mr1,
       key: 'report-wipe',
       label: 'Console wipe-down',
       rrule: 'DTSTART:20270101T073000\nRRULE:FREQ=DAILY',
       duration_minutes: 15,
       created_at: '2027-01-01T00:00:00Z',
-    });
+    }).returning('id');
 
     await importDay(MON, [
       row('A-1', 'MR 1', '08:00', 30),

@@ -316,7 +316,7 @@ async function firstExamFields(h: Harness): Promise<ExamForm> {
 /** A copy of the seeded day's first exam under a new accession, for a cancel to remove. */
 async function spareExam(h: Harness): Promise<Exam> {
   const { id: _id, ...exam } = await h.db('exams').where({ day: '2027-03-10' }).orderBy('id').first();
-  const [id] = await h.db('exams').insert({ ...exam, accession: `SPARE-${++counter}`, version: 1 });
+  const [{ id }] = await h.db('exams').insert({ ...exam, accession: `SPARE-${++counter}`, version: 1 }).returning('id');
   return { id: id as number, start: exam.start_at, version: 1 };
 }
 
@@ -343,7 +343,7 @@ async function openTurnover(h: Harness): Promise<OpenTurnover> {
 /** An interface-log row as the feed stores it (refused, so it made no change). */
 async function freshHl7Message(h: Harness): Promise<number> {
   const stamp = h.clock.now().toISOString();
-  const [id] = await h.db('hl7_messages').insert({ received_at: stamp, last_received_at: stamp, sender: 'RIS^INVENTED', control_id: `MATRIX-${++counter}`, message_type: 'SIU^S12', ack_code: 'AE', outcome: 'Unknown room', raw: 'MSH|^~\\&|RIS|INVENTED' });
+  const [{ id }] = await h.db('hl7_messages').insert({ received_at: stamp, last_received_at: stamp, sender: 'RIS^INVENTED', control_id: `MATRIX-${++counter}`, message_type: 'SIU^S12', ack_code: 'AE', outcome: 'Unknown room', raw: 'MSH|^~\\&|RIS|INVENTED' }).returning('id');
   return id as number;
 }
 
@@ -354,18 +354,18 @@ async function freshRoom(h: Harness): Promise<number> {
 
 /** A shift task made for one check (retire), so checks never share state. */
 async function freshShiftTask(h: Harness): Promise<number> {
-  const [id] = await h.db('shift_tasks').insert({ room_id: 1, key: `matrix-${++counter}`, label: 'Matrix task', rrule: 'DTSTART:20270310T120000\nRRULE:FREQ=DAILY', duration_minutes: 5, created_at: h.clock.now().toISOString() });
+  const [{ id }] = await h.db('shift_tasks').insert({ room_id: 1, key: `matrix-${++counter}`, label: 'Matrix task', rrule: 'DTSTART:20270310T120000\nRRULE:FREQ=DAILY', duration_minutes: 5, created_at: h.clock.now().toISOString() }).returning('id');
   return id as number;
 }
 
 async function freshItem(h: Harness): Promise<number> {
-  const [id] = await h.db('equipment').insert({ name: `Matrix item ${++counter}`, kind: 'cart', marking: 'mr-safe', created_at: h.clock.now().toISOString() });
+  const [{ id }] = await h.db('equipment').insert({ name: `Matrix item ${++counter}`, kind: 'cart', marking: 'mr-safe', created_at: h.clock.now().toISOString() }).returning('id');
   return id as number;
 }
 
 async function freshProduct(h: Harness): Promise<number> {
   const stamp = h.clock.now().toISOString();
-  const [id] = await h.db('products').insert({ name: `Matrix wipe ${++counter}`, kind: 'standard', contact_minutes: 2, created_at: stamp, updated_at: stamp });
+  const [{ id }] = await h.db('products').insert({ name: `Matrix wipe ${++counter}`, kind: 'standard', contact_minutes: 2, created_at: stamp, updated_at: stamp }).returning('id');
   return id as number;
 }
 

@@ -49,7 +49,7 @@ export async function receiveHl7(deps: Hl7InboundDeps, raw: string): Promise<str
         }
       }
       const outcome = read.ok ? await applyOnce(trx, deps, read.booking, header!, now) : ({ code: read.ack, text: read.reason, error: read.error } as Outcome);
-      const [logId] = await trx('hl7_messages').insert({
+      const [{ id: logId }] = await trx('hl7_messages').insert({
         received_at: now.toISOString(),
         last_received_at: now.toISOString(),
         sender,
@@ -63,7 +63,7 @@ export async function receiveHl7(deps: Hl7InboundDeps, raw: string): Promise<str
         change_id: outcome.applied?.changeId ?? null,
         after_manual_change: outcome.applied?.afterManualChange ?? false,
         raw: stored,
-      });
+      }).returning('id');
       await pruneHl7Log(trx, now);
       return { outcome, logId: logId as number };
     });

@@ -139,6 +139,6 @@ async function applied(trx: Knex, day: string, afterManualChange: boolean): Prom
 async function feedUserId(trx: Knex, now: Date): Promise<number> {
   const found = await trx('users').where({ username: FEED_USER.username }).first('id');
   if (found) return found.id;
-  const [id] = await trx('users').insert({ username: FEED_USER.username, display_name: FEED_USER.displayName, password_hash: '!', role: 'scheduler', active: false, created_at: now.toISOString() });
+  const [{ id }] = await trx('users').insert({ username: FEED_USER.username, display_name: FEED_USER.displayName, password_hash: '!', role: 'scheduler', active: false, created_at: now.toISOString() }).returning('id');
   return id as number;
 }

@@ -25,7 +25,7 @@ export async function queueNotices(db: Knex, notices: NewNotice[], now: Date): P
   return db.transaction(async (trx) => {
     let added = 0;
     for (const n of notices) {
-      await trx('notices')
+      const inserted = await trx('notices')
         .insert({
           idempotency_key: n.key.slice(0, 200),
           kind: n.kind,
@@ -41,10 +41,10 @@ export async function queueNotices(db: Knex, notices: NewNotice[], now: Date): P
           created_at: now.toISOString(),
         })
         .onConflict('idempotency_key')
-        .ignore();
-      // an ignored row still answers the last rowid, so ask SQLite how many rows the statement added
-      const [{ changed }] = (await trx.raw('select changes() as changed')) as { changed: number }[];
-      added += changed;
+        .ignore()
+        // an ignored row returns nothing, on SQLite and PostgreSQL alike
+        .returning('id');
+      added += inserted.length;
     }
     return added;
   });
