@@ -11,12 +11,14 @@ import { createDb, migrateToLatest } from '../../server/db';
 import { seedDemo, seedReferenceData } from '../../server/seeding';
 import { DEMO_PASSWORD } from '../../seeds/support/demo-accounts';
 import type { Role } from '../../shared/api/auth';
+import { copyDatabase, templateDatabase, testDatabaseUrl } from './pg-databases';
 
 export { DEMO_PASSWORD };
 
 export interface Harness {
   db: Knex;
   app: Express;
+  /** The SQLite file, or the PostgreSQL URL in the PostgreSQL mode. */
   file: string;
   clock: ReturnType<typeof fixedClock>;
   /** A fresh app on the same database file, as after a server restart. */
@@ -27,13 +29,25 @@ export interface Harness {
 /**
  * A real SQLite file in a temp folder, migrated to latest and seeded with the demo centre.
  * Migrating and seeding run once per test process and clock (into a template file); each harness
- * starts from a copy, so a suite's setup stays quick on a busy machine.
+ * starts from a copy, so a suite's setup stays quick on a busy machine. With TEST_DATABASE_URL
+ * set, the same on PostgreSQL: a template database per run and clock, a fresh copy per harness,
+ * dropped at close.
  */
 export async function startHarness(options: Partial<AppDeps> & { now?: string; seedDay?: boolean } = {}): Promise<Harness> {
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'turnwise-test-'));
-  const file = path.join(dir, 'test.sqlite');
   const clock = fixedClock(options.now ?? '2027-03-10T14:00:00Z');
-  fs.copyFileSync(await templateFile(clock.now(), options.seedDay ?? false), file);
+  const seedDay = options.seedDay ?? false;
+  let dir: string | null = null;
+  let dropDatabase = async () => {};
+  let file: string;
+  if (testDatabaseUrl) {
+    const copy = await copyDatabase(testDatabaseUrl, await templateDatabase(testDatabaseUrl, templateKey(clock.now(), seedDay), (db) => migrateAndSeed(db, clock.now(), seedDay)));
+    file = copy.url;
+    dropDatabase = copy.drop;
+  } else {
+    dir = fs.mkdtempSync(path.join(os.tmpdir(), 'turnwise-test-'));
+    file = path.join(dir, 'test.sqlite');
+    fs.copyFileSync(await templateFile(clock.now(), seedDay), file);
+  }
   let db = createDb(file);
   const build = () => createApp({ db, sessionSecret: 'test-secret', clock, demo: true, logError: () => {}, ...options });
   const harness: Harness = {
@@ -51,7 +65,8 @@ export async function startHarness(options: Partial<AppDeps> & { now?: string; s
     async close() {
       await closeApp(harness.app);
       await db.destroy();
-      fs.rmSync(dir, { recursive: true, force: true });
+      await dropDatabase();
+      if (dir) fs.rmSync(dir, { recursive: true, force: true });
     },
   };
   return harness;
@@ -61,7 +76,7 @@ const templates = new Map<string, Promise<string>>();
 
 /** A migrated, seeded database file for this clock, made once per test process. */
 function templateFile(now: Date, seedDay: boolean): Promise<string> {
-  const key = `${now.toISOString()}|${seedDay}`;
+  const key = templateKey(now, seedDay);
   let made = templates.get(key);
   if (!made) {
     made = (async () => {
@@ -70,9 +85,7 @@ function templateFile(now: Date, seedDay: boolean): Promise<string> {
       const file = path.join(dir, 'template.sqlite');
       const db = createDb(file);
       try {
-        await migrateToLatest(db);
-        await seedReferenceData(db);
-        await seedDemo(db, now, { day: seedDay });
+        await migrateAndSeed(db, now, seedDay);
         // Everything into the main file, so one file copy is the whole database.
         await db.raw('pragma wal_checkpoint(TRUNCATE)');
       } finally {
@@ -83,6 +96,16 @@ function templateFile(now: Date, seedDay: boolean): Promise<string> {
     templates.set(key, made);
   }
   return made;
+}
+
+function templateKey(now: Date, seedDay: boolean): string {
+  return `${now.toISOString()}|${seedDay}`;
+}
+
+async function migrateAndSeed(db: Knex, now: Date, seedDay: boolean): Promise<void> {
+  await migrateToLatest(db);
+  await seedReferenceData(db);
+  await seedDemo(db, now, { day: seedDay });
 }
 
 /** What the agent's jar sends with a sign-in call: supertest's host, the auth path, plain HTTP. */
