@@ -1,6 +1,7 @@
 import assert from 'node:assert/strict';
 import { after, before, describe, test } from 'node:test';
 import type { Browser, Page } from 'playwright-core';
+import { axeViolations, describeViolation, installAxe } from './support/axe';
 import { launchBrowser, openPage, screenshot, signIn, signOut } from './support/browser';
 import { startTestServer, type TestServer } from './support/server';
 import { recordConsoleErrors } from './support/watch';
@@ -96,10 +97,61 @@ describe('Setup', () => {
         for (const tab of TABS) {
           await page.getByRole('tab', { name: tab }).click();
           const panel = page.getByRole('tabpanel');
-          if (['Rooms', 'Equipment', 'Users', 'Audit'].includes(tab)) await panel.getByRole('table').locator('tbody tr').first().waitFor();
+          if (['Rooms', 'Equipment', 'Users', 'Audit', 'Shift tasks'].includes(tab)) await panel.getByRole('table').locator('tbody tr').first().waitFor();
           if (tab === 'Site') await page.waitForFunction(`document.querySelector('input[formcontrolname="timezone"]')?.value === 'America/Chicago'`);
           await screenshot(page, `setup-${tab.toLowerCase().replace(' ', '-')}-${viewport.width}`);
         }
+      } finally {
+        await context.close();
+      }
+    }
+  });
+
+  test('an admin builds a shift task rule (next occurrences shown live) and edits an MR room’s week and zones, at 1440 and 768 px, axe-clean', async () => {
+    for (const viewport of [WIDE, TABLET]) {
+      const { context, page } = await openPage(browser, viewport);
+      await installAxe(context);
+      const found: string[] = [];
+      const sweep = async (where: string) => {
+        for (const violation of await axeViolations(page)) found.push(describeViolation(`${where} @${viewport.width}px`, violation));
+      };
+      try {
+        await signIn(page, server.baseUrl, 'admin');
+        await page.goto(`${server.baseUrl}/setup?tab=shift-tasks`);
+        await page.getByRole('table', { name: 'Shift tasks' }).locator('tbody tr').first().waitFor();
+
+        await page.getByRole('button', { name: 'Add shift task' }).click();
+        const dialog = page.getByRole('dialog');
+        await choose(page, 'Room', 'MR 1');
+        await dialog.getByLabel('Task', { exact: true }).fill(`Coil cart wipe-down ${viewport.width}`);
+        await choose(page, 'Repeats', 'Weekly');
+        await dialog.getByRole('spinbutton', { name: 'Every' }).fill('2');
+        await dialog.getByRole('checkbox', { name: 'Monday' }).check();
+        await dialog.getByRole('checkbox', { name: 'Friday' }).check();
+        await dialog.getByRole('heading', { name: /^Every 2 weeks on Monday and Friday at 07:00/ }).waitFor();
+        const next = await dialog.locator('.preview .next li').allTextContents();
+        assert.equal(next.length, 5);
+        for (const when of next) assert.match(when, /^(Mon|Fri) \d{1,2} [A-Z][a-z]{2} \d{4}, 07:00$/);
+        await sweep('shift task dialog');
+        await screenshot(page, `setup-shift-task-dialog-${viewport.width}`);
+        await dialog.getByRole('button', { name: 'Add task' }).click();
+        await dialog.waitFor({ state: 'detached' });
+        await page.getByRole('cell', { name: `Coil cart wipe-down ${viewport.width}`, exact: true }).waitFor();
+        await page.getByRole('row', { name: new RegExp(`Coil cart wipe-down ${viewport.width}`) }).getByText('Every 2 weeks on Monday and Friday at 07:00').waitFor();
+        await screenshot(page, `setup-shift-tasks-added-${viewport.width}`);
+
+        // at 768 px the tab row pages and Rooms is scrolled out of reach: open it by its link
+        await page.goto(`${server.baseUrl}/setup?tab=rooms`);
+        await page.getByRole('button', { name: 'Edit MR 1' }).click();
+        const room = page.getByRole('dialog');
+        await room.getByRole('group', { name: 'Opening hours' }).waitFor();
+        await room.getByLabel('Sunday opens at').waitFor();
+        await room.getByRole('group', { name: 'MR zones' }).waitFor();
+        await sweep('room dialog (week, MR zones)');
+        await screenshot(page, `setup-room-dialog-${viewport.width}`);
+        await room.getByRole('button', { name: 'Cancel' }).click();
+        await room.waitFor({ state: 'detached' });
+        assert.deepEqual(found, []);
       } finally {
         await context.close();
       }

@@ -62,7 +62,7 @@ export function mrZonesForm(zones: MrZones | null | undefined): MrZonesForm {
   styles: `
     .zones {
       border: 0;
-      margin: 8px 0;
+      margin: 16px 0 8px;
       padding: 0;
     }
     legend {

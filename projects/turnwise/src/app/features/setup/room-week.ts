@@ -82,7 +82,7 @@ export function weekForm(week: readonly RoomDay[] | undefined): WeekForm {
   styles: `
     .week {
       border: 0;
-      margin: 8px 0;
+      margin: 16px 0 8px;
       padding: 0;
     }
     legend {
@@ -98,7 +98,7 @@ export function weekForm(week: readonly RoomDay[] | undefined): WeekForm {
       grid-template-columns: 6.5rem 6.5rem 1fr 1fr;
       gap: 8px;
       align-items: start;
-      margin-bottom: 4px;
+      margin-bottom: 8px;
     }
     .name,
     mat-checkbox {
