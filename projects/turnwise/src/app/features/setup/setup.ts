@@ -13,7 +13,7 @@ import { SiteTab } from './site-tab';
 import { UsersTab } from './users-tab';
 
 /** The tabs in order; `?tab=` names one so a link (or a reload) opens it. */
-export const SETUP_TABS = ['rooms', 'equipment', 'users', 'site', 'audit', 'products', 'protocols', 'shift-tasks'] as const;
+export const SETUP_TABS = ['rooms', 'products', 'protocols', 'equipment', 'shift-tasks', 'users', 'site', 'audit'] as const;
 export type SetupTabName = (typeof SETUP_TABS)[number];
 
 /**
@@ -29,13 +29,13 @@ export type SetupTabName = (typeof SETUP_TABS)[number];
     <tw-setup-checklist [refresh]="index()" />
     <mat-tab-group [selectedIndex]="index()" (selectedIndexChange)="open($event)" mat-stretch-tabs="false" animationDuration="0ms">
       <mat-tab label="Rooms"><ng-template matTabContent><tw-rooms-tab /></ng-template></mat-tab>
+      <mat-tab label="Products"><ng-template matTabContent><tw-products-tab /></ng-template></mat-tab>
+      <mat-tab label="Protocols"><ng-template matTabContent><tw-protocols-tab /></ng-template></mat-tab>
       <mat-tab label="Equipment"><ng-template matTabContent><tw-equipment-tab /></ng-template></mat-tab>
+      <mat-tab label="Shift tasks"><ng-template matTabContent><tw-shift-tasks-tab /></ng-template></mat-tab>
       <mat-tab label="Users"><ng-template matTabContent><tw-users-tab /></ng-template></mat-tab>
       <mat-tab label="Site"><ng-template matTabContent><tw-site-tab /></ng-template></mat-tab>
       <mat-tab label="Audit"><ng-template matTabContent><tw-audit-tab /></ng-template></mat-tab>
-      <mat-tab label="Products"><ng-template matTabContent><tw-products-tab /></ng-template></mat-tab>
-      <mat-tab label="Protocols"><ng-template matTabContent><tw-protocols-tab /></ng-template></mat-tab>
-      <mat-tab label="Shift tasks"><ng-template matTabContent><tw-shift-tasks-tab /></ng-template></mat-tab>
     </mat-tab-group>
   `,
   styles: `
