@@ -64,10 +64,11 @@ describe('ruleProblems', () => {
   });
 
   it('names every problem', () => {
-    expect(ruleProblems('DTSTART:20270231T250000\nRRULE:INTERVAL=2;FOO=1;BYMONTH=13')).toEqual([
+    expect(ruleProblems('DTSTART:20270231T250000\nRRULE:INTERVAL=200;FOO=1;BYDAY=MO,XX')).toEqual([
       'DTSTART:20270231T250000: DTSTART is a local date-time, YYYYMMDDTHHMMSS',
-      '"FOO=1": not a rule part a shift task may use (FREQ, INTERVAL, COUNT, UNTIL, BYDAY, BYMONTHDAY, BYMONTH, BYSETPOS, WKST)',
-      'BYMONTH=13: months 1 to 12',
+      'INTERVAL=200: a whole number from 1 to 99',
+      '"FOO=1": not a rule part a shift task may use (FREQ, INTERVAL, COUNT, UNTIL, BYDAY, WKST)',
+      'BYDAY=MO,XX: weekdays as MO, TU, WE, TH, FR, SA, SU',
       'FREQ is required (RFC 5545 §3.3.10)',
     ]);
     expect(ruleProblems('DTSTART:20270301T070000Z\nRRULE:FREQ=DAILY;FREQ=DAILY\nEXDATE:20270302T070000')).toEqual([
@@ -75,5 +76,21 @@ describe('ruleProblems', () => {
       '"EXDATE:20270302T070000": only DTSTART and RRULE lines are read',
       'FREQ is given twice',
     ]);
+    expect(ruleProblems('DTSTART;TZID=Mars/Olympus:20270301T070000\nRRULE:FREQ=DAILY')).toEqual([
+      "TZID=Mars/Olympus: not an IANA time zone (leave it out for the site's zone)",
+    ]);
+  });
+
+  it('refuses what could never occur or would walk for long (the rule is expanded on every board request)', () => {
+    // RFC 5545 allows these; a shift task does not
+    expect(ruleProblems('DTSTART:20270301T070000\nRRULE:FREQ=DAILY;BYMONTH=2;BYMONTHDAY=31')).toEqual([
+      '"BYMONTH=2": not a rule part a shift task may use (FREQ, INTERVAL, COUNT, UNTIL, BYDAY, WKST)',
+      '"BYMONTHDAY=31": not a rule part a shift task may use (FREQ, INTERVAL, COUNT, UNTIL, BYDAY, WKST)',
+    ]);
+    expect(ruleProblems('DTSTART:20270301T070000\nRRULE:FREQ=MONTHLY;BYDAY=6MO')).toEqual([
+      'BYDAY=6MO: weekdays as MO, TU, WE, TH, FR, SA, SU (a MONTHLY rule may number them, 1 to 5 or −1 to −5, e.g. 1FR)',
+    ]);
+    expect(ruleProblems('DTSTART:20270301T070000\nRRULE:FREQ=WEEKLY;BYDAY=1MO')[0]).toMatch(/^BYDAY=1MO: weekdays as/);
+    expect(ruleProblems('DTSTART:00010101T000000\nRRULE:FREQ=DAILY;COUNT=9999')).toEqual(['DTSTART:00010101T000000: DTSTART is a date from 1970 to 2100']);
   });
 });

@@ -57,7 +57,7 @@ describe('Setup: shift tasks (RFC 5545 rules per room)', () => {
     expect(problems.map((p) => p.field).sort()).toEqual(['durationMinutes', 'label', 'rrule', 'rrule', 'rrule']);
     const rule = problems.filter((p) => p.field === 'rrule').map((p) => p.message);
     expect(rule).toEqual([
-      'INTERVAL=0: a positive whole number',
+      'INTERVAL=0: a whole number from 1 to 99',
       'BYDAY=MO,XX: weekdays as MO, TU, WE, TH, FR, SA, SU',
       // RFC 5545 §3.3.10: UNTIL and COUNT MUST NOT occur in the same recur
       'COUNT and UNTIL may not both be given (RFC 5545 §3.3.10): end after a number of times or on a date',

@@ -35,6 +35,20 @@ function id(known: number[], fallback = 1): fc.Arbitrary<string> {
   return fc.oneof(fc.constantFrom(...(known.length ? known : [fallback])), fc.integer({ min: 0, max: 10_000 })).map(String);
 }
 
+/** Rules a shift task may and may not use (RFC 5545), and random text. */
+const rules = fc.oneof(
+  fc.constantFrom(
+    'DTSTART:20270301T073000\nRRULE:FREQ=WEEKLY;INTERVAL=2;BYDAY=MO,FR',
+    'DTSTART:20270301T073000\nRRULE:FREQ=DAILY;COUNT=3;UNTIL=20270401',
+    'DTSTART;TZID=Mars/Olympus:20270301T073000\nRRULE:FREQ=DAILY',
+    'DTSTART:20270301T073000\nRRULE:FREQ=MONTHLY;BYDAY=1FR;BYSETPOS=-1',
+    'RRULE:FREQ=SECONDLY',
+    'DTSTART:99991231T235959\nRRULE:FREQ=YEARLY;INTERVAL=9999;COUNT=9999',
+  ),
+  fc.string({ maxLength: 600 }),
+);
+const shiftTaskFields = { label: text(130), rrule: rules, durationMinutes: small(0, 300) };
+
 const equipmentFields = {
   name: fc.oneof(fc.string({ minLength: 1, maxLength: 80 }), fc.constantFrom('Knee coil', ' mop ', '')),
   kind: fc.constantFrom('coil', 'cushion', 'cart', 'bucket', 'mop', 'spray-bottle'),
@@ -110,6 +124,10 @@ export function routeShapes(ids: KnownIds): Record<string, RouteShape> {
     'post /api/log/:id/corrections': { params: { id: id(ids.logEntries) }, body: { note: text(500) } },
     'get /api/rooms/:id/tasks': { params: room, query: dayQuery },
     'post /api/shift-tasks/:taskId/done': { params: { taskId: id(ids.shiftTasks) }, body: { due: isoInstant } },
+    'get /api/shift-tasks': { params: {} },
+    'post /api/shift-tasks': { params: {}, body: { roomId: id(ids.rooms).map(Number), ...shiftTaskFields } },
+    'put /api/shift-tasks/:taskId': { params: { taskId: id(ids.shiftTasks) }, body: shiftTaskFields },
+    'post /api/shift-tasks/:taskId/retire': { params: { taskId: id(ids.shiftTasks) } },
     'get /api/rooms/setup': { params: {} },
     'put /api/rooms/:id': {
       params: room,
@@ -120,6 +138,12 @@ export function routeShapes(ids: KnownIds): Record<string, RouteShape> {
         staff: small(1, 4),
         opensAt: hhmm,
         closesAt: hhmm,
+        week: fc.oneof(
+          fc.constant(undefined),
+          fc.array(fc.record({ weekday: small(0, 8), closed: fc.boolean(), opensAt: hhmm, closesAt: hhmm }), { minLength: 6, maxLength: 8 }),
+          fc.tuple(hhmm, hhmm).map(([opensAt, closesAt]) => [1, 2, 3, 4, 5, 6, 7].map((weekday) => ({ weekday, closed: weekday === 7, opensAt, closesAt }))),
+        ),
+        mrZones: fc.oneof(fc.constant(undefined), fc.record({ kitKeptIn: fc.constantFrom('zone-iii', 'zone-iv', 'zone-v', null), zoneIvAreas: text(600), notes: text(600) })),
       },
     },
     'post /api/rooms/:id/retire': { params: room },
