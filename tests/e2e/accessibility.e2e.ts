@@ -113,7 +113,7 @@ const VIEWS: Record<string, View[]> = {
       loaded: (page) => page.getByRole('table', { name: 'Messages received, newest first' }).locator('tr.mat-mdc-row:not(:has-text("Loading"))').first().waitFor(),
     },
   ],
-  setup: ['rooms', 'equipment', 'users', 'site', 'audit', 'products', 'protocols'].map((tab) => ({
+  setup: ['rooms', 'equipment', 'users', 'site', 'audit', 'products', 'protocols', 'shift-tasks'].map((tab) => ({
     name: `setup-${tab}`,
     url: `/setup?tab=${tab}`,
     heading: 'Setup',
