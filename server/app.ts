@@ -19,6 +19,7 @@ import { authenticate, findActiveUser } from './services/users';
 import type { SignInLimits } from './routes/auth';
 import { apiRoutes } from './routes/api';
 import { DayEvents } from './services/day-events';
+import { dayEventsFor } from './services/day-events-postgres';
 import { SessionStore } from './services/session-store';
 import { createWorkerPool, type WorkerPool } from './workers/pool';
 import { createFixesPool, type FixesPool } from './workers/fixes-pool';
@@ -68,11 +69,12 @@ export interface AppDeps {
 /** Builds the Express app without listening, so tests drive it with supertest. */
 export function createApp(deps: AppDeps): Express {
   const clock = deps.clock ?? systemClock;
-  const events = deps.events ?? new DayEvents();
+  const logError = deps.logError ?? ((err: unknown) => console.error(err));
+  const ownEvents = deps.events ? null : dayEventsFor(deps.db, logError);
+  const events = deps.events ?? ownEvents!;
   const workers = deps.workers ?? createWorkerPool();
   const fixesPool = deps.fixesPool ?? createFixesPool();
   const production = deps.production ?? false;
-  const logError = deps.logError ?? ((err: unknown) => console.error(err));
   const mailer: Mailer = createMailer({ db: deps.db, smtp: deps.smtp ?? null, demoServer: !production || Boolean(deps.demo), now: () => clock.now() });
   const noticeContext = { publicUrl: (deps.publicUrl ?? 'http://localhost:3000').replace(/\/+$/, ''), secret: deps.sessionSecret };
   const stopNotices = deps.sendNotices ? startNoticeLoop(deps.db, mailer, noticeContext, clock, logError) : async () => {};
@@ -189,7 +191,7 @@ export function createApp(deps: AppDeps): Express {
   app.locals['close'] = async () => {
     await sessionStore.close();
     await stopNotices();
-    await Promise.all([workers.close(), fixesPool.close(), mailer.close(), hl7?.close()]);
+    await Promise.all([workers.close(), fixesPool.close(), mailer.close(), hl7?.close(), ownEvents?.close?.()]);
   };
   return app;
 }

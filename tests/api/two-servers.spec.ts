@@ -1,0 +1,108 @@
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
+import type { Express } from 'express';
+import type { Knex } from 'knex';
+import request from 'supertest';
+import { closeApp, createApp } from '../../server/app';
+import { createDb } from '../../server/db';
+import { PostgresDayEvents } from '../../server/services/day-events-postgres';
+import { EXAM_LIST_HEADER, toCsv } from '../fixtures/exam-lists';
+import { signedIn, startHarness, type Client, type Harness } from './harness';
+import { testDatabaseUrl } from './pg-databases';
+
+const DAY = '2027-03-10'; // America/Chicago, -06:00
+const t = (hhmm: string) => `${DAY}T${hhmm}:00-06:00`;
+const row = (acc: string, start: string) => [acc, 'MR 1', start, '30', 'MR exam', 'knee', 'none', 'ambulatory', 'no', ''];
+
+/**
+ * Two servers on one PostgreSQL database: A is the harness's app, B a second app with its own
+ * pool, session store and event bus (its own LISTEN connection), as a second process has; all
+ * they share is the database. Runs with TEST_DATABASE_URL (npm run test:pg, CI).
+ */
+(testDatabaseUrl ? describe : describe.skip)('two servers on one PostgreSQL database', () => {
+  let h: Harness;
+  let dbB: Knex;
+  let eventsA: PostgresDayEvents;
+  let eventsB: PostgresDayEvents;
+  let appB: Express;
+  let scheduler: Client;
+  let charge: Client;
+  beforeAll(async () => {
+    h = await startHarness();
+    // A's own bus replaces the harness app's, so this test can wait until it listens
+    await closeApp(h.app);
+    eventsA = new PostgresDayEvents(h.db, () => {});
+    h.app = createApp({ db: h.db, sessionSecret: 'test-secret', clock: h.clock, demo: true, logError: () => {}, events: eventsA });
+    dbB = createDb(h.file);
+    eventsB = new PostgresDayEvents(dbB, () => {});
+    appB = createApp({ db: dbB, sessionSecret: 'test-secret', clock: h.clock, demo: true, logError: () => {}, events: eventsB });
+    await Promise.all([eventsA.listening, eventsB.listening]);
+    scheduler = await signedIn(h.app, 'scheduler');
+    charge = await signedIn(h.app, 'charge');
+    const csv = toCsv([EXAM_LIST_HEADER, row('M-1', '08:00'), row('M-2', '09:00')]);
+    expect((await scheduler.upload(`/api/days/${DAY}/exams/import`, csv, 'day.csv')).status).toBe(200);
+  }, 30_000);
+  afterAll(async () => {
+    await closeApp(appB);
+    await Promise.all([eventsA.close(), eventsB.close()]);
+    await dbB.destroy();
+    await h.close();
+  }, 30_000);
+
+  /** Charge's session cookies (made on A), to send to B. */
+  const chargeCookies = async () => (await charge.get('/api/auth/me')).request.cookies as unknown as string;
+  const exam = async (accession: string) => (await h.db('exams').where({ day: DAY, accession }).first()) as { id: number; version: number };
+
+  it('accepts on B a session made on A, XSRF token included', async () => {
+    const cookies = await chargeCookies();
+    const me = await request(appB).get('/api/auth/me').set('Cookie', cookies);
+    expect([me.status, me.body.user?.username]).toEqual([200, 'charge']);
+    const m1 = await exam('M-1');
+    const moved = await request(appB).patch(`/api/exams/${m1.id}`).set('Cookie', cookies).set('X-XSRF-TOKEN', charge.token).send({ start: t('08:10'), version: m1.version, reason: 'drag' });
+    expect(moved.status).toBe(200);
+    expect((await request(appB).get('/api/auth/me')).status).toBe(401);
+  });
+
+  it("streams on B's event stream a move saved on A", async () => {
+    const server = http.createServer(appB);
+    await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+    const port = (server.address() as AddressInfo).port;
+    const cookies = await chargeCookies();
+    try {
+      const received = new Promise<string>((resolve, reject) => {
+        const req = http.get({ host: '127.0.0.1', port, path: `/api/days/${DAY}/events`, headers: { Cookie: cookies } }, (res) => {
+          expect(res.headers['content-type']).toMatch(/text\/event-stream/);
+          let buffer = '';
+          res.on('data', (chunk) => {
+            buffer += chunk;
+            if (buffer.includes('event: change')) {
+              resolve(buffer);
+              req.destroy();
+            }
+          });
+          // once B's stream is open, move a slot on A
+          exam('M-2').then((m2) => charge.patch(`/api/exams/${m2.id}`, { start: t('09:20'), version: m2.version, reason: 'drag' }));
+        });
+        req.on('error', reject);
+      });
+      const text = await received;
+      const data = JSON.parse(/data: (.*)/.exec(text.slice(text.indexOf('event: change')))![1]!);
+      const mover = (await charge.get('/api/auth/me')).body.user.displayName as string;
+      expect(data).toMatchObject({ date: DAY, kind: 'plan', reason: 'drag', by: mover });
+    } finally {
+      server.closeAllConnections();
+      await new Promise((resolve) => server.close(resolve));
+    }
+  });
+
+  it('lets exactly one of two moves of one slot from the same version win, one from A and one from B', async () => {
+    const cookies = await chargeCookies();
+    const m2 = await exam('M-2');
+    const answers = await Promise.all([
+      charge.patch(`/api/exams/${m2.id}`, { start: t('10:00'), version: m2.version, reason: 'drag' }),
+      request(appB).patch(`/api/exams/${m2.id}`).set('Cookie', cookies).set('X-XSRF-TOKEN', charge.token).send({ start: t('11:00'), version: m2.version, reason: 'drag' }),
+    ]);
+    expect(answers.map((a) => a.status).sort()).toEqual([200, 409]);
+    expect((await exam('M-2')).version).toBe(m2.version + 1);
+  });
+});
