@@ -74,6 +74,28 @@ export function describeDatabase(target: string): string {
   return url.toString();
 }
 
+/** The advisory-lock key of the notice sender's pass (any fixed 64-bit number; this is "Tw" 1). */
+export const NOTICE_PASS_LOCK = 0x5477_0001;
+
+/**
+ * Runs `work` in one server process at a time: on PostgreSQL only the process that takes the
+ * transaction-scoped advisory lock `key` runs it (the lock is held until `work` ends, and freed
+ * with its connection should the process die); the others skip this turn and answer false.
+ * SQLite is served by one process, so there it simply runs.
+ */
+export async function onceAcrossProcesses(db: Knex, key: number, work: () => Promise<void>): Promise<boolean> {
+  if (db.client.config.client !== 'pg') {
+    await work();
+    return true;
+  }
+  return db.transaction(async (trx) => {
+    const { rows } = (await trx.raw('select pg_try_advisory_xact_lock(?) as locked', [key])) as { rows: { locked: boolean }[] };
+    if (!rows[0]?.locked) return false;
+    await work();
+    return true;
+  });
+}
+
 export async function migrateToLatest(db: Knex): Promise<void> {
   await db.migrate.latest(migrationConfig);
 }

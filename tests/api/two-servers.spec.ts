@@ -4,7 +4,7 @@ import type { Express } from 'express';
 import type { Knex } from 'knex';
 import request from 'supertest';
 import { closeApp, createApp } from '../../server/app';
-import { createDb } from '../../server/db';
+import { createDb, NOTICE_PASS_LOCK, onceAcrossProcesses } from '../../server/db';
 import { PostgresDayEvents } from '../../server/services/day-events-postgres';
 import { EXAM_LIST_HEADER, toCsv } from '../fixtures/exam-lists';
 import { signedIn, startHarness, type Client, type Harness } from './harness';
@@ -93,6 +93,25 @@ const row = (acc: string, start: string) => [acc, 'MR 1', start, '30', 'MR exam'
       server.closeAllConnections();
       await new Promise((resolve) => server.close(resolve));
     }
+  });
+
+  it('runs background work (the notice pass) in one of them at a time; the other skips its turn', async () => {
+    let release!: () => void;
+    let started!: () => void;
+    const isRunning = new Promise<void>((resolve) => (started = resolve));
+    const onA = onceAcrossProcesses(h.db, NOTICE_PASS_LOCK, async () => {
+      started();
+      await new Promise<void>((resolve) => (release = resolve));
+    });
+    await isRunning;
+    let ranOnB = false;
+    expect(await onceAcrossProcesses(dbB, NOTICE_PASS_LOCK, async () => void (ranOnB = true))).toBe(false);
+    release();
+    expect(await onA).toBe(true);
+    expect(ranOnB).toBe(false);
+    // the lock ends with A's pass: B's next turn runs
+    expect(await onceAcrossProcesses(dbB, NOTICE_PASS_LOCK, async () => void (ranOnB = true))).toBe(true);
+    expect(ranOnB).toBe(true);
   });
 
   it('lets exactly one of two moves of one slot from the same version win, one from A and one from B', async () => {

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import type { Clock } from '../../clock';
+import { NOTICE_PASS_LOCK, onceAcrossProcesses } from '../../db';
 import type { Mailer } from '../mail/mailer';
 import type { NoticeContext } from './render';
 import { sendDue, type SendOptions } from './sender';
@@ -26,13 +27,15 @@ export async function runNotices(db: Knex, mailer: Mailer, ctx: NoticeContext, n
 
 /**
  * The timer started by the server's main: a pass every {@link NOTICE_LOOP_MS}, never two at
- * once, off the request path. Its errors are logged, never thrown. Returns its stop.
+ * once (in this process, nor across processes on PostgreSQL), off the request path. Its errors are logged, never thrown. Returns its stop.
  */
 export function startNoticeLoop(db: Knex, mailer: Mailer, ctx: NoticeContext, clock: Clock, logError: (err: unknown) => void): () => Promise<void> {
   let running: Promise<void> | null = null;
   const pass = () => {
     if (running) return;
-    running = runNotices(db, mailer, ctx, clock.now())
+    // with several server processes on PostgreSQL, one of them makes each pass
+    running = onceAcrossProcesses(db, NOTICE_PASS_LOCK, () => runNotices(db, mailer, ctx, clock.now()))
+      .then(() => undefined)
       .catch(logError)
       .finally(() => {
         running = null;
