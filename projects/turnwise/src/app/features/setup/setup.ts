@@ -41,6 +41,10 @@ export type SetupTabName = (typeof SETUP_TABS)[number];
   styles: `
     :host { display: block; }
     h1 { margin: 0 0 8px; }
+    /* All eight tabs in view on a tablet (768 px): no paging arrows to hide one behind. */
+    @media (max-width: 1000px) {
+      :host ::ng-deep .mat-mdc-tab-header .mat-mdc-tab { min-width: 0; padding-inline: 10px; }
+    }
   `,
 })
 export class Setup {
