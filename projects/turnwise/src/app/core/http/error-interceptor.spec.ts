@@ -74,6 +74,14 @@ describe('errorInterceptor', () => {
     expect(setup.notice.show).not.toHaveBeenCalled();
   });
 
+  it('after a sign-out, a late 401 of a call still under way does not send the user back with a returnUrl', async () => {
+    const setup = setUp();
+    setup.auth.signInAs(null);
+    await fail(setup, '/api/setup/checklist', { error: { code: 'unauthenticated', message: 'Sign in first.' } }, 401);
+    expect(setup.navigate).not.toHaveBeenCalled();
+    expect(setup.notice.show).not.toHaveBeenCalled();
+  });
+
   it('leaves a 401 from the "who am I" call alone: that is how signed-out is learned', async () => {
     const setup = setUp();
     await fail(setup, '/api/auth/me', { error: { code: 'unauthenticated', message: 'Sign in first.' } }, 401, { ownErrors: true });

@@ -27,8 +27,11 @@ export const errorInterceptor: HttpInterceptorFn = (request, next) => {
       if (!(failure instanceof HttpErrorResponse)) return throwError(() => failure);
       const apiError = toApiError(failure);
       if (apiError.status === 401 && !AUTH_CALLS.some((path) => request.url.startsWith(path))) {
+        // A call still under way when the user signed out answers 401 too: the sign-out already
+        // leads to the sign-in page, and must not come back to this screen after the next sign-in.
+        const wasSignedIn = auth.user() !== null;
         auth.clear();
-        if (!router.url.startsWith('/sign-in')) {
+        if (wasSignedIn && !router.url.startsWith('/sign-in')) {
           void router.navigate(['/sign-in'], { queryParams: { returnUrl: router.url } });
         }
       } else if (apiError.code === 'password_change_required') {
