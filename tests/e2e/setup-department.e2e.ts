@@ -4,7 +4,7 @@ import type { Browser, Locator, Page } from 'playwright-core';
 import type { DayPlan } from '../../shared/turnover/day-plan-types';
 import { EXAM_LIST_HEADER, toCsv } from '../fixtures/exam-lists';
 import { axeViolations, describeViolation, installAxe } from './support/axe';
-import { launchBrowser, openPage, screenshot, signOut } from './support/browser';
+import { launchBrowser, openPage, screenshot, signOut, STEP_TIMEOUT_MS } from './support/browser';
 import { startTestServer, type TestServer } from './support/server';
 import { recordConsoleErrors } from './support/watch';
 
@@ -163,6 +163,8 @@ describe('a new department from nothing', { timeout: 240_000 }, () => {
       // keyboard only: Add step puts the keyboard in the new step's label, its needs are a select away
       await page.getByRole('dialog').getByRole('button', { name: 'Add step' }).focus();
       await page.keyboard.press('Enter');
+      // the new step's label takes the keyboard once it is drawn; type only then
+      await page.waitForFunction(() => document.activeElement?.tagName === 'INPUT' && !!document.activeElement.closest('[data-step="2"]'), undefined, { timeout: STEP_TIMEOUT_MS });
       await page.keyboard.type('Check the injector');
       const added = page.getByRole('dialog').locator('[data-step="2"]').first();
       assert.equal(await added.getByLabel('Label').inputValue(), 'Check the injector');
