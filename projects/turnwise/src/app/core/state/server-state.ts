@@ -22,7 +22,11 @@ export interface ServerState<K, T> {
   show(key: K): void;
   /** Fetches the current key again, keeping its value on screen until the answer comes. */
   reload(): void;
-  /** Takes a value an action answered (a change answers the new state), as if fetched. */
+  /**
+   * Takes a value an action answered (a change answers the new state), as if fetched. A fetch
+   * still on its way may have been read before the action's change: it is dropped and sent again,
+   * so an older answer never lands on top of the newer one.
+   */
   set(value: T): void;
 }
 
@@ -43,6 +47,7 @@ export function serverState<K, T>(fetch: (key: K) => Observable<T>, failedMessag
   const error = signal<ApiError | null>(null);
   const revision = signal(0);
   const fetches = new Subject<K>();
+  let fetching = false;
 
   const take = (next: T) => {
     value.set(next);
@@ -52,14 +57,16 @@ export function serverState<K, T>(fetch: (key: K) => Observable<T>, failedMessag
   };
   const subscription = fetches
     .pipe(
-      switchMap((current) =>
-        fetch(current).pipe(
+      switchMap((current) => {
+        fetching = true;
+        return fetch(current).pipe(
           map((next): Outcome<T> => ({ value: next })),
           catchError((failure: unknown) => of<Outcome<T>>({ error: asApiError(failure, failedMessage) })),
-        ),
-      ),
+        );
+      }),
     )
     .subscribe((outcome) => {
+      fetching = false;
       if ('value' in outcome) return take(outcome.value);
       error.set(outcome.error);
       if (value() === null) status.set('failed');
@@ -86,6 +93,11 @@ export function serverState<K, T>(fetch: (key: K) => Observable<T>, failedMessag
       if (value() === null) status.set('loading');
       fetches.next(current);
     },
-    set: take,
+    set(next: T) {
+      take(next);
+      const current = key();
+      // switchMap cancels the fetch on its way; the new one starts after the action's change
+      if (fetching && current !== null) fetches.next(current);
+    },
   };
 }
