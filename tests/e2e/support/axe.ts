@@ -41,9 +41,22 @@ declare const axe: {
     }[];
   }>;
 };
-declare const document: unknown;
+declare const document: {
+  getAnimations(): { finished: Promise<unknown>; effect: { getComputedTiming(): { endTime?: number | string } } | null }[];
+};
+declare function requestAnimationFrame(callback: () => void): number;
 
 async function runAxeInPage(tags: string[]): Promise<AxeViolation[]> {
+  // A dialog or panel still fading in is half transparent, and axe would measure its blended
+  // colours: wait two frames (an opening class lands on the next one), then for every animation
+  // that ends (spinners and other endless ones excepted).
+  for (let frame = 0; frame < 2; frame++) await new Promise<void>((resolve) => requestAnimationFrame(() => resolve()));
+  await Promise.all(
+    document
+      .getAnimations()
+      .filter((animation) => Number.isFinite(Number(animation.effect?.getComputedTiming().endTime)))
+      .map((animation) => animation.finished.catch(() => undefined)),
+  );
   const result = await axe.run(document, { runOnly: { type: 'tag', values: tags }, resultTypes: ['violations'] });
   return result.violations.map((violation) => ({
     id: violation.id,
@@ -56,7 +69,7 @@ async function runAxeInPage(tags: string[]): Promise<AxeViolation[]> {
 }
 
 /**
- * The WCAG 2.2 AA violations axe finds on the page as it is now.
+ * The WCAG 2.2 AA violations axe finds on the page once its running animations have ended.
  * @example assert.deepEqual(await axeViolations(page), []);
  */
 export function axeViolations(page: Page): Promise<AxeViolation[]> {

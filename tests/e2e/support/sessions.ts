@@ -36,7 +36,9 @@ export async function withSessions(
     }
     await body(...sessions);
     for (const session of sessions) {
-      assert.deepEqual(session.console.errors, [], 'no console errors or uncaught exceptions');
+      if (session.console.errors.length > 0) {
+        assert.fail(`console errors or uncaught exceptions:\n  ${session.console.errors.join('\n  ')}\nAPI refusals seen:\n  ${session.console.refusals.join('\n  ') || 'none'}`);
+      }
       session.requests.assertAllLocal();
     }
   } finally {

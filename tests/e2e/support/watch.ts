@@ -40,6 +40,8 @@ function isLocal(url: string): boolean {
 export interface ConsoleLog {
   /** Console errors and uncaught page errors, each prefixed with the page URL. */
   readonly errors: string[];
+  /** Every API answer of 400 or more, with its body: what a "Failed to load resource" line was about. */
+  readonly refusals: string[];
 }
 
 /** A console error the caller expects, e.g. Chromium logging a 401 the app asked for on purpose. */
@@ -52,13 +54,24 @@ export type ExpectedConsoleError = (error: { text: string; sourceUrl: string }) 
  */
 export function recordConsoleErrors(page: Page, expected: ExpectedConsoleError = () => false): ConsoleLog {
   const errors: string[] = [];
+  const refusals: string[] = [];
+  page.on('response', (response) => {
+    const url = new URL(response.url());
+    if (response.status() < 400 || !url.pathname.startsWith('/api/')) return;
+    const line = `${response.request().method()} ${url.pathname}${url.search} → ${response.status()}`;
+    refusals.push(line);
+    response.text().then(
+      (body) => (refusals[refusals.indexOf(line)] = `${line} ${body.slice(0, 300)}`),
+      () => undefined,
+    );
+  });
   page.on('console', (message) => {
     if (message.type() !== 'error') return;
     if (expected({ text: message.text(), sourceUrl: message.location().url })) return;
     errors.push(`${page.url()}: console.error: ${message.text()}`);
   });
   page.on('pageerror', (error) => errors.push(`${page.url()}: uncaught: ${error.message}`));
-  return { errors };
+  return { errors, refusals };
 }
 
 /**
