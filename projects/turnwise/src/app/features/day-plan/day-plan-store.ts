@@ -1,12 +1,13 @@
 import { DestroyRef, Injectable, computed, inject, signal } from '@angular/core';
-import { Observable, Subscription, map, of } from 'rxjs';
+import { Observable, Subscription, map, of, skip, tap } from 'rxjs';
 
 import type { ApiError } from '@shared/api/errors';
 import type { MoveReason } from '@shared/api/limits';
 import type { PlanExam, PlannedDay } from '@shared/api/plan';
 import type { Fix } from '@shared/fixes/model';
 import { AuthService } from '../../core/auth/auth-service';
-import { DayEvents } from '../../core/live/day-events';
+import { DayEvents, type DayStreamStatus } from '../../core/live/day-events';
+import { dayRefreshes } from '../../core/live/day-refresh';
 import { action } from '../../core/state/action';
 import { serverState } from '../../core/state/server-state';
 import { movedByBookingSystem } from './booking-moves';
@@ -18,8 +19,6 @@ export interface Notice {
   tone: 'error' | 'info';
   text: string;
 }
-
-export type LiveState = 'connecting' | 'live' | 'offline';
 
 /** How long "Updated by …" stays up after someone else changed the day. */
 const UPDATED_BY_MS = 6000;
@@ -56,7 +55,7 @@ export class DayPlanStore {
   /** A change is on its way to the server; the screen holds further changes until it answers. */
   readonly busy = this.change.pending;
   readonly notice = signal<Notice | null>(null);
-  readonly live = signal<LiveState>('connecting');
+  readonly live = signal<DayStreamStatus>('connecting');
   readonly updatedBy = signal<string | null>(null);
   /** Patients whose slot this screen's moves, fixes, undos and redos changed, since the day was opened or the list cleared. */
   readonly calls = signal<PatientToCall[]>([]);
@@ -168,26 +167,21 @@ export class DayPlanStore {
     if (DAY_MOVED_ON.includes(error.code) || NOTHING_TO_DO.includes(error.code)) this.reload();
   }
 
+  /** Refetches on every change event and after a reconnection (the day was fetched on opening). */
   private listen(date: string): void {
     this.stream?.unsubscribe();
     this.live.set('connecting');
-    let opened = false;
-    this.stream = this.events.stream(date).subscribe((message) => {
-      if (message.type === 'status') {
-        if (message.status === 'reconnecting') return this.live.set('offline');
-        if (message.status === 'connecting') return;
-        this.live.set('live');
-        // A reconnection may have missed changes; the first opening needs nothing new.
-        if (opened) this.reload();
-        opened = true;
-        return;
-      }
-      this.live.set('live');
-      this.reload();
-      const notice = message.event;
-      const me = this.user();
-      if (notice?.by && notice.by !== (me?.displayName || me?.username)) this.showUpdatedBy(notice.by);
-    });
+    const stream = this.events.stream(date).pipe(
+      tap((message) => {
+        if (message.type !== 'change') return;
+        const me = this.user();
+        const by = message.event?.by;
+        if (by && by !== (me?.displayName || me?.username)) this.showUpdatedBy(by);
+      }),
+    );
+    this.stream = dayRefreshes(stream, { onStatus: (status) => this.live.set(status) })
+      .pipe(skip(1))
+      .subscribe(() => this.reload());
   }
 
   private showUpdatedBy(by: string): void {

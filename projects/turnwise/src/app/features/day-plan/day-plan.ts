@@ -13,6 +13,7 @@ import { AuthService } from '../../core/auth/auth-service';
 import { may } from '../../core/auth/roles';
 import { CautionKind, CautionNote } from '../../shared/ui/caution-note';
 import { DayPicker } from '../../shared/ui/day-picker';
+import { LiveIndicator } from '../../shared/ui/live-indicator';
 import { SiteSettingsService } from '../../core/site/site-settings-service';
 import { VerdictSummary } from '../../shared/ui/verdict-summary';
 import { BandLegend } from './band-legend';
@@ -34,7 +35,7 @@ import { ZOOMS, Zoom } from './timeline-scale';
   selector: 'tw-day-plan',
   imports: [
     MatButtonModule, MatButtonToggleModule, MatIconModule, MatProgressBarModule, MatSlideToggleModule, RouterLink,
-    BandLegend, CautionNote, DayPicker, DayTimeline, GapPanel, HistoryPanel, PatientsToCallPanel, VerdictSummary,
+    BandLegend, CautionNote, DayPicker, DayTimeline, GapPanel, HistoryPanel, LiveIndicator, PatientsToCallPanel, VerdictSummary,
   ],
   providers: [DayPlanStore],
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -9,9 +9,6 @@ import { GapMarker } from './gap-marker';
 import { LaneSlot, clockOf, laneView } from './lane-view';
 import { TimelineScale, xOf } from './timeline-scale';
 
-/** Fewest and most people a turnover may have (the server's limits). */
-export const STAFF_RANGE = TURNOVER_STAFF;
-
 /**
  * One room's lane: its header (name, modality, people on turnover, first and last slot) and,
  * along the time axis, every gap before the exam it leads to, then the exam: that is also the
@@ -43,7 +40,8 @@ export class RoomLane {
   /** "N to check" was chosen: show the room's first problem gap. */
   readonly problemsOpened = output<void>();
 
-  protected readonly staffRange = STAFF_RANGE;
+  /** Fewest and most people a turnover may have (the server's limits). */
+  protected readonly staffRange = TURNOVER_STAFF;
   protected readonly span = computed(() => {
     const exams = this.room().exams;
     return exams.length ? `${clockOf(exams[0].start)}–${clockOf(exams[exams.length - 1].end)}` : 'no exams';
