@@ -34,6 +34,69 @@ export interface PlanGap {
   airHoldMinutes: number;
   staff: number;
   steps: PlanStep[];
+  /**
+   * With a roster only (absent without one): who works this turnover, by roster person id; `person`
+   * in `steps` indexes this list. Empty when nobody on the roster can do it (`people.kind` 'nobody').
+   */
+  crew?: string[];
+  /** With a roster only: why the crew started late or is smaller than the room's staff; null when neither. */
+  people?: GapPeopleReason | null;
+}
+
+/**
+ * Why a turnover waited for people or ran with fewer than its room's staff. "Short by 6 min: the
+ * aide is in MR 2 until 10:12" is `{ kind: 'busy', personId, roomId: <MR 2>, until: '…10:12…' }`.
+ */
+export interface GapPeopleReason {
+  /** busy in another room; on a break; shift not started (or over); nobody on the roster can do it. */
+  kind: 'busy' | 'break' | 'off-shift' | 'nobody';
+  personId: string | null;
+  /** Where the person is busy (kind 'busy'). */
+  roomId: number | null;
+  /** When the person is free to start here (walking included); null for 'nobody'. */
+  until: string | null;
+  /** People the turnover wanted (the room's staff, or its override) and people it got. */
+  wanted: number;
+  got: number;
+  /** Minutes the crew started after the room was free (0: on time). */
+  waitedMinutes: number;
+}
+
+/** A piece of a person's day: hands-on work on one turnover. */
+export interface PlanPersonWork {
+  roomId: number;
+  /** The turnover's arriving exam (the gap's `toExamId`). */
+  toExamId: number;
+  start: string;
+  end: string;
+}
+
+/** A person on the roster with the turnover work the plan gave them (the people view's lane). */
+export interface PlanPerson {
+  id: string;
+  label: string;
+  name: string | null;
+  role: 'technologist' | 'aide';
+  /** Shift start and end as instants with the site's offset. */
+  start: string;
+  end: string;
+  breaks: { start: string; end: string }[];
+  roomIds: number[];
+  work: PlanPersonWork[];
+}
+
+/** The roster side of a plan: present only when the day has a roster (source 'day' or 'weekly'). */
+export interface PlanPeople {
+  source: 'day' | 'weekly';
+  walkingMinutes: number;
+  people: PlanPerson[];
+  /** Rooms nobody on the roster covers: planned as without a roster, with the room's own staff. */
+  uncoveredRoomIds: number[];
+  /**
+   * True when every cluster of competing turnovers was searched to the end; false when a search
+   * ran out of its node budget and the documented heuristic placed the rest (see shared/roster).
+   */
+  provenOptimal: boolean;
 }
 
 export interface PlanExam {
@@ -97,4 +160,6 @@ export interface DayPlan {
   timezone: string;
   rooms: PlanRoom[];
   summary: PlanSummary;
+  /** The day's people and their work; absent when the day has no roster. */
+  people?: PlanPeople;
 }
