@@ -1,7 +1,7 @@
 import path from 'node:path';
 import fs from 'node:fs';
 import knex, { Knex } from 'knex';
-import { types as pgTypes } from 'pg';
+import { types as pgTypes, type Client as PgClient } from 'pg';
 
 export const MIGRATIONS_DIR = path.resolve(__dirname, '..', 'migrations');
 
@@ -62,8 +62,47 @@ function createPostgresDb(connectionString: string): Knex {
         },
       },
     },
-    pool: { min: 0, max: 10 },
+    pool: {
+      min: 0,
+      max: 10,
+      afterCreate(conn: PgClient, done: (err: Error | null, conn: PgClient) => void) {
+        oneQueryAtATime(conn);
+        done(null, conn);
+      },
+    },
   });
+}
+
+type QueryCallback = (err: Error | null, result?: unknown) => void;
+
+/**
+ * A transaction is one connection, and code that reads with `Promise.all` hands it several
+ * queries at once (on SQLite they simply run in turn). pg queues them itself but calls that
+ * deprecated (gone in pg 9), so each pooled connection here sends the next query only once the
+ * one before has answered. Only the form Knex uses (query and callback) waits its turn.
+ */
+function oneQueryAtATime(conn: PgClient): void {
+  const query = conn.query.bind(conn) as (...args: unknown[]) => unknown;
+  let turn: Promise<void> = Promise.resolve();
+  (conn as unknown as { query: (...args: unknown[]) => unknown }).query = (...args: unknown[]) => {
+    const callback = args[1];
+    if (args.length !== 2 || typeof callback !== 'function') return query(...args);
+    turn = turn.then(
+      () =>
+        new Promise<void>((answered) => {
+          try {
+            query(args[0], (err: Error | null, result?: unknown) => {
+              answered();
+              (callback as QueryCallback)(err, result);
+            });
+          } catch (err) {
+            answered();
+            (callback as QueryCallback)(err as Error);
+          }
+        }),
+    );
+    return undefined;
+  };
 }
 
 /** The database a target names, for a log line: the URL without its password, or the file. */
