@@ -11,7 +11,7 @@ import type { Fix } from '@shared/fixes/model';
 import type { PlanExam, PlannedDay } from '@shared/api/plan';
 import { AuthService } from '../../core/auth/auth-service';
 import { may } from '../../core/auth/roles';
-import { CautionKind, CautionNote } from '../../shared/ui/caution-note';
+import { CautionNote, cautionsForDay } from '../../shared/ui/caution-note';
 import { DayPicker } from '../../shared/ui/day-picker';
 import { LiveIndicator } from '../../shared/ui/live-indicator';
 import { SiteSettingsService } from '../../core/site/site-settings-service';
@@ -88,13 +88,7 @@ export class DayPlan {
     }
     return null;
   });
-  protected readonly cautions = computed(() => {
-    const rooms = this.store.plan()?.rooms ?? [];
-    const kinds: CautionKind[] = ['general'];
-    if (rooms.some((room) => room.modality === 'MR')) kinds.push('mr');
-    if (rooms.some((room) => room.gaps.some((gap) => gap.airHoldMinutes > 0))) kinds.push('airborne');
-    return kinds;
-  });
+  protected readonly cautions = computed(() => cautionsForDay(this.store.plan()?.rooms ?? []));
 
   constructor() {
     effect(() => {

@@ -12,7 +12,7 @@ import { registerIcons } from '../../core/layout/register-icons';
 import { SiteSettingsService } from '../../core/site/site-settings-service';
 import { serverState } from '../../core/state/server-state';
 import { Clock } from '../../core/time/clock';
-import { CautionKind, CautionNote } from '../../shared/ui/caution-note';
+import { CautionNote, cautionsForDay } from '../../shared/ui/caution-note';
 import { longDay } from '../../shared/ui/site-time';
 import { DaySheetService } from './day-sheet-service';
 import { ORIENTATIONS, Orientation, PAPERS, Paper, pageRule, usualPaper } from './page-setup';
@@ -54,13 +54,7 @@ export class DaySheet {
     return DateTime.fromMillis(this.clock.minute(), { zone, locale: 'en-GB' }).toFormat('d LLL yyyy, HH:mm');
   });
 
-  protected readonly cautions = computed(() => {
-    const rooms = this.plan()?.rooms ?? [];
-    const kinds: CautionKind[] = ['general'];
-    if (rooms.some((room) => room.modality === 'MR')) kinds.push('mr');
-    if (rooms.some((room) => room.gaps.some((gap) => gap.airHoldMinutes > 0))) kinds.push('airborne');
-    return kinds;
-  });
+  protected readonly cautions = computed(() => cautionsForDay(this.plan()?.rooms ?? []));
 
   protected readonly empty = computed(() => this.plan()?.rooms.every((room) => room.exams.length === 0) ?? false);
 

@@ -7,6 +7,18 @@ import { MatIconModule } from '@angular/material/icon';
  */
 export type CautionKind = 'general' | 'mr' | 'airborne';
 
+/**
+ * The cautions a whole day calls for: the magnet room's when it has an MR room, the air hold's
+ * when any gap holds the room for the air.
+ * @example cautionsForDay(plan?.rooms ?? []); // ['general', 'mr']
+ */
+export function cautionsForDay(rooms: readonly { modality: string; gaps: readonly { airHoldMinutes: number }[] }[]): CautionKind[] {
+  const kinds: CautionKind[] = ['general'];
+  if (rooms.some((room) => room.modality === 'MR')) kinds.push('mr');
+  if (rooms.some((room) => room.gaps.some((gap) => gap.airHoldMinutes > 0))) kinds.push('airborne');
+  return kinds;
+}
+
 /** The safety caution a screen shows wherever its times could be mistaken for instructions. */
 @Component({
   selector: 'tw-caution-note',
