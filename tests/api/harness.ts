@@ -27,26 +27,27 @@ export interface Harness {
 }
 
 /**
- * A real SQLite file in a temp folder, migrated to latest and seeded with the demo centre.
+ * A real SQLite file in a temp folder, migrated to latest and seeded with the demo centre (or,
+ * `bare`, with the reference data only).
  * Migrating and seeding run once per test process and clock (into a template file); each harness
  * starts from a copy, so a suite's setup stays quick on a busy machine. With TEST_DATABASE_URL
  * set, the same on PostgreSQL: a template database per run and clock, a fresh copy per harness,
  * dropped at close.
  */
-export async function startHarness(options: Partial<AppDeps> & { now?: string; seedDay?: boolean } = {}): Promise<Harness> {
+export async function startHarness(options: Partial<AppDeps> & HarnessSeed & { now?: string } = {}): Promise<Harness> {
   const clock = fixedClock(options.now ?? '2027-03-10T14:00:00Z');
-  const seedDay = options.seedDay ?? false;
+  const seed: Required<HarnessSeed> = { seedDay: options.seedDay ?? false, bare: options.bare ?? false };
   let dir: string | null = null;
   let dropDatabase = async () => {};
   let file: string;
   if (testDatabaseUrl) {
-    const copy = await copyDatabase(testDatabaseUrl, await templateDatabase(testDatabaseUrl, templateKey(clock.now(), seedDay), (db) => migrateAndSeed(db, clock.now(), seedDay)));
+    const copy = await copyDatabase(testDatabaseUrl, await templateDatabase(testDatabaseUrl, templateKey(clock.now(), seed), (db) => migrateAndSeed(db, clock.now(), seed)));
     file = copy.url;
     dropDatabase = copy.drop;
   } else {
     dir = fs.mkdtempSync(path.join(os.tmpdir(), 'turnwise-test-'));
     file = path.join(dir, 'test.sqlite');
-    fs.copyFileSync(await templateFile(clock.now(), seedDay), file);
+    fs.copyFileSync(await templateFile(clock.now(), seed), file);
   }
   let db = createDb(file);
   const build = () => createApp({ db, sessionSecret: 'test-secret', clock, demo: true, logError: () => {}, ...options });
@@ -72,11 +73,19 @@ export async function startHarness(options: Partial<AppDeps> & { now?: string; s
   return harness;
 }
 
+/** What a harness database holds besides the schema and the reference data. */
+export interface HarnessSeed {
+  /** The demo day's exams too. */
+  seedDay?: boolean;
+  /** Nothing else: no demo centre, no accounts, as a production boot leaves it. */
+  bare?: boolean;
+}
+
 const templates = new Map<string, Promise<string>>();
 
 /** A migrated, seeded database file for this clock, made once per test process. */
-function templateFile(now: Date, seedDay: boolean): Promise<string> {
-  const key = templateKey(now, seedDay);
+function templateFile(now: Date, seed: Required<HarnessSeed>): Promise<string> {
+  const key = templateKey(now, seed);
   let made = templates.get(key);
   if (!made) {
     made = (async () => {
@@ -85,7 +94,7 @@ function templateFile(now: Date, seedDay: boolean): Promise<string> {
       const file = path.join(dir, 'template.sqlite');
       const db = createDb(file);
       try {
-        await migrateAndSeed(db, now, seedDay);
+        await migrateAndSeed(db, now, seed);
         // Everything into the main file, so one file copy is the whole database.
         await db.raw('pragma wal_checkpoint(TRUNCATE)');
       } finally {
@@ -98,14 +107,14 @@ function templateFile(now: Date, seedDay: boolean): Promise<string> {
   return made;
 }
 
-function templateKey(now: Date, seedDay: boolean): string {
-  return `${now.toISOString()}|${seedDay}`;
+function templateKey(now: Date, seed: Required<HarnessSeed>): string {
+  return seed.bare ? `${now.toISOString()}|bare` : `${now.toISOString()}|${seed.seedDay}`;
 }
 
-async function migrateAndSeed(db: Knex, now: Date, seedDay: boolean): Promise<void> {
+async function migrateAndSeed(db: Knex, now: Date, seed: Required<HarnessSeed>): Promise<void> {
   await migrateToLatest(db);
   await seedReferenceData(db);
-  await seedDemo(db, now, { day: seedDay });
+  if (!seed.bare) await seedDemo(db, now, { day: seed.seedDay });
 }
 
 /** What the agent's jar sends with a sign-in call: supertest's host, the auth path, plain HTTP. */

@@ -1,14 +1,7 @@
-import fs from 'node:fs';
-import os from 'node:os';
-import path from 'node:path';
 import request from 'supertest';
 import type { PlannedDay } from '../../shared/api/plan';
 import { SHORT_CONTACT_CAUTION, type ProtocolBody, type ProtocolBodyInput } from '../../shared/api/protocols';
 import { computeDayPlan } from '../../shared/turnover';
-import { closeApp, createApp } from '../../server/app';
-import { fixedClock } from '../../server/clock';
-import { createDb, migrateToLatest } from '../../server/db';
-import { seedReferenceData } from '../../server/seeding';
 import { createRoom } from '../../server/services/rooms';
 import { toEngineProtocol } from '../../server/services/site-setup';
 import { DayEvents } from '../../server/services/day-events';
@@ -257,21 +250,16 @@ describe('Setup: products and versioned protocols', () => {
 });
 
 describe('production boot: no demo rules anywhere', () => {
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'turnwise-production-'));
-  const db = createDb(path.join(dir, 'production.sqlite'));
-  const clock = fixedClock('2027-03-10T14:00:00Z');
-  let app: ReturnType<typeof createApp>;
+  // what server/main.ts leaves when NODE_ENV=production: migrated, the reference data, no demo seed
+  let h: Harness;
+  let db: Harness['db'];
+  let app: Harness['app'];
+  let clock: Harness['clock'];
   beforeAll(async () => {
-    // what server/main.ts does when NODE_ENV=production: migrate and the reference data, no demo seed
-    await migrateToLatest(db);
-    await seedReferenceData(db);
-    app = createApp({ db, sessionSecret: 'test-secret', clock, demo: false, production: true, trustProxy: ['loopback'], logError: () => {} });
+    h = await startHarness({ bare: true, now: '2027-03-10T14:00:00Z', demo: false, production: true, trustProxy: ['loopback'] });
+    ({ db, app, clock } = h);
   }, 30_000);
-  afterAll(async () => {
-    await closeApp(app);
-    await db.destroy();
-    fs.rmSync(dir, { recursive: true, force: true });
-  }, 30_000);
+  afterAll(() => h.close(), 30_000);
 
   /** Production cookies are Secure: the calls come as from a TLS-terminating proxy, the cookies sent back by hand. */
   const https = (t: request.Test) => t.set('X-Forwarded-Proto', 'https');
