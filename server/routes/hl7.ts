@@ -1,14 +1,17 @@
 import { Router } from 'express';
 import type { Knex } from 'knex';
 import { hl7LogQuerySchema, type Hl7LogPage } from '../../shared/api/hl7';
+import { hl7MappingSchema } from '../../shared/api/hl7-mapping';
+import type { Clock } from '../clock';
 import { requireRole } from '../middleware/roles';
 import { listHl7Messages, readHl7Message } from '../services/hl7/hl7-log';
+import { readHl7Mapping, writeHl7Mapping } from '../services/hl7/hl7-mapping-setup';
 import type { MllpListener } from '../services/hl7/mllp-listener';
 import { parseInput } from '../validate';
 import { idParam } from './params';
 
-/** The HL7 booking feed's interface log (admin): messages received, their ACKs and what they changed. */
-export function hl7Routes(deps: { db: Knex; hl7?: MllpListener | null }): Router {
+/** The HL7 booking feed (admin): the interface log (messages received, their ACKs and what they changed) and the site's mapping. */
+export function hl7Routes(deps: { db: Knex; clock: Clock; hl7?: MllpListener | null }): Router {
   const router = Router();
   router.use(requireRole('admin'));
   router.get('/messages', async (req, res) => {
@@ -19,6 +22,13 @@ export function hl7Routes(deps: { db: Knex; hl7?: MllpListener | null }): Router
   });
   router.get('/messages/:id', async (req, res) => {
     res.json(await readHl7Message(deps.db, idParam(req.params['id'], 'a message')));
+  });
+  router.get('/mapping', async (_req, res) => {
+    res.json({ mapping: await readHl7Mapping(deps.db) });
+  });
+  router.put('/mapping', async (req, res) => {
+    const mapping = parseInput(hl7MappingSchema, req.body, 'booking-feed mapping');
+    res.json({ mapping: await writeHl7Mapping(deps.db, mapping, req.user!, deps.clock.now()) });
   });
   return router;
 }

@@ -7,6 +7,7 @@ import { finishExam } from '../../server/services/turnovers';
 import { createRoom } from '../../server/services/rooms';
 import { createUser } from '../../server/services/users';
 import { roomInputSchema } from '../../shared/api/rooms';
+import { DEFAULT_HL7_MAPPING } from '../../shared/api/hl7-mapping';
 import { DEMO_PASSWORD } from '../../seeds/support/demo-accounts';
 import { queueNotices } from '../../server/services/notices/queue';
 import { unsubscribeToken } from '../../server/services/notices/unsubscribe';
@@ -253,9 +254,11 @@ export const ROUTE_TABLE: RouteCase[] = [
   { method: 'put', path: '/api/profile/notices', allowed: 'signed-in', send: (c) => c.put('/api/profile/notices', { email: 'matrix@example.test', kinds: { 'import-digest': true, 'slot-moves': false } }) },
   { method: 'get', path: '/api/outbox', allowed: ['admin'], send: (c) => c.get('/api/outbox?limit=5') },
   { method: 'get', path: '/api/outbox/:id', allowed: ['admin'], prepare: freshNotice, send: (c, id) => c.get(`/api/outbox/${id as number}`) },
-  // The HL7 booking feed's interface log (admin)
+  // The HL7 booking feed's interface log and mapping (admin)
   { method: 'get', path: '/api/hl7/messages', allowed: ['admin'], send: (c) => c.get('/api/hl7/messages?limit=5') },
   { method: 'get', path: '/api/hl7/messages/:id', allowed: ['admin'], prepare: freshHl7Message, send: (c, id) => c.get(`/api/hl7/messages/${id as number}`) },
+  { method: 'get', path: '/api/hl7/mapping', allowed: ['admin'], send: (c) => c.get('/api/hl7/mapping') },
+  { method: 'put', path: '/api/hl7/mapping', allowed: ['admin'], send: (c) => c.put('/api/hl7/mapping', DEFAULT_HL7_MAPPING) },
   {
     method: 'get',
     path: '/api/notices/unsubscribe',

@@ -8,6 +8,7 @@ import { buildAck } from './ack';
 import { hl7Instant } from './hl7-time';
 import { pruneHl7Log, withoutPatient, type LogRow } from './hl7-log';
 import { applySiu, FEED_USER, SiuRefusal, type SiuApplied } from './siu-apply';
+import { readHl7Mapping, siteSiuMapping } from './hl7-mapping-setup';
 import type { SiuMapping } from './siu-mapping';
 import { hl7Text, readSiu, type Hl7ErrorCode, type Hl7Header } from './siu-read';
 
@@ -15,6 +16,7 @@ export interface Hl7InboundDeps {
   db: Knex;
   clock: Clock;
   events: DayEvents;
+  /** The mapping's fixed part; the site's part (Setup) is read over it per message. */
   mapping: SiuMapping;
   logError(err: unknown): void;
 }
@@ -34,7 +36,15 @@ interface Outcome {
  */
 export async function receiveHl7(deps: Hl7InboundDeps, raw: string): Promise<string> {
   const now = deps.clock.now();
-  const read = readSiu(raw, deps.mapping);
+  let mapping: SiuMapping;
+  try {
+    // read per message: a change in Setup holds from the next message on
+    mapping = { ...deps.mapping, ...siteSiuMapping(await readHl7Mapping(deps.db)) };
+  } catch (err) {
+    deps.logError(err);
+    return buildAck({ code: 'AE', text: 'Turnwise could not read its booking-feed mapping just now; send it again.', error: 207, header: readSiu(raw, deps.mapping).header, controlId: `TW-${now.getTime()}`, now });
+  }
+  const read = readSiu(raw, mapping);
   const header = read.header;
   const stored = withoutPatient(hl7Text(raw));
   try {

@@ -1,19 +1,20 @@
+import type { Hl7MappedField, Hl7ValueMap } from '../../../shared/api/hl7-mapping';
+
 /**
- * How SIU scheduling messages map onto exams: the defaults, in one place. A site's own mapping
- * (Setup, later) will be read as a partial of {@link SiuMapping} over these; today `createApp`
- * takes one as `hl7.mapping`. Paths are `SEGMENT.field.component` as node-hl7-client reads them;
+ * How SIU scheduling messages map onto exams: the defaults, in one place. The site's own part
+ * (sources, value translations, procedure table) is set in Setup and read per message
+ * (`hl7-mapping-setup.ts`); `createApp` may override the rest as `hl7.mapping`. Paths are `SEGMENT.field.component` as node-hl7-client reads them;
  * a list is tried in order and the first non-empty value wins.
  *
  * Field positions: HL7 v2.5.1 chapter 10 (SCH, AIS, AIL) and chapter 2 (MSH), from memory.
  */
 export type SiuAction = 'book' | 'reschedule' | 'modify' | 'cancel' | 'delete' | 'no-show';
 
-/** A value read from the first OBX whose OBX-3.1 is `code` (its OBX-5), or an NTE's NTE-3 starting with `prefix`. */
+/** A value read from the first OBX whose OBX-3.1 is `obx` (its OBX-5), or the first NTE whose NTE-3 starts with `ntePrefix`; case aside. */
 export type ObservationSource = { obx: string } | { ntePrefix: string } | null;
 
+/** Precaution and mobility are the patient's, never the procedure's, so the table holds neither. */
 export interface ProcedureDefaults {
-  precaution?: string;
-  mobility?: string;
   coil?: string;
   contrast?: boolean;
 }
@@ -38,8 +39,10 @@ export interface SiuMapping {
   /** Statuses that take an exam off the plan whatever the event. */
   removingStatuses: string[];
   /** Where precaution, mobility, coil and contrast come from; null: not given (the import's defaults). */
-  observations: { precaution: ObservationSource; mobility: ObservationSource; coil: ObservationSource; contrast: ObservationSource };
-  /** By procedure code (AIS-3.1): what a procedure always has, e.g. { 'MRKNEE': { coil: 'knee' } }. */
+  observations: Record<Hl7MappedField, ObservationSource>;
+  /** Sent values the site translates (case aside), e.g. OBX-5 `ISO-A` → airborne; other values must already be ours. */
+  values: Record<Hl7MappedField, Hl7ValueMap[]>;
+  /** By procedure code (AIS-3.1) in lower case: what a procedure always has, e.g. { 'mrknee': { coil: 'knee' } }. */
   procedures: Record<string, ProcedureDefaults>;
 }
 
@@ -55,10 +58,16 @@ export const DEFAULT_SIU_MAPPING: SiuMapping = {
   removingStatuses: ['Cancelled', 'Deleted', 'Noshow'],
   // Nothing is read for these unless a site says where: precaution none, ambulatory, no coil, no contrast.
   observations: { precaution: null, mobility: null, coil: null, contrast: null },
+  values: { precaution: [], mobility: [], coil: [], contrast: [] },
   procedures: {},
 };
 
 /** A site's mapping over the defaults. */
 export function siuMapping(site: Partial<SiuMapping> = {}): SiuMapping {
-  return { ...DEFAULT_SIU_MAPPING, ...site, observations: { ...DEFAULT_SIU_MAPPING.observations, ...site.observations } };
+  return {
+    ...DEFAULT_SIU_MAPPING,
+    ...site,
+    observations: { ...DEFAULT_SIU_MAPPING.observations, ...site.observations },
+    values: { ...DEFAULT_SIU_MAPPING.values, ...site.values },
+  };
 }

@@ -1,4 +1,6 @@
 import { Message } from 'node-hl7-client';
+import { EXAM_LIST_LIMITS } from '../../../shared/exam-list/columns';
+import { HL7_FIELD_VALUES, HL7_MAPPED_FIELDS, ourValue, type Hl7MappedField } from '../../../shared/api/hl7-mapping';
 import type { SiuAction, SiuMapping, ObservationSource } from './siu-mapping';
 
 /** MSH fields the acknowledgement and the log need (HL7 v2.5.1 chapter 2, from memory). */
@@ -78,9 +80,17 @@ export function readSiu(raw: string, mapping: SiuMapping): SiuRead {
   if (!accession) return refuse('AE', 101, 'No appointment id: SCH-2 (filler) and SCH-1 (placer) are both empty.');
 
   const code = get(mapping.procedureCode);
-  const table = (code && mapping.procedures[code]) || {};
-  const given = (source: ObservationSource) => observation(message, source);
-  const contrast = given(mapping.observations.contrast) ?? (table.contrast === undefined ? undefined : table.contrast ? 'yes' : 'no');
+  const table = (code && mapping.procedures[code.toLowerCase()]) || {};
+  const given: Partial<Record<Hl7MappedField, string>> = {};
+  for (const field of HL7_MAPPED_FIELDS) {
+    const source = mapping.observations[field];
+    const sent = observation(message, source);
+    if (!source || sent === undefined || sent === '') continue;
+    const ours = ourValue(field, sent, mapping.values[field]);
+    // refused, never applied without it: a precaution dropped unseen would plan an isolation case as none
+    if (ours === null) return refuse('AE', 103, unknownValue(field, source, sent));
+    given[field] = ours;
+  }
   const booking: SiuBooking = {
     action,
     accession,
@@ -89,10 +99,10 @@ export function readSiu(raw: string, mapping: SiuMapping): SiuRead {
     startTs: first(get, mapping.start),
     durationMinutes: duration(get, mapping.duration),
     location: first(get, mapping.room),
-    precaution: given(mapping.observations.precaution) ?? table.precaution,
-    mobility: given(mapping.observations.mobility) ?? table.mobility,
-    coil: given(mapping.observations.coil) ?? table.coil,
-    contrast: contrast === undefined ? undefined : yesNo(contrast),
+    precaution: given.precaution,
+    mobility: given.mobility,
+    coil: given.coil ?? table.coil,
+    contrast: given.contrast ?? (table.contrast === undefined ? undefined : table.contrast ? 'yes' : 'no'),
   };
   return { ok: true, header, booking };
 }
@@ -145,13 +155,15 @@ function observation(message: Message, source: ObservationSource): string | unde
   if (!source) return undefined;
   let found: string | undefined;
   if ('obx' in source) {
+    const code = source.obx.toLowerCase();
     eachSegment(message, 'OBX', (segment) => {
-      if (found === undefined && read(segment, '3.1') === source.obx) found = read(segment, '5');
+      if (found === undefined && read(segment, '3.1').toLowerCase() === code) found = read(segment, '5');
     });
   } else {
+    const prefix = source.ntePrefix.toLowerCase();
     eachSegment(message, 'NTE', (segment) => {
       const text = read(segment, '3');
-      if (found === undefined && text.startsWith(source.ntePrefix)) found = text.slice(source.ntePrefix.length).trim();
+      if (found === undefined && text.toLowerCase().startsWith(prefix)) found = text.slice(prefix.length).trim();
     });
   }
   return found;
@@ -166,9 +178,10 @@ function eachSegment(message: Message, name: string, visit: (segment: Hl7Node) =
   }
 }
 
-function yesNo(value: string): string {
-  const v = value.toLowerCase();
-  if (v === 'y' || v === 'yes' || v === 'true') return 'yes';
-  if (v === 'n' || v === 'no' || v === 'false') return 'no';
-  return value;
+/** MSA-3 for a value neither ours nor translated: where it came from, what it was, where to map it. */
+function unknownValue(field: Hl7MappedField, source: NonNullable<ObservationSource>, sent: string): string {
+  const where = 'obx' in source ? `OBX ${source.obx} (OBX-5)` : `NTE "${source.ntePrefix}" (NTE-3)`;
+  const ours = HL7_FIELD_VALUES[field];
+  const wanted = ours ? `one of ${ours.join(', ')}` : `a coil name of at most ${EXAM_LIST_LIMITS.coilMaxChars} characters`;
+  return `${where} sent ${field} "${sent.slice(0, 40)}": not ${wanted}, and not translated in Setup → Site → Booking system feed. Nothing was applied.`;
 }
