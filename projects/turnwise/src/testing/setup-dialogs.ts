@@ -10,7 +10,7 @@ import { provideApiHttp } from '../app/core/http/api-http';
 import { provideIcons } from '../app/core/layout/icons';
 import { fakeAuth } from './fake-auth';
 
-/** A Setup component (a dialog with `data`, or a tab) as an admin sees it, with the API faked. */
+/** An admin's component (a Setup dialog with `data`, a Setup tab, an admin screen) as an admin sees it, with the API faked. */
 export function renderSetup<T>(component: Type<T>, data: unknown = null) {
   const close = jest.fn();
   TestBed.configureTestingModule({

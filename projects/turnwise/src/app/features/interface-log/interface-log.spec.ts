@@ -1,12 +1,8 @@
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { ComponentFixture, TestBed } from '@angular/core/testing';
-import { MatSnackBar } from '@angular/material/snack-bar';
-import { provideRouter } from '@angular/router';
+import { HttpTestingController } from '@angular/common/http/testing';
+import { TestBed } from '@angular/core/testing';
 
 import type { Hl7LogEntry, Hl7LogMessage, Hl7LogPage } from '@shared/api/hl7';
-import { provideApiHttp } from '../../core/http/api-http';
-import { provideIcons } from '../../core/layout/icons';
-import { fakeAuth } from '../../../testing/fake-auth';
+import { renderSetup, settle } from '../../../testing/setup-dialogs';
 import { InterfaceLog } from './interface-log';
 
 // Invented messages; MSA-1 codes AA / AE / AR are HL7 v2 table 0008 (from memory).
@@ -29,21 +25,10 @@ const REFUSED: Hl7LogEntry = { ...APPLIED, id: 11, timesReceived: 1, controlId: 
 const UNREADABLE: Hl7LogEntry = { ...REFUSED, id: 10, controlId: null, messageType: '', ackCode: 'AR', outcome: 'No MSH segment' };
 const FIRST: Hl7LogPage = { messages: [APPLIED, REFUSED], before: 11, listener: { host: '127.0.0.1', port: 2575 } };
 
-async function settle(fixture: ComponentFixture<unknown>): Promise<void> {
-  await new Promise((resolve) => setTimeout(resolve));
-  await fixture.whenStable();
-}
-
 async function render() {
-  const auth = fakeAuth({ username: 'admin', role: 'admin', displayName: 'Admin', mustChangePassword: false });
-  TestBed.configureTestingModule({
-    imports: [InterfaceLog],
-    providers: [provideRouter([]), provideApiHttp(), provideHttpClientTesting(), provideIcons(), auth.provider, { provide: MatSnackBar, useValue: { open: jest.fn() } }],
-  });
-  const fixture = TestBed.createComponent(InterfaceLog);
-  const backend = TestBed.inject(HttpTestingController);
-  await settle(fixture);
-  return { fixture, backend, page: fixture.nativeElement as HTMLElement };
+  const screen = renderSetup(InterfaceLog);
+  await settle(screen.fixture);
+  return screen;
 }
 
 const rowsOf = (page: HTMLElement) =>

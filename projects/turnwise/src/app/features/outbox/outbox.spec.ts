@@ -1,12 +1,5 @@
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { ComponentFixture, TestBed } from '@angular/core/testing';
-import { MatSnackBar } from '@angular/material/snack-bar';
-import { provideRouter } from '@angular/router';
-
 import type { OutboxMessage, OutboxPage } from '@shared/api/notices';
-import { provideApiHttp } from '../../core/http/api-http';
-import { provideIcons } from '../../core/layout/icons';
-import { fakeAuth } from '../../../testing/fake-auth';
+import { renderSetup, settle } from '../../../testing/setup-dialogs';
 import { Outbox } from './outbox';
 
 const SENT: OutboxMessage = {
@@ -26,21 +19,10 @@ const SENT: OutboxMessage = {
 const FAILED = { ...SENT, id: 8, subject: 'Refused', status: 'failed' as const, attempts: 5, lastError: '550 Mailbox unavailable', sentAt: null };
 const PAGE: OutboxPage = { delivery: 'demo-server', notices: [FAILED, SENT].map(({ text: _t, html: _h, ...n }) => n) };
 
-async function settle(fixture: ComponentFixture<unknown>): Promise<void> {
-  await new Promise((resolve) => setTimeout(resolve));
-  await fixture.whenStable();
-}
-
 async function render() {
-  const auth = fakeAuth({ username: 'admin', role: 'admin', displayName: 'Admin', mustChangePassword: false });
-  TestBed.configureTestingModule({
-    imports: [Outbox],
-    providers: [provideRouter([]), provideApiHttp(), provideHttpClientTesting(), provideIcons(), auth.provider, { provide: MatSnackBar, useValue: { open: jest.fn() } }],
-  });
-  const fixture = TestBed.createComponent(Outbox);
-  const backend = TestBed.inject(HttpTestingController);
-  await settle(fixture);
-  return { fixture, backend, page: fixture.nativeElement as HTMLElement };
+  const screen = renderSetup(Outbox);
+  await settle(screen.fixture);
+  return screen;
 }
 
 describe('Outbox', () => {

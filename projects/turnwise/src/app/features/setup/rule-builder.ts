@@ -143,7 +143,7 @@ const FREQ_LABELS: Record<BuilderFreq, string> = { DAILY: 'Daily', WEEKLY: 'Week
       } @else {
         <p class="lead">Next {{ next().length === 1 ? 'occurrence' : next().length + ' occurrences' }} ({{ zone() }}):</p>
         <ol class="next">
-          @for (when of next(); track when) {
+          @for (when of next(); track $index) {
             <li>{{ when }}</li>
           }
         </ol>
