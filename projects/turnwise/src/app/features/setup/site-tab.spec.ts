@@ -4,6 +4,7 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 
 import type { SiteSettings } from '@shared/api/settings';
 import { provideApiHttp } from '../../core/http/api-http';
+import { provideIcons } from '../../core/layout/icons';
 import { errorUnder, refusal, settle, submit, type } from '../../../testing/setup-dialogs';
 import { SiteTab } from './site-tab';
 
@@ -12,7 +13,7 @@ const SETTINGS: SiteSettings = { siteName: 'North Imaging', timezone: 'America/C
 async function render() {
   TestBed.configureTestingModule({
     imports: [SiteTab],
-    providers: [provideApiHttp(), provideHttpClientTesting(), { provide: MatSnackBar, useValue: { open: jest.fn() } }],
+    providers: [provideApiHttp(), provideHttpClientTesting(), provideIcons(), { provide: MatSnackBar, useValue: { open: jest.fn() } }],
   });
   const fixture = TestBed.createComponent(SiteTab);
   const backend = TestBed.inject(HttpTestingController);

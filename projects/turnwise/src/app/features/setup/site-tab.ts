@@ -8,12 +8,13 @@ import { SNUG_MARGIN_MINUTES } from '@shared/api/limits';
 import { DEFAULT_SETTINGS, settingsInputSchema, type SiteSettings } from '@shared/api/settings';
 import { action } from '../../core/state/action';
 import { fieldMessage, schemaValidator, submitForm } from './form-problems';
+import { Hl7MappingForm } from './hl7-mapping-form';
 import { SetupApi } from './setup-api';
 
-/** Setup → Site: the department's name, its IANA time zone, the snug margin, the notices sender and the day-before notice's time. */
+/** Setup → Site: the department's name, its IANA time zone, the snug margin, the notices sender, the day-before notice's time and the booking feed's mapping. */
 @Component({
   selector: 'tw-site-tab',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule],
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, Hl7MappingForm],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <form [formGroup]="form" (ngSubmit)="save()" novalidate aria-label="Site">
@@ -59,6 +60,7 @@ import { SetupApi } from './setup-api';
       }
       <div><button mat-flat-button type="submit" [disabled]="saving.pending() || loading()">Save site</button></div>
     </form>
+    <tw-hl7-mapping-form />
   `,
   styles: `
     :host { display: block; padding-top: 16px; }
