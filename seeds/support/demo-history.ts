@@ -11,7 +11,9 @@ import { markShiftTaskDone, shiftTasksOfDay } from '../../server/services/shift-
 /**
  * Plays today's invented list forward to the moment of seeding, as the demo technologist would
  * have worked it: each exam that has ended is recorded finished at its planned end, its turnover's
- * steps ticked at their planned times and closed when ready. So the board, the checklist and the
+ * steps ticked at their planned times plus an invented delay of 0–4 minutes (the same for every
+ * step of one turnover, so no surface is ticked before it is dry) and closed when ready, so Reports
+ * show actual turnovers apart from planned ones. So the board, the checklist and the
  * cleaning log start from a believable state instead of every room "in exam" and hours late.
  * The turnover under way at `now` is left open with the steps done by then; the rest is left to the user.
  * Shift tasks whose time has passed are ticked at their due time.
@@ -31,11 +33,12 @@ export async function seedDemoHistory(knex: Knex, now: Date): Promise<void> {
     const end = exam.start_ms + exam.duration_minutes * 60_000;
     if (stoppedRooms.has(exam.room_id) || end > now.getTime()) continue;
     const { turnoverId } = await finishExam(knex, exam.id, tech, new Date(end));
+    const lateMs = ((exam.id * 7) % 5) * 60_000; // invented, deterministic: some turnovers run late
     const checklist = await loadChecklist(knex, exam.room_id, day, new Date(end), turnoverId);
     const holdEnd = checklist.airHoldUntil ? Date.parse(checklist.airHoldUntil) : 0;
-    const readyMs = Math.max(holdEnd, ...checklist.steps.map((s) => Date.parse(s.planned.dryAt)));
+    const readyMs = Math.max(holdEnd, ...checklist.steps.map((s) => Date.parse(s.planned.dryAt) + lateMs));
     for (const step of [...checklist.steps].sort((a, b) => Date.parse(a.planned.end) - Date.parse(b.planned.end))) {
-      const at = Date.parse(step.planned.end);
+      const at = Date.parse(step.planned.end) + lateMs;
       if (at > now.getTime()) break; // the turnover in progress right now: its later steps are left to the user
       await tickStep(knex, turnoverId, step.key, {}, tech, new Date(at));
     }

@@ -44,6 +44,14 @@ describe('demo history', () => {
       const exams = await h.db('exams').where({ day: '2027-06-02' });
       const future = exams.filter((e) => Number(e.start_ms) > h.clock.now().getTime()).map((e) => e.id);
       expect(turnovers.some((t) => future.includes(t.from_exam_id))).toBe(false);
+      // closed turnovers take their planned time or a little longer: never all exactly as planned
+      const required = new Map((await loadDayPlan(h.db, '2027-06-02')).rooms.flatMap((r) => r.gaps).map((g) => [g.fromExamId, g.requiredMinutes]));
+      const late = turnovers
+        .filter((t) => t.completed_at && required.has(t.from_exam_id)) // the day's last exam has no gap after it
+        .map((t) => (Number(t.completed_ms) - Number(t.exam_ended_ms)) / 60_000 - required.get(t.from_exam_id)!);
+      expect(late.length).toBeGreaterThan(4);
+      expect(Math.min(...late)).toBeGreaterThanOrEqual(0);
+      expect(Math.max(...late)).toBeGreaterThan(0);
       const entries = await h.db('cleaning_log').count({ n: '*' });
       expect(Number(entries[0]!['n'])).toBeGreaterThan(turnovers.length * 5);
       // idempotent
