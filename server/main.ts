@@ -34,7 +34,11 @@ async function main(): Promise<void> {
     console.warn('TRUST_PROXY is unset: X-Forwarded-For is ignored. Behind a TLS-terminating proxy, set it to the proxy address (README, Security).');
   }
   if (config.hl7) {
-    void appHl7Address(app).then((at) => at && console.log(`HL7 booking feed (MLLP) listening on ${at.address}:${at.port}`));
+    void appHl7Address(app).then((at) => {
+      if (at) console.log(`HL7 booking feed (MLLP) listening on ${at.address}:${at.port}`);
+      // on PostgreSQL one process listens (README, Running more than one server)
+      else if (config.databaseUrl) console.log('HL7 booking feed: another server process listens; this one takes over within seconds should it stop.');
+    });
   }
   const demoAccounts = config.demo ? await listDemoAccounts(db) : null;
   const server = app.listen(config.port, () => {
