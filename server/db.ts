@@ -115,6 +115,8 @@ export function describeDatabase(target: string): string {
 
 /** The advisory-lock key of the notice sender's pass (any fixed 64-bit number; this is "Tw" 1). */
 export const NOTICE_PASS_LOCK = 0x5477_0001;
+/** The advisory-lock key the HL7 listener's leader holds (`services/leadership.ts`). */
+export const HL7_LISTENER_LOCK = 0x5477_0002;
 
 /**
  * Runs `work` in one server process at a time: on PostgreSQL only the process that takes the

@@ -4,9 +4,13 @@ import type { Express } from 'express';
 import type { Knex } from 'knex';
 import request from 'supertest';
 import { closeApp, createApp } from '../../server/app';
-import { createDb, NOTICE_PASS_LOCK, onceAcrossProcesses } from '../../server/db';
+import { createDb, HL7_LISTENER_LOCK, NOTICE_PASS_LOCK, onceAcrossProcesses } from '../../server/db';
 import { PostgresDayEvents } from '../../server/services/day-events-postgres';
+import { startHl7Feed } from '../../server/services/hl7/feed';
+import type { MllpListener } from '../../server/services/hl7/mllp-listener';
 import { EXAM_LIST_HEADER, toCsv } from '../fixtures/exam-lists';
+import { siu } from '../fixtures/siu-messages';
+import { MllpClient } from '../support/mllp-client';
 import { signedIn, startHarness, type Client, type Harness } from './harness';
 import { testDatabaseUrl } from './pg-databases';
 
@@ -112,6 +116,59 @@ const row = (acc: string, start: string) => [acc, 'MR 1', start, '30', 'MR exam'
     // the lock ends with A's pass: B's next turn runs
     expect(await onceAcrossProcesses(dbB, NOTICE_PASS_LOCK, async () => void (ranOnB = true))).toBe(true);
     expect(ranOnB).toBe(true);
+  });
+
+  describe('the HL7 listener', () => {
+    const feeds: MllpListener[] = [];
+    afterAll(() => Promise.all(feeds.map((feed) => feed.close())), 30_000);
+    /** A feed as each server starts it, trying to take over every 50 ms (5 s in a server). */
+    const feedOn = (db: Knex, events: PostgresDayEvents) => {
+      const feed = startHl7Feed({ db, clock: h.clock, events, logError: () => {} }, { port: 0, host: '127.0.0.1', leaderRetryMs: 50 });
+      feeds.push(feed);
+      return feed;
+    };
+    /** Waits (within the test's timeout) until one of the feeds listens; answers which. */
+    const leaderOf = async (candidates: MllpListener[]): Promise<MllpListener> => {
+      for (;;) {
+        for (const feed of candidates) if (await feed.address()) return feed;
+        await new Promise((resolve) => setTimeout(resolve, 20));
+      }
+    };
+    const acceptsMessages = async (feed: MllpListener, control: string) => {
+      const client = await MllpClient.connect((await feed.address())!.port);
+      try {
+        return await client.send(siu('S12', { control, accession: `HL7-${control}`, start: '20270311090000-0600', minutes: 30, room: 'MR 1' }));
+      } finally {
+        await client.close();
+      }
+    };
+
+    it('listens in one server only; when the leader stops or loses its database session, the other takes over', async () => {
+      const onA = feedOn(h.db, eventsA);
+      expect(await onA.address()).not.toBeNull();
+      const onB = feedOn(dbB, eventsB);
+      expect(await onB.address()).toBeNull();
+      expect(await acceptsMessages(onA, 'A-1')).toContain('MSA|AA|');
+
+      // the leader's session ends as when its process dies: it stops listening, and one of them leads again
+      const first = (await onA.address())!.port;
+      const ended = await h.db.raw(
+        "select pg_terminate_backend(pid) from pg_locks where locktype = 'advisory' and objid = ? and granted and database = (select oid from pg_database where datname = current_database())",
+        [HL7_LISTENER_LOCK],
+      );
+      expect(ended.rows).toHaveLength(1);
+      while ((await onA.address())?.port === first) await new Promise((resolve) => setTimeout(resolve, 20));
+      const next = await leaderOf([onA, onB]);
+      const other = next === onA ? onB : onA;
+      expect(await other.address()).toBeNull();
+      expect(await acceptsMessages(next, 'N-1')).toContain('MSA|AA|');
+
+      // the leader closes (a server stopping): the other takes over
+      await next.close();
+      expect(await next.address()).toBeNull();
+      expect(await leaderOf([other])).toBe(other);
+      expect(await acceptsMessages(other, 'O-1')).toContain('MSA|AA|');
+    });
   });
 
   it('lets exactly one of two moves of one slot from the same version win, one from A and one from B', async () => {

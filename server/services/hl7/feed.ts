@@ -1,6 +1,8 @@
 import type { Knex } from 'knex';
 import type { Clock } from '../../clock';
+import { HL7_LISTENER_LOCK } from '../../db';
 import type { DayEvents } from '../day-events';
+import { leadAcrossProcesses } from '../leadership';
 import { receiveHl7 } from './hl7-inbound';
 import { startMllpListener, type MllpListener } from './mllp-listener';
 import { siuMapping, type SiuMapping } from './siu-mapping';
@@ -13,10 +15,40 @@ export interface Hl7FeedOptions {
   mapping?: Partial<SiuMapping>;
   /** A connection silent this long is closed; 5 minutes by default. */
   idleMs?: number;
+  /** On PostgreSQL, how often a process that does not listen tries to take over; 5 s by default. */
+  leaderRetryMs?: number;
 }
 
-/** Starts the MLLP listener of the HL7 booking feed; `closeApp` closes it. */
+/**
+ * Starts the MLLP listener of the HL7 booking feed; `closeApp` closes it. With several server
+ * processes on PostgreSQL one of them listens (the leader, `leadAcrossProcesses`) and another
+ * takes over when it stops; a listener that cannot bind gives the lead up until the next try.
+ * `address()` answers where this process listens: null while another leads.
+ */
 export function startHl7Feed(deps: { db: Knex; clock: Clock; events: DayEvents; logError(err: unknown): void }, options: Hl7FeedOptions): MllpListener {
   const inbound = { ...deps, mapping: siuMapping(options.mapping) };
-  return startMllpListener({ port: options.port, host: options.host, idleMs: options.idleMs, logError: deps.logError, handle: (message) => receiveHl7(inbound, message) });
+  let listener: MllpListener | null = null;
+  const leadership = leadAcrossProcesses(
+    deps.db,
+    HL7_LISTENER_LOCK,
+    {
+      async start() {
+        const started = startMllpListener({ port: options.port, host: options.host, idleMs: options.idleMs, logError: deps.logError, handle: (message) => receiveHl7(inbound, message) });
+        if (!(await started.address())) return null;
+        listener = started;
+        return async () => {
+          listener = null;
+          await started.close();
+        };
+      },
+    },
+    { retryMs: options.leaderRetryMs, logError: deps.logError },
+  );
+  return {
+    async address() {
+      await leadership.settled();
+      return listener ? listener.address() : null;
+    },
+    close: () => leadership.close(),
+  };
 }
