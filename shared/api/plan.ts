@@ -6,7 +6,7 @@ import type { DayPlanInput } from '../turnover/day-plan-input';
 import type { DayPlan } from '../turnover/day-plan-types';
 
 export type { Mobility, Precaution, Verdict } from '../turnover/model';
-export type { DayPlan, PlanExam, PlanGap, PlanProtocol, PlanRoom, PlanStep, PlanSummary } from '../turnover/day-plan-types';
+export type { DayPlan, GapPeopleReason, PlanExam, PlanGap, PlanPeople, PlanPerson, PlanPersonWork, PlanProtocol, PlanRoom, PlanStep, PlanSummary } from '../turnover/day-plan-types';
 
 /**
  * A day's plan as the API answers it (`GET /api/days/:date/plan` and every change): the plan and

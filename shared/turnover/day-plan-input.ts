@@ -52,6 +52,34 @@ export interface DayPlanInput {
   exams: readonly DayPlanExam[];
   /** People on the turnover before the exam with this id (a helper added), instead of the room's staff. */
   staffOverrides?: Readonly<Record<number, number>>;
+  /**
+   * The day's roster: who is on shift and which rooms each covers. Absent: every turnover has its
+   * room's own staff, as ever. Present: the turnovers of the rooms it covers are staffed from its
+   * people (shared/roster), each wanting its room's staff (or override) and waiting or running
+   * with fewer when they are busy elsewhere.
+   */
+  roster?: DayPlanRoster;
+}
+
+/** A person on shift as the engine needs them (`RosterPerson` of shared/api/roster.ts has this shape). */
+export interface DayPlanPerson {
+  id: string;
+  name: string | null;
+  label: string;
+  role: 'technologist' | 'aide';
+  /** Local `HH:MM` on the plan's date; the end after the start. */
+  start: string;
+  end: string;
+  breaks: readonly { start: string; end: string }[];
+  roomIds: readonly number[];
+}
+
+export interface DayPlanRoster {
+  /** Saved for the date, or the weekday's default. */
+  source: 'day' | 'weekly';
+  people: readonly DayPlanPerson[];
+  /** Minutes to walk from one room to another. */
+  walkingMinutes: number;
 }
 
 export const DEFAULT_OPENS_AT = '07:00';

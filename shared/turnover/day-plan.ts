@@ -8,6 +8,7 @@ import { NO_PROTOCOL_MESSAGE } from './no-protocol';
 import { protocolFor } from './protocols';
 import { DEFAULT_SNUG_MARGIN_MINUTES, gapVerdict } from './verdict';
 import { instantOf, wallTimeToMillis, zonedFormatter, type ZonedFormatter } from './zoned-time';
+import { rosterContext, staffRosterGaps, type RosterContext } from './day-plan-roster';
 
 const MINUTE = 60_000;
 
@@ -25,8 +26,8 @@ const MINUTE = 60_000;
  * plan.summary; // { fits: 9, snug: 2, short: 1, overlap: 0, minutesShort: 4 }
  */
 export function computeDayPlan(input: DayPlanInput): DayPlan {
-  const { summary, rooms } = planDay(input, true);
-  return { date: input.date, timezone: input.timezone, rooms, summary };
+  const { summary, rooms, people } = planDay(input, true);
+  return people ? { date: input.date, timezone: input.timezone, rooms, summary, people } : { date: input.date, timezone: input.timezone, rooms, summary };
 }
 
 /**
@@ -52,9 +53,11 @@ interface RoomContext {
   wallTime: (hhmm: string) => number;
   /** False when only the summary is wanted: gaps and exams are judged but not written out. */
   detailed: boolean;
+  /** The roster's rooms and the gaps waiting for its people; null without a roster. */
+  roster: RosterContext | null;
 }
 
-function planDay(input: DayPlanInput, detailed: boolean): { summary: PlanSummary; rooms: PlanRoom[] } {
+function planDay(input: DayPlanInput, detailed: boolean): { summary: PlanSummary; rooms: PlanRoom[]; people?: DayPlan['people'] } {
   const { date, timezone } = input;
   if (!/^\d{4}-\d{2}-\d{2}$/.test(date) || !DateTime.fromISO(date).isValid) {
     throw new RangeError(`date must be YYYY-MM-DD, got "${date}"`);
@@ -85,13 +88,16 @@ function planDay(input: DayPlanInput, detailed: boolean): { summary: PlanSummary
       return ms;
     },
     detailed,
+    roster: rosterContext(input),
   };
   const rooms: PlanRoom[] = [];
   for (const room of input.rooms) {
     const planned = planRoom(room, byRoom.get(room.id)!, ctx);
     if (planned) rooms.push(planned);
   }
-  return { summary, rooms };
+  // The roster's gaps are judged once every room has handed them over: they compete for people.
+  const people = ctx.roster ? staffRosterGaps(ctx.roster, ctx) : undefined;
+  return people ? { summary, rooms, people } : { summary, rooms };
 }
 
 function planRoom(room: DayPlanRoom, slots: DayPlanSlot[], ctx: RoomContext): PlanRoom | null {
@@ -110,8 +116,16 @@ function planRoom(room: DayPlanRoom, slots: DayPlanSlot[], ctx: RoomContext): Pl
   const gaps: PlanGap[] = [];
   let previous: DayPlanSlot | null = null;
   // Without a protocol there is nothing to compute from: no gaps, no verdicts, not counted.
+  const rostered = ctx.roster?.covered.has(room.id) === true;
   for (const slot of protocol && cache ? slots : []) {
     const staff = ctx.staffOverrides?.[slot.exam.id] ?? room.staff;
+    if (rostered) {
+      const fromMs = previous ? previous.endMs : openMs;
+      ctx.roster!.pending.push({ room, previous, slot, fromMs, wanted: staff, cache: cache!, protocol: protocol!, gaps, index: gaps.length });
+      if (ctx.detailed) gaps.push(null as unknown as PlanGap); // filled by staffRosterGaps
+      previous = slot;
+      continue;
+    }
     const turnover = turnoverFor(cache!, { input, room, protocol: protocol!, leaving: previous?.exam ?? null, arriving: slot.exam, staff });
     const fromMs = previous ? previous.endMs : openMs;
     const availableMinutes = Math.floor((slot.startMs - fromMs) / MINUTE);

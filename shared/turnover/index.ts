@@ -10,4 +10,4 @@ export * from './plan-turnover';
 export * from './day-plan-input';
 export * from './day-plan';
 export * from './zoned-time';
-export type { DayPlan, PlanExam, PlanGap, PlanProtocol, PlanRoom, PlanStep, PlanSummary } from './day-plan-types';
+export type { DayPlan, GapPeopleReason, PlanExam, PlanGap, PlanPeople, PlanPerson, PlanPersonWork, PlanProtocol, PlanRoom, PlanStep, PlanSummary } from './day-plan-types';
