@@ -64,6 +64,12 @@ describe('Hl7MappingForm (Setup → Site → Booking system feed)', () => {
     expect(errorUnder(page, 'input[name="precaution.code"]')).toBe('name the OBX-3 observation code');
     expect(errorUnder(page, 'input[name="procedures.0.coil"]')).toBe('give a coil or contrast, or remove the row');
     expect(page.querySelector('[role="alert"]')?.textContent).toContain('Check the marked fields.');
+    // a problem across fields may be fixed in another one: saving again asks the server again
+    save(page);
+    await settle(fixture);
+    backend.expectOne({ method: 'PUT', url: URL }).flush({ mapping: STORED });
+    await settle(fixture);
+    expect(errorUnder(page, 'input[name="procedures.0.coil"]')).toBe('');
   });
 
   it('refuses an empty procedure code before sending', async () => {

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
-import { FormArray, FormControl, FormGroup, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { type AbstractControl, FormArray, FormControl, FormGroup, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -14,7 +14,10 @@ import { Hl7MappingApi } from './hl7-mapping-api';
 
 type TranslationGroup = FormGroup<{ sent: FormControl<string>; value: FormControl<string> }>;
 type FieldGroup = FormGroup<{ source: FormControl<Hl7Source>; code: FormControl<string>; values: FormArray<TranslationGroup> }>;
-type ProcedureGroup = FormGroup<{ code: FormControl<string>; coil: FormControl<string>; contrast: FormControl<boolean | null> }>;
+type ProcedureGroup = FormGroup<{ code: FormControl<string>; coil: FormControl<string>; contrast: FormControl<ContrastChoice> }>;
+/** mat-select shows a null value as nothing chosen, so "not said" is a value of its own here. */
+type ContrastChoice = 'with' | 'without' | 'not-said';
+const CONTRAST_CHOICE = new Map<boolean | null, ContrastChoice>([[true, 'with'], [false, 'without'], [null, 'not-said']]);
 
 /** Each mapped field in people's words, with what a booking gets when the feed reads nothing for it. */
 const FIELDS: { key: Hl7MappedField; label: string; otherwise: string }[] = [
@@ -90,6 +93,8 @@ export class Hl7MappingForm {
 
   protected async save(): Promise<void> {
     this.saved.set(false);
+    // a problem across fields (a row with neither coil nor contrast) may be fixed in another field: the server checks again
+    forEachControl(this.form, (c) => c.updateValueAndValidity({ emitEvent: false }));
     const done = await submitForm(this.form, this.saving, this.formError);
     if (done) {
       this.show(done.value);
@@ -105,7 +110,7 @@ export class Hl7MappingForm {
       mobility: field('mobility'),
       coil: field('coil'),
       contrast: field('contrast'),
-      procedures: raw.procedures.map((p) => ({ code: p.code, coil: p.coil.trim() === '' ? null : p.coil, contrast: p.contrast })),
+      procedures: raw.procedures.map((p) => ({ code: p.code, coil: p.coil.trim() === '' ? null : p.coil, contrast: p.contrast === 'not-said' ? null : p.contrast === 'with' })),
     };
   }
 
@@ -138,7 +143,12 @@ export class Hl7MappingForm {
     return this.fb.group({
       code: [p.code, [Validators.required, Validators.maxLength(HL7_MAPPING_LIMITS.codeMaxChars)]],
       coil: [p.coil ?? '', Validators.maxLength(EXAM_LIST_LIMITS.coilMaxChars)],
-      contrast: this.fb.control<boolean | null>(p.contrast),
+      contrast: this.fb.control<ContrastChoice>(CONTRAST_CHOICE.get(p.contrast)!),
     });
   }
+}
+
+function forEachControl(control: AbstractControl, visit: (leaf: AbstractControl) => void): void {
+  if (control instanceof FormGroup || control instanceof FormArray) Object.values(control.controls).forEach((c: AbstractControl) => forEachControl(c, visit));
+  else visit(control);
 }
