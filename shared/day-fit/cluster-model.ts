@@ -1,0 +1,280 @@
+import type { DayPlanExam } from '../turnover/day-plan-input';
+import type { FitDay, FitExam, FitRoom } from './instance';
+import { LpWriter, type Term } from './lp-writer';
+import type { FitHelper } from './model';
+
+/** An exam in one cluster's model: free to move within [lo, hi] in one of `rooms`, or a constant. */
+export interface ClusterItem {
+  fe: FitExam;
+  free: boolean;
+  /** Earliest and latest start (equal to its start when not free). */
+  lo: number;
+  hi: number;
+  rooms: FitRoom[];
+}
+
+/** A helper's free interval, in minutes after midnight. */
+export interface HelperSlot {
+  helper: FitHelper;
+  from: number;
+  to: number;
+}
+
+export interface ClusterModel {
+  lp: LpWriter;
+  /** Objectives in lexicographic order: gaps left, exams moved, minutes moved, day's end, helpers. */
+  levels: Term[][];
+  decode(values: ReadonlyMap<string, number>): ClusterSolution;
+}
+
+export interface ClusterSolution {
+  places: Map<number, { roomId: number; start: number }>;
+  /** Helper slot taken on the gap before an exam. */
+  helpers: Map<number, HelperSlot>;
+}
+
+export const LEVEL_NAMES = ['gaps left', 'exams moved', 'minutes moved', "day's end", 'helpers added'] as const;
+
+/**
+ * The MIP of one cluster. Decision space: each free exam's room (same modality, open) and start
+ * on whole minutes (or the grid), within the room's hours; a helper from a free person on any
+ * gap. Sequencing is big-M over pairs: for two exams in the same room, one goes first and the
+ * second starts no earlier than the first's end plus the turnover the engine requires for that
+ * pair (in that room, with or without a helper). Requiring it of every earlier exam, not only
+ * the one just before, is what makes pairs enough; it equals the consecutive-gap rule whenever
+ * required(i,j) ≤ required(i,k) + duration(k) + required(k,j), which the protocols satisfy
+ * (tested). Opening steps likewise bound every exam of a room. `u` (gap left) relaxes the rows
+ * into an exam, so the model is always feasible and level 0 counts the gaps nothing can clear.
+ *
+ * @example
+ * const model = clusterModel(day, rooms, items, [], { grid: 1, walkingMinutes: 0 });
+ * solve(model.lp.text(model.levels[0]), 5);
+ */
+export function clusterModel(
+  day: FitDay,
+  rooms: readonly FitRoom[],
+  items: readonly ClusterItem[],
+  slots: readonly HelperSlot[],
+  options: { grid: number; walkingMinutes: number },
+): ClusterModel {
+  const lp = new LpWriter();
+  const n = items.length;
+  const roomIndex = new Map(rooms.map((r, k) => [r.room.id, k]));
+  let maxReq = 0;
+  const reqs = new Map<string, { r0: number; r1: number | null }>();
+  const req = (r: FitRoom, leaving: DayPlanExam | null, arriving: DayPlanExam) => {
+    const key = `${r.room.id}|${leaving?.id ?? ''}|${arriving.id}`;
+    let v = reqs.get(key);
+    if (!v) {
+      const helper = day.helperStaff(r.room, arriving);
+      v = {
+        r0: day.required(r.room, leaving, arriving, day.baseStaff(r.room, arriving)),
+        r1: helper === null ? null : day.required(r.room, leaving, arriving, helper),
+      };
+      if (v.r0 > maxReq) maxReq = v.r0;
+      reqs.set(key, v);
+    }
+    return v;
+  };
+  // Required minutes first, so big-M is known before any row is written.
+  for (const it of items) for (const r of it.rooms) req(r, null, it.fe.exam);
+  const shares = (a: ClusterItem, b: ClusterItem) => a.rooms.filter((r) => b.rooms.includes(r));
+  const pairs: [number, number, FitRoom[]][] = [];
+  for (let a = 0; a < n; a++) {
+    for (let b = a + 1; b < n; b++) {
+      const i = items[a]!;
+      const j = items[b]!;
+      if (!i.free && !j.free && i.fe.roomId !== j.fe.roomId) continue;
+      const common = shares(i, j);
+      if (common.length === 0) continue;
+      for (const r of common) {
+        req(r, i.fe.exam, j.fe.exam);
+        req(r, j.fe.exam, i.fe.exam);
+      }
+      pairs.push([a, b, common]);
+    }
+  }
+  const lo = Math.min(...rooms.map((r) => r.open), ...items.map((it) => it.lo));
+  const hi = Math.max(...rooms.map((r) => r.close), ...items.map((it) => it.hi + it.fe.duration));
+  const M = hi - lo + maxReq + options.walkingMinutes + 1;
+
+  const s = (k: number) => `s${k}`;
+  const u = (k: number) => `u${k}`;
+  const y = (k: number, r: FitRoom) => `y${k}_${roomIndex.get(r.room.id)}`;
+  const moved: Term[] = [];
+  const minutes: Term[] = [];
+  const gapsLeft: Term[] = [];
+  const helperTerms: Term[] = [];
+  lp.variable('z', 'continuous', 0);
+  // Y(k, r): the exam is in room r, as terms plus a constant (a single-room exam is a constant 1).
+  const inRoom = (k: number, r: FitRoom): { terms: Term[]; constant: number } => {
+    const it = items[k]!;
+    if (!it.rooms.includes(r)) return { terms: [], constant: 0 };
+    return it.rooms.length === 1 ? { terms: [], constant: 1 } : { terms: [[1, y(k, r)]], constant: 0 };
+  };
+
+  for (let k = 0; k < n; k++) {
+    const it = items[k]!;
+    const { start, duration } = it.fe;
+    lp.variable(s(k), 'integer', it.lo, it.hi);
+    lp.variable(u(k), 'binary');
+    gapsLeft.push([1, u(k)]);
+    lp.row([[1, 'z'], [-1, s(k)]], '>=', duration);
+    if (!it.free) continue;
+    if (it.rooms.length > 1) {
+      for (const r of it.rooms) lp.variable(y(k, r), 'binary');
+      lp.row(it.rooms.map((r) => [1, y(k, r)] as const), '=', 1);
+    }
+    const m = lp.variable(`m${k}`, 'binary');
+    const v = lp.variable(`v${k}`, 'continuous', 0);
+    moved.push([1, m]);
+    minutes.push([1, v]);
+    lp.row([[1, s(k)], [-M, m]], '<=', start);
+    lp.row([[1, s(k)], [M, m]], '>=', start);
+    lp.row([[1, v], [-1, s(k)]], '>=', -start);
+    lp.row([[1, v], [1, s(k)]], '>=', start);
+    const own = it.rooms.find((r) => r.room.id === it.fe.roomId);
+    if (!own) lp.row([[1, m]], '=', 1);
+    else if (it.rooms.length > 1) lp.row([[1, y(k, own)], [1, m]], '>=', 1);
+    if (options.grid > 1) {
+      // Moved: on the grid (s = grid·g); not moved: its own start, on the grid or not.
+      const g = lp.variable(`g${k}`, 'integer', Math.ceil(it.lo / options.grid), Math.floor(it.hi / options.grid));
+      lp.row([[1, s(k)], [-options.grid, g], [M, m]], '<=', M);
+      lp.row([[1, s(k)], [-options.grid, g], [-M, m]], '>=', -M);
+    }
+    // Hours of the room it is in (hard: a proposal never leaves a room's hours).
+    for (const r of it.rooms) {
+      const Y = inRoom(k, r);
+      lp.row([[1, s(k)], ...Y.terms.map(([c, x]) => [-M * c, x] as const)], '>=', r.open - M + M * Y.constant);
+      lp.row([[1, s(k)], ...Y.terms.map(([c, x]) => [M * c, x] as const)], '<=', r.close - duration + M - M * Y.constant);
+    }
+  }
+
+  // Helpers: h{k}_{slot} takes a free person onto the gap before exam k.
+  const helperOf = new Map<number, Term[]>();
+  const busy = new Map<number, number>();
+  if (slots.length > 0) {
+    for (let k = 0; k < n; k++) {
+      const it = items[k]!;
+      const withHelper = it.rooms.filter((r) => day.helperStaff(r.room, it.fe.exam) !== null);
+      if (withHelper.length === 0) continue;
+      // The person is booked for the longest turnover that could precede the exam, ending at its start.
+      let longest = 0;
+      for (const r of withHelper) {
+        for (const other of [null, ...items.map((x) => x.fe.exam)]) {
+          if (other === it.fe.exam) continue;
+          if (other && !items.some((x) => x.fe.exam === other && x.rooms.includes(r))) continue;
+          longest = Math.max(longest, req(r, other, it.fe.exam).r1 ?? 0);
+        }
+      }
+      busy.set(k, longest);
+      const terms: Term[] = [];
+      slots.forEach((slot, p) => {
+        const covered = withHelper.filter((r) => slot.helper.roomIds === null || slot.helper.roomIds.includes(r.room.id));
+        if (covered.length === 0 || it.hi < slot.from + longest || it.lo > slot.to) return;
+        const h = lp.variable(`h${k}_${p}`, 'binary');
+        terms.push([1, h]);
+        helperTerms.push([1, h]);
+        lp.row([[1, s(k)], [-M, h]], '>=', slot.from + longest - M);
+        lp.row([[1, s(k)], [M, h]], '<=', slot.to + M);
+        if (covered.length < it.rooms.length) {
+          const ys = covered.map((r) => inRoom(k, r));
+          const constant = ys.reduce((c, Y) => c + Y.constant, 0);
+          if (constant < 1) lp.row([[1, h], ...ys.flatMap((Y) => Y.terms.map(([c, x]) => [-c, x] as const))], '<=', constant);
+        }
+      });
+      if (terms.length > 0) {
+        helperOf.set(k, terms);
+        lp.row(terms, '<=', 1);
+      }
+    }
+    // One person, one turnover at a time (plus walking between them).
+    const W = options.walkingMinutes;
+    for (let p = 0; p < slots.length; p++) {
+      const users = [...helperOf.keys()].filter((k) => lp.has(`h${k}_${p}`));
+      for (let a = 0; a < users.length; a++) {
+        for (let b = a + 1; b < users.length; b++) {
+          const [i, j] = [users[a]!, users[b]!];
+          const [bi, bj] = [busy.get(i)!, busy.get(j)!];
+          if (items[i]!.hi + W <= items[j]!.lo - bj || items[j]!.hi + W <= items[i]!.lo - bi) continue;
+          const q = lp.variable(`q${i}_${j}_${p}`, 'binary');
+          const hi_ = `h${i}_${p}`;
+          const hj = `h${j}_${p}`;
+          // q = 1: i's turnover ends (plus walking) before j's begins.
+          lp.row([[1, s(j)], [-1, s(i)], [-M, q], [-M, hi_], [-M, hj]], '>=', bj + W - 3 * M);
+          lp.row([[1, s(i)], [-1, s(j)], [M, q], [-M, hi_], [-M, hj]], '>=', bi + W - 2 * M);
+        }
+      }
+    }
+  }
+
+  // Opening steps bound every exam of the room.
+  for (let k = 0; k < n; k++) {
+    const it = items[k]!;
+    for (const r of it.rooms) {
+      const { r0, r1 } = req(r, null, it.fe.exam);
+      const Y = inRoom(k, r);
+      const terms: Term[] = [[1, s(k)], [M, u(k)], ...Y.terms.map(([c, x]) => [-M * c, x] as const)];
+      if (r1 !== null) for (const [, h] of helperOf.get(k) ?? []) terms.push([r0 - r1, h]);
+      lp.row(terms, '>=', r.open + r0 - M + M * Y.constant);
+    }
+  }
+
+  // Pairs: for each room they may share, the later starts after the earlier's end plus the turnover.
+  for (const [a, b, common] of pairs) {
+    const i = items[a]!;
+    const j = items[b]!;
+    const ordered = !i.free && !j.free;
+    const iFirst = ordered ? i.fe.start < j.fe.start || (i.fe.start === j.fe.start && i.fe.exam.id < j.fe.exam.id) : null;
+    const canBefore = (x: ClusterItem, w: ClusterItem, r: FitRoom) => x.lo + x.fe.duration + Math.min(req(r, x.fe.exam, w.fe.exam).r0, req(r, x.fe.exam, w.fe.exam).r1 ?? Infinity) <= w.hi;
+    let o: string | null = null;
+    for (const r of common) {
+      const ij = ordered ? iFirst! : canBefore(i, j, r) || !canBefore(j, i, r);
+      const ji = ordered ? !iFirst : canBefore(j, i, r) || !canBefore(i, j, r);
+      if (ij && ji && !o) o = lp.variable(`o${a}_${b}`, 'binary');
+      const Yi = inRoom(a, r);
+      const Yj = inRoom(b, r);
+      const both: Term[] = [...Yi.terms, ...Yj.terms].map(([c, x]) => [-M * c, x] as const);
+      const yConst = M * (Yi.constant + Yj.constant) - 2 * M;
+      const write = (first: number, second: number, sign: 1 | -1 | 0) => {
+        const F = items[first]!;
+        const S = items[second]!;
+        const { r0, r1 } = req(r, F.fe.exam, S.fe.exam);
+        // Never binding: the second can start no earlier than the first's latest end plus the turnover.
+        if (sign === 0 && S.lo >= F.hi + F.fe.duration + r0) return;
+        const terms: Term[] = [[1, s(second)], [-1, s(first)], [M, u(second)], ...both];
+        if (r1 !== null) for (const [, h] of helperOf.get(second) ?? []) terms.push([r0 - r1, h]);
+        let rhs = F.fe.duration + r0 + yConst;
+        if (sign === 1) { terms.push([-M, o!]); rhs -= M; } // first = i when o = 1
+        if (sign === -1) terms.push([M, o!]); // first = j when o = 0
+        lp.row(terms, '>=', rhs);
+      };
+      if (ij && ji) {
+        write(a, b, 1);
+        write(b, a, -1);
+      } else if (ij) write(a, b, 0);
+      else write(b, a, 0);
+    }
+  }
+
+  return {
+    lp,
+    levels: [gapsLeft, moved, minutes, [[1, 'z']], helperTerms],
+    decode(values) {
+      const places = new Map<number, { roomId: number; start: number }>();
+      const helpers = new Map<number, HelperSlot>();
+      items.forEach((it, k) => {
+        if (!it.free) return;
+        const start = Math.round(values.get(s(k)) ?? it.fe.start);
+        const room = it.rooms.length === 1 ? it.rooms[0]! : it.rooms.find((r) => (values.get(y(k, r)) ?? 0) > 0.5) ?? it.rooms[0]!;
+        places.set(it.fe.exam.id, { roomId: room.room.id, start });
+      });
+      for (const [k, terms] of helperOf) {
+        for (const [, h] of terms) {
+          if ((values.get(h) ?? 0) > 0.5) helpers.set(items[k]!.fe.exam.id, slots[Number(h.split('_')[1])]!);
+        }
+      }
+      return { places, helpers };
+    },
+  };
+}

@@ -1,0 +1,127 @@
+/**
+ * "Make the day fit": the whole-day proposal's input and answer. Framework-free; the MIP is
+ * written here as CPLEX LP text and handed to a solver the caller supplies (the server runs
+ * HiGHS in a worker thread), so this folder never loads WebAssembly itself.
+ */
+import type { PlanChange } from '../api/changes';
+import type { PlanSummary, Verdict } from '../api/plan';
+
+/** Why an exam may not move. */
+export const FIXED_REASONS = ['arrived', 'started', 'pinned'] as const;
+export type FixedReason = (typeof FIXED_REASONS)[number];
+
+/**
+ * A spare person who may join a turnover as its helper (one more person than the room's staff)
+ * while free. Without a roster the list is empty and no helper is proposed.
+ */
+export interface FitHelper {
+  /** Stable within the day (the roster's person id). */
+  id: string;
+  label: string;
+  /** Local `HH:MM` intervals the person is free, end after start, on the day. */
+  free: readonly { start: string; end: string }[];
+  /** Rooms the person covers; null: any room. */
+  roomIds: readonly number[] | null;
+}
+
+/** The answer of one MIP solve, whatever solver ran it. */
+export interface MipResult {
+  status: 'optimal' | 'time-limit' | 'infeasible' | 'error';
+  /** Values by variable name; null when no feasible point was found. */
+  values: ReadonlyMap<string, number> | null;
+  /** Relative gap between the best point and the best bound (0 when optimal; 1 when unknown). */
+  mipGap: number;
+}
+
+/** Solves an LP-format model (minimise) within `timeLimitSeconds`. */
+export type MipSolve = (lp: string, timeLimitSeconds: number) => MipResult;
+
+export interface DayFitOptions {
+  /** Exams that must not move, with the reason. */
+  fixed?: Readonly<Record<number, FixedReason>>;
+  /** Spare people from the roster; none by default. */
+  helpers?: readonly FitHelper[];
+  /** Minutes a helper needs between two turnovers (walking). Default 0. */
+  walkingMinutes?: number;
+  /** Wall-clock budget for all solves; default 8 s. */
+  timeLimitMs?: number;
+  /**
+   * Starts only on multiples of this many minutes after the site's midnight (tests compare with
+   * an enumeration on the same grid). Default 1: whole minutes.
+   */
+  gridMinutes?: number;
+  /** A modality group with at most this many exams is solved whole (exact); larger ones by neighbourhoods. Default 36. */
+  wholeGroupLimit?: number;
+  /** Clock for the budget; default Date.now. */
+  now?: () => number;
+}
+
+export type FitChangeKind = 'shift' | 'other-room' | 'helper' | 'isolation-last';
+
+/** One exam's place before and after. */
+export interface FitExamMove {
+  examId: number;
+  accession: string;
+  kind: FitChangeKind;
+  from: { roomId: number; start: string };
+  to: { roomId: number; start: string };
+  /** |new start − old start| in real minutes. */
+  minutesMoved: number;
+}
+
+/** A patient to call: their exam starts at another time. */
+export interface FitCall {
+  examId: number;
+  accession: string;
+  fromStart: string;
+  toStart: string;
+  fromRoomId: number;
+  toRoomId: number;
+}
+
+export interface FitHelperUse {
+  toExamId: number;
+  accession: string;
+  helperId: string;
+  label: string;
+  /** People on the turnover before and after (the room's staff or a set value, then one more). */
+  staffFrom: number;
+  staffTo: number;
+}
+
+/** A gap still `short` or `overlap` after the proposal, and why. */
+export interface FitRemainingGap {
+  fromExamId: number | null;
+  toExamId: number;
+  accession: string;
+  roomId: number;
+  verdict: Verdict;
+  shortByMinutes: number;
+  reason: string;
+}
+
+export interface FitSolverReport {
+  /** `optimal`: every solve proved optimal; `time-limit`: some solve stopped at the limit with a point. */
+  status: 'optimal' | 'time-limit' | 'nothing-to-do';
+  /** Largest relative MIP gap of the solves (0 when all proved optimal). */
+  mipGap: number;
+  /** `whole`: each group solved whole; `neighbourhood`: a large group solved around its problem gaps. */
+  scope: 'whole' | 'neighbourhood';
+  solves: number;
+  clusters: number;
+  milliseconds: number;
+}
+
+export interface DayFitProposal {
+  date: string;
+  /** The PlanChange list that applies the proposal (moves, then helpers). */
+  changes: PlanChange[];
+  moves: FitExamMove[];
+  calls: FitCall[];
+  helpers: FitHelperUse[];
+  remaining: FitRemainingGap[];
+  objective: { gapsLeft: number; examsMoved: number; minutesMoved: number; dayEndsAt: string | null; helpersAdded: number };
+  before: PlanSummary;
+  after: PlanSummary;
+  solver: FitSolverReport;
+}

@@ -1,0 +1,231 @@
+import type { ExamMove, PlanChange, StaffingChange } from '../api/changes';
+import { withChanges } from '../fixes/apply-changes';
+import { fixDay } from '../fixes/fix-day';
+import { isProblemVerdict } from '../fixes/room-gaps';
+import { wallTimeToMillis } from '../turnover/zoned-time';
+import type { DayPlanInput } from '../turnover/day-plan-input';
+import { clusterModel, type ClusterItem, type ClusterSolution, type HelperSlot } from './cluster-model';
+import { neighbourhoods, wholeGroup, type Reach } from './clusters';
+import { fitDay, type FitDay, type FitExam, type FitGroup } from './instance';
+import { lpRow, type Term } from './lp-writer';
+import type { DayFitOptions, DayFitProposal, FitCall, FitExamMove, FitHelperUse, MipResult, MipSolve } from './model';
+import { remainingGaps } from './remaining';
+
+/** Larger neighbourhoods tried in turn for a group too large to solve whole. */
+const REACHES: readonly Reach[] = [
+  { neighbours: 1, shiftMinutes: 60 },
+  { neighbours: 3, shiftMinutes: 180 },
+];
+
+interface SolveTally {
+  solves: number;
+  clusters: number;
+  mipGap: number;
+  timeLimited: boolean;
+  neighbourhood: boolean;
+}
+
+/**
+ * The whole-day proposal: changes (start shifts within hours, moves to another open room of the
+ * same modality, helpers from spare people, isolation cases anywhere including last) that leave
+ * no `short` or `overlap` gap, minimising lexicographically the gaps left, exams moved, minutes
+ * patients are moved, the day's end and helpers added — one MIP solve per level, each level's
+ * optimum kept as a bound for the next. Fixed exams never move.
+ *
+ * @throws RangeError on a bad date, zone or start (as the day plan does)
+ * @example
+ * const proposal = proposeDayFit(input, highsSolve, { fixed: { 12: 'arrived' } });
+ * proposal.calls; // [{ accession: 'A-7', fromStart: '…T10:05…', toStart: '…T10:20…', … }]
+ */
+export function proposeDayFit(input: DayPlanInput, solve: MipSolve, options: DayFitOptions = {}): DayFitProposal {
+  const now = options.now ?? Date.now;
+  const started = now();
+  const deadline = started + (options.timeLimitMs ?? 8_000);
+  const day = fitDay(input, options);
+  const judgedBefore = fixDay(input);
+  const problemInto = new Set<number>();
+  for (const room of input.rooms) for (const gap of judgedBefore.judged(room.id).gaps) if (isProblemVerdict(gap.verdict)) problemInto.add(gap.toExamId);
+  const slots = helperSlots(input, options);
+  const tally: SolveTally = { solves: 0, clusters: 0, mipGap: 0, timeLimited: false, neighbourhood: false };
+  const places = new Map<number, { roomId: number; start: number }>();
+  const helpers = new Map<number, HelperSlot>();
+  const groups = day.groups.filter((g) => g.exams.some((fe) => problemInto.has(fe.exam.id)));
+  groups.forEach((group, index) => {
+    const budgetMs = (deadline - now()) / (groups.length - index);
+    const solution = solveGroup(day, group, problemInto, slots, options, tally, now() + Math.max(200, budgetMs), solve);
+    for (const [id, place] of solution.places) places.set(id, place);
+    for (const [id, slot] of solution.helpers) helpers.set(id, slot);
+  });
+  return proposal(day, places, helpers, judgedBefore.summary, tally, now() - started, problemInto.size === 0);
+}
+
+function solveGroup(
+  day: FitDay,
+  group: FitGroup,
+  problemInto: ReadonlySet<number>,
+  slots: readonly HelperSlot[],
+  options: DayFitOptions,
+  tally: SolveTally,
+  deadline: number,
+  mip: MipSolve,
+): ClusterSolution {
+  const now = options.now ?? Date.now;
+  const result: ClusterSolution = { places: new Map(), helpers: new Map() };
+  const model = (items: ClusterItem[]) => clusterModel(day, group.rooms, items, slots, { grid: options.gridMinutes ?? 1, walkingMinutes: options.walkingMinutes ?? 0 });
+  if (group.exams.length <= (options.wholeGroupLimit ?? 36)) {
+    const [items] = wholeGroup(group);
+    tally.clusters++;
+    const solved = solveLevels(model(items!), mip, tally, deadline, now);
+    return solved?.solution ?? result;
+  }
+  tally.neighbourhood = true;
+  let seeds = new Set([...group.exams].filter((fe) => problemInto.has(fe.exam.id)).map((fe) => fe.exam.id));
+  let view: FitGroup = group;
+  for (let tier = 0; tier < REACHES.length && seeds.size > 0; tier++) {
+    const clusters = neighbourhoods(day, view, seeds, REACHES[tier]!);
+    const unresolved = new Set<number>();
+    clusters.forEach((items, index) => {
+      tally.clusters++;
+      const budget = (deadline - now()) / (clusters.length - index);
+      const solved = solveLevels(model(items), mip, tally, now() + Math.max(100, budget), now);
+      const clusterSeeds = items.filter((it) => seeds.has(it.fe.exam.id)).map((it) => it.fe.exam.id);
+      if (!solved || (solved.gapsLeft > 0 && tier < REACHES.length - 1)) {
+        for (const id of clusterSeeds) unresolved.add(id);
+        return;
+      }
+      for (const [id, place] of solved.solution.places) result.places.set(id, place);
+      for (const [id, slot] of solved.solution.helpers) result.helpers.set(id, slot);
+    });
+    // Exams already placed stay at their new places for the next, wider, try.
+    view = { ...group, exams: group.exams.map((fe): FitExam => {
+      const place = result.places.get(fe.exam.id);
+      return place ? { ...fe, start: place.start, roomId: place.roomId, stays: 'proposed' } : fe;
+    }) };
+    seeds = unresolved;
+  }
+  return result;
+}
+
+/**
+ * Solves the levels in order; each level's best value bounds the next. Returns the last level's
+ * point (or the best earlier one when a later solve found none) and the gaps left.
+ */
+function solveLevels(
+  m: ReturnType<typeof clusterModel>,
+  mip: MipSolve,
+  tally: SolveTally,
+  deadline: number,
+  now: () => number,
+): { solution: ClusterSolution; gapsLeft: number } | null {
+  const bounds: ReturnType<typeof lpRow>[] = [];
+  let best: ReadonlyMap<string, number> | null = null;
+  let gapsLeft = 0;
+  const levels = m.levels.map((terms, index) => ({ terms, index })).filter(({ terms }) => terms.length > 0);
+  for (let k = 0; k < levels.length; k++) {
+    const { terms, index } = levels[k]!;
+    const seconds = Math.max(0.05, (deadline - now()) / 1000 / (levels.length - k));
+    const answer: MipResult = mip(m.lp.text(terms, bounds), seconds);
+    tally.solves++;
+    if (!answer.values) {
+      if (answer.status === 'time-limit') tally.timeLimited = true;
+      break;
+    }
+    if (answer.status !== 'optimal') tally.timeLimited = true;
+    tally.mipGap = Math.max(tally.mipGap, answer.mipGap);
+    best = answer.values;
+    const value = valueOf(terms, best);
+    if (index === 0) gapsLeft = Math.round(value);
+    // Integral levels: a tiny allowance absorbs the solver's feasibility tolerance.
+    bounds.push(lpRow(terms, '<=', Math.round(value) + 1e-6));
+  }
+  return best ? { solution: m.decode(best), gapsLeft } : null;
+}
+
+function valueOf(terms: readonly Term[], values: ReadonlyMap<string, number>): number {
+  return terms.reduce((sum, [c, v]) => sum + c * (values.get(v) ?? 0), 0);
+}
+
+function helperSlots(input: DayPlanInput, options: DayFitOptions): HelperSlot[] {
+  const midnight = wallTimeToMillis(input.date, '00:00', input.timezone);
+  const minute = (hhmm: string) => Math.round((wallTimeToMillis(input.date, hhmm, input.timezone) - midnight) / 60_000);
+  return (options.helpers ?? []).flatMap((helper) => helper.free.map((f) => ({ helper, from: minute(f.start), to: minute(f.end) })));
+}
+
+function proposal(
+  day: FitDay,
+  places: ReadonlyMap<number, { roomId: number; start: number }>,
+  helpers: ReadonlyMap<number, HelperSlot>,
+  before: DayFitProposal['before'],
+  tally: SolveTally,
+  milliseconds: number,
+  nothingToDo: boolean,
+): DayFitProposal {
+  const { input } = day;
+  const examById = new Map(input.exams.map((e) => [e.id, e]));
+  const moves: FitExamMove[] = [];
+  const calls: FitCall[] = [];
+  const changes: PlanChange[] = [];
+  for (const [examId, place] of [...places].sort((a, b) => a[0] - b[0])) {
+    const exam = examById.get(examId)!;
+    const fromStart = day.minuteOf(exam.start);
+    if (place.roomId === exam.roomId && place.start === fromStart) continue;
+    const to = { roomId: place.roomId, start: day.toIso(place.start) };
+    const move: ExamMove = { type: 'move', examId, accession: exam.accession, from: { roomId: exam.roomId, start: exam.start }, to };
+    changes.push(move);
+    moves.push({ examId, accession: exam.accession, kind: place.roomId !== exam.roomId ? 'other-room' : 'shift', from: move.from, to, minutesMoved: Math.abs(place.start - fromStart) });
+    if (place.start !== fromStart) calls.push({ examId, accession: exam.accession, fromStart: exam.start, toStart: to.start, fromRoomId: exam.roomId, toRoomId: place.roomId });
+  }
+  const roomById = new Map(input.rooms.map((r) => [r.id, r]));
+  const helperUses: FitHelperUse[] = [];
+  for (const [toExamId, slot] of [...helpers].sort((a, b) => a[0] - b[0])) {
+    const exam = examById.get(toExamId)!;
+    const room = roomById.get(places.get(toExamId)?.roomId ?? exam.roomId)!;
+    const staffFrom = day.baseStaff(room, exam);
+    const staffTo = day.helperStaff(room, exam)!;
+    const change: StaffingChange = { type: 'staffing', toExamId, accession: exam.accession, from: input.staffOverrides?.[toExamId] ?? null, to: staffTo };
+    changes.push(change);
+    helperUses.push({ toExamId, accession: exam.accession, helperId: slot.helper.id, label: slot.helper.label, staffFrom, staffTo });
+  }
+  const after = withChanges(input, changes);
+  const judgedAfter = fixDay(after);
+  // Isolation cases that end last in their room, having not been last before.
+  const lastBefore = new Set(input.rooms.map((r) => judgedBefore(day, r.id)).filter((id): id is number => id !== null));
+  for (const move of moves) {
+    const exam = examById.get(move.examId)!;
+    const slotsAfter = judgedAfter.judged(move.to.roomId).slots;
+    if (exam.precaution !== 'none' && slotsAfter[slotsAfter.length - 1]?.exam.id === exam.id && !lastBefore.has(exam.id)) move.kind = 'isolation-last';
+  }
+  const remaining = remainingGaps(day, judgedAfter, tally.timeLimited);
+  const ends = input.rooms.map((r) => judgedAfter.judged(r.id)).filter((r) => r.slots.length > 0).map((r) => r.endsMs);
+  return {
+    date: input.date,
+    changes,
+    moves,
+    calls,
+    helpers: helperUses,
+    remaining,
+    objective: {
+      gapsLeft: remaining.length,
+      examsMoved: moves.length,
+      minutesMoved: moves.reduce((sum, m) => sum + m.minutesMoved, 0),
+      dayEndsAt: ends.length ? day.toIso(Math.round((Math.max(...ends) - day.midnightMs) / 60_000)) : null,
+      helpersAdded: helperUses.length,
+    },
+    before,
+    after: judgedAfter.summary,
+    solver: {
+      status: nothingToDo ? 'nothing-to-do' : tally.timeLimited ? 'time-limit' : 'optimal',
+      mipGap: tally.mipGap,
+      scope: tally.neighbourhood ? 'neighbourhood' : 'whole',
+      solves: tally.solves,
+      clusters: tally.clusters,
+      milliseconds,
+    },
+  };
+}
+
+function judgedBefore(day: FitDay, roomId: number): number | null {
+  const exams = day.input.exams.filter((e) => e.roomId === roomId).map((e) => ({ id: e.id, at: day.minuteOf(e.start) }));
+  exams.sort((a, b) => a.at - b.at || a.id - b.id);
+  return exams.length ? exams[exams.length - 1]!.id : null;
+}
