@@ -23,6 +23,7 @@ import { ExamDialog, type ExamDialogData } from './exam-dialog';
 import { GapPanel } from './gap-panel';
 import { HistoryPanel } from './history-panel';
 import { PatientsToCallPanel } from './patients-to-call-panel';
+import { gapPeopleWords } from './people-reason';
 import { ProblemGap, problemGaps, stepProblem } from './problem-gaps';
 import { ZOOMS, Zoom } from './timeline-scale';
 
@@ -87,6 +88,12 @@ export class DayPlan {
       if (to) return { gap, room, to, from: exam(gap.fromExamId) };
     }
     return null;
+  });
+  /** With a roster: the open gap's crew and why it waited or ran short-handed, in words. */
+  protected readonly selectionPeople = computed(() => {
+    const s = this.selection();
+    const plan = this.store.plan();
+    return s && plan ? gapPeopleWords(plan, s.room, s.gap) : null;
   });
   protected readonly cautions = computed(() => cautionsForDay(this.store.plan()?.rooms ?? []));
 

@@ -14,6 +14,7 @@ import { SiteTime } from '../../shared/ui/site-time';
 import { VerdictChip } from '../../shared/ui/verdict-chip';
 import { DayPlanService } from './day-plan-service';
 import { FixCard, isPartialFix } from './fix-card';
+import type { GapPeopleWords } from './people-reason';
 
 /**
  * One gap in full, beside the timeline: verdict, what it needs and has, ready-at, the steps in
@@ -40,6 +41,8 @@ export class GapPanel {
   readonly mayStaff = input(false);
   readonly mayApply = input(false);
   readonly busy = input(false);
+  /** With a roster: the crew by label and why it started late or short-handed (see gapPeopleWords). */
+  readonly people = input<GapPeopleWords | null>(null);
   readonly closed = output<void>();
   readonly staffChosen = output<number | null>();
   readonly applied = output<{ fix: Fix; acceptNewProblems: boolean }>();
