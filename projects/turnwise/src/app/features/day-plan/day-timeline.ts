@@ -13,8 +13,9 @@ import { previewMove } from './plan-preview';
 import { DragPointer, PointerDrag } from './pointer-drag';
 import { markStart, measureSinceStart } from './render-marks';
 import { RoomLane } from './room-lane';
+import { TimeAxis } from './time-axis';
 import { PendingMove, clampStart, moveStatus, movedWithoutGaps, nextLane } from './slot-moves';
-import { SNAP_MINUTES, Zoom, axisTicks, dayRange, readablePxPerMinute, scaleFor, siteIso, snapToMinutes, xOf } from './timeline-scale';
+import { SNAP_MINUTES, Zoom, dayRange, readablePxPerMinute, scaleFor, siteIso, snapToMinutes, xOf } from './timeline-scale';
 
 const MINUTE = 60_000;
 /** A press and release further apart than this moved the slot (PointerDrag's threshold): not a click. */
@@ -27,7 +28,7 @@ const CLICK_WOBBLE_PX = 4;
  */
 @Component({
   selector: 'tw-day-timeline',
-  imports: [RoomLane],
+  imports: [RoomLane, TimeAxis],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './day-timeline.html',
   styleUrl: './day-timeline.scss',
@@ -68,7 +69,6 @@ export class DayTimeline {
     return minutes.length ? Math.min(...minutes) : null;
   });
   protected readonly scale = computed(() => scaleFor(this.range(), this.zoom(), this.viewportPx() - LANE_HEADER_PX, readablePxPerMinute(this.shortestExam())));
-  protected readonly ticks = computed(() => axisTicks(this.scale(), this.plan().timezone));
   protected readonly nowX = computed(() => {
     const now = this.nowMs();
     const { startMs, endMs } = this.scale();
