@@ -25,6 +25,7 @@ import { protocolRoutes, setupRoutes } from './protocols';
 import { reportRoutes } from './reports';
 import { roomRoutes } from './rooms';
 import { roomSetupRoutes } from './room-setup';
+import { dayRosterRoutes, weeklyRosterRoutes } from './roster';
 import { settingsRoutes } from './settings';
 import { userRoutes } from './users';
 
@@ -57,7 +58,7 @@ export function apiRoutes(deps: ApiDeps): Router {
   router.use('/auth', authRoutes({ ...deps.auth, db: deps.db, demo: deps.demo }));
   router.use('/rooms', roomRoutes(deps));
   router.use('/settings', settingsRoutes(deps));
-  router.use('/days', dayRoutes(deps), dayChangeRoutes(deps));
+  router.use('/days', dayRoutes(deps), dayChangeRoutes(deps), dayRosterRoutes(deps));
   router.use('/exams', examRoutes(deps), examProgressRoutes(deps));
   // Rooms now, checklists, the cleaning log and shift tasks
   router.use(boardRoutes(deps));
@@ -71,6 +72,7 @@ export function apiRoutes(deps: ApiDeps): Router {
   router.use('/products', productRoutes(deps));
   router.use('/protocols', protocolRoutes(deps));
   router.use('/setup', setupRoutes(deps));
+  router.use('/roster/weekly', weeklyRosterRoutes(deps));
   router.use('/users', userRoutes(deps));
   router.use('/profile/notices', noticePreferenceRoutes(deps));
   router.use('/profile/calendar', calendarTokenRoutes({ ...deps, calendar: deps.notices.context }));

@@ -1,10 +1,11 @@
 import type { Knex } from 'knex';
-import { computeDayPlan, computeDaySummary, type DayPlanExam, type DayPlanInput } from '../../shared/turnover';
+import { computeDayPlan, computeDaySummary, type DayPlanExam, type DayPlanInput, type DayPlanRoster } from '../../shared/turnover';
 import type { PlannedDay, PlanSummary } from '../../shared/api/plan';
 import { planVersions } from './day-version';
 import { examsOfDay, toPlanExam } from './exams';
 import { cachedPlan, type CachedPlan } from './plan-cache';
 import { roomsOnDay, type RoomOnDay } from './room-hours';
+import { rosterForPlan } from './roster';
 import { readSettings } from './settings';
 import { setupForDay, setupSnapshot, type SetupSnapshot } from './site-setup';
 
@@ -39,15 +40,16 @@ export async function loadCachedDayPlan(db: Knex, day: string): Promise<CachedPl
 
 /** What a day's plan is computed from, as stored. */
 export async function loadDayPlanInput(db: Knex, day: string): Promise<DayPlanInput> {
-  const [settings, rooms, exams, staffing, setup] = await Promise.all([
+  const [settings, rooms, exams, staffing, setup, roster] = await Promise.all([
     readSettings(db),
     roomsOnDay(db, day),
     examsOfDay(db, day),
     db('gap_staffing').join('exams', 'exams.id', 'gap_staffing.to_exam_id').where('exams.day', day).select('to_exam_id', 'staff'),
     setupSnapshot(db),
+    rosterForPlan(db, day),
   ]);
   const staffOverrides = Object.fromEntries(staffing.map((s: { to_exam_id: number; staff: number }) => [s.to_exam_id, s.staff]));
-  return dayPlanInput(day, settings, rooms, exams.map(toPlanExam), staffOverrides, setup);
+  return dayPlanInput(day, settings, rooms, exams.map(toPlanExam), staffOverrides, setup, roster);
 }
 
 /**
@@ -60,8 +62,9 @@ export function summaryFor(
   rooms: RoomOnDay[],
   exams: DayPlanExam[],
   setup: SetupSnapshot,
+  roster?: DayPlanRoster,
 ): PlanSummary {
-  return computeDaySummary(dayPlanInput(day, settings, rooms, exams, {}, setup));
+  return computeDaySummary(dayPlanInput(day, settings, rooms, exams, {}, setup, roster));
 }
 
 function dayPlanInput(
@@ -71,9 +74,10 @@ function dayPlanInput(
   exams: DayPlanExam[],
   staffOverrides: Record<number, number>,
   setup: SetupSnapshot,
+  roster: DayPlanRoster | undefined,
 ): DayPlanInput {
   const roomIds = new Set(rooms.map((r) => r.id));
-  return {
+  const input: DayPlanInput = {
     date: day,
     timezone: settings.timezone,
     snugMarginMinutes: settings.snugMarginMinutes,
@@ -84,4 +88,6 @@ function dayPlanInput(
     exams: exams.filter((e) => roomIds.has(e.roomId)),
     staffOverrides,
   };
+  // Without a roster the input (and so the plan and its ETag) is exactly what it was before rosters.
+  return roster ? { ...input, roster } : input;
 }

@@ -7,6 +7,7 @@ import type { WorkerPool } from '../workers/pool';
 import { examColumns, examsOfDay, toListed } from './exams';
 import type { UploadedExamFile } from './exam-file';
 import { summaryFor } from './day-plan';
+import { rosterForPlan } from './roster';
 import { setupSnapshot } from './site-setup';
 import { dayVersion } from './day-version';
 import { roomsOnDay } from './room-hours';
@@ -65,7 +66,7 @@ export async function importExamList(db: Knex, workers: WorkerPool, req: ImportR
     parsed.rows,
   );
   const wouldBe = parsed.rows.map((row, i) => wouldBeExam(row, -(i + 1), roomIdByName.get(row.room)!));
-  const summary = summaryFor(req.day, settings, await roomsOnDay(db, req.day), wouldBe, await setupSnapshot(db));
+  const summary = summaryFor(req.day, settings, await roomsOnDay(db, req.day), wouldBe, await setupSnapshot(db), await rosterForPlan(db, req.day));
   const result: ImportResult = {
     dryRun: req.dryRun,
     date: req.day,

@@ -3,6 +3,7 @@ import { DateTime } from 'luxon';
 import type { ChangeReason, DayHistory, ExamEdit, ExamFields, ExamMove, PlanChange, PlanChangeRecord } from '../../shared/api/changes';
 import { Refusal } from '../errors';
 import { columnsOfFields, examColumnsForMove, storedFields, type ExamRow } from './exams';
+import { applyRosterChange } from './roster';
 import { readSettings } from './settings';
 
 interface ChangeRow {
@@ -127,6 +128,8 @@ export async function applyChanges(trx: Knex, changes: PlanChange[], userId: num
         .update({ ...examColumnsForMove(change.to.roomId, change.to.start), version: exam.version + 1, updated_at: now.toISOString() });
     } else if (change.type === 'exam') {
       await applyExamEdit(trx, change, now);
+    } else if (change.type === 'roster') {
+      await applyRosterChange(trx, change, userId, now);
     } else {
       const current = await trx('gap_staffing').where({ to_exam_id: change.toExamId }).first();
       if ((current?.staff ?? null) !== change.from) {

@@ -1,5 +1,5 @@
 /** One setup change: who, when, what, before → after (null when created or removed). */
-export const AUDIT_AREAS = ['user', 'room', 'equipment', 'kit', 'site', 'product', 'protocol', 'shift task'] as const;
+export const AUDIT_AREAS = ['user', 'room', 'equipment', 'kit', 'site', 'product', 'protocol', 'shift task', 'roster'] as const;
 export type AuditArea = (typeof AUDIT_AREAS)[number];
 
 export interface AuditEntry {

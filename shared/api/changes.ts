@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { MOVE_REASONS, TURNOVER_STAFF, type ChangeReason } from './limits';
+import type { RosterRow } from './roster';
 
 export { CHANGE_REASONS, MOVE_REASONS, type ChangeReason, type MoveReason } from './limits';
 
@@ -46,7 +47,18 @@ export interface ExamEdit {
   to: (ExamFields & { accession: string }) | null;
 }
 
-export type PlanChange = ExamMove | StaffingChange | ExamEdit;
+/**
+ * The day's own roster saved (`to`), or removed so the weekday's default applies again (`to: null`);
+ * `from` is what it replaced. Rows as `shared/api/roster.ts` describes them.
+ */
+export interface RosterChange {
+  type: 'roster';
+  day: string;
+  from: RosterRow[] | null;
+  to: RosterRow[] | null;
+}
+
+export type PlanChange = ExamMove | StaffingChange | ExamEdit | RosterChange;
 
 /** One row of the day's history. */
 export interface PlanChangeRecord {

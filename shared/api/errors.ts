@@ -53,7 +53,7 @@ export interface ErrorDetails {
   /** 409: redo with nothing undone (or a new action made since the undo). */
   nothing_to_redo: undefined;
   /** 409: undo, redo or a fix found a slot or a staffing changed since the action it reverts or applies. */
-  changed_since: { accession: string; examId: number };
+  changed_since: { accession: string; examId: number } | { rosterDay: string };
   /** 409: the suggested fix no longer applies (the day changed); the gap's fixes were recomputed. */
   fix_stale: undefined;
   /** 409: already recorded: a step ticked, an exam's end, a shift task ticked off (`at`: when). */

@@ -24,6 +24,9 @@ export interface RouteCase {
   send: (c: Client, prepared: unknown) => Promise<Response>;
 }
 
+/** A roster row for the roster routes: two aides in MR 1 (an invented shift). */
+const MATRIX_ROSTER_ROW = { name: null, role: 'aide', count: 2, start: '07:00', end: '15:00', breaks: [], roomIds: [1] };
+
 let counter = 0;
 const unique = () => `Matrix room ${++counter}`;
 
@@ -95,6 +98,11 @@ export const ROUTE_TABLE: RouteCase[] = [
     send: (c, e) => c.put(`/api/exams/${(e as Exam).id}/staffing`, { staff: 2 }),
   },
   { method: 'patch', path: '/api/rooms/:id/staffing', allowed: ['charge', 'admin'], send: (c) => c.patch('/api/rooms/1/staffing', { staff: 1 }) },
+  { method: 'get', path: '/api/days/:date/roster', allowed: 'signed-in', send: (c) => c.get('/api/days/2027-03-10/roster') },
+  { method: 'put', path: '/api/days/:date/roster', allowed: ['charge', 'admin'], send: (c) => c.put('/api/days/2027-03-12/roster', { rows: [MATRIX_ROSTER_ROW] }) },
+  { method: 'delete', path: '/api/days/:date/roster', allowed: ['charge', 'admin'], send: (c) => c.delete('/api/days/2027-03-12/roster') },
+  { method: 'get', path: '/api/roster/weekly', allowed: 'signed-in', send: (c) => c.get('/api/roster/weekly') },
+  { method: 'put', path: '/api/roster/weekly/:weekday', allowed: ['admin'], send: (c) => c.put('/api/roster/weekly/7', { rows: [MATRIX_ROSTER_ROW] }) },
   { method: 'get', path: '/api/days/:date/history', allowed: 'signed-in', send: (c) => c.get('/api/days/2027-03-10/history') },
   { method: 'post', path: '/api/days/:date/undo', allowed: ['scheduler', 'charge', 'admin'], alsoOk: [409], send: (c) => c.post('/api/days/2027-03-10/undo') },
   { method: 'post', path: '/api/days/:date/redo', allowed: ['scheduler', 'charge', 'admin'], alsoOk: [409], send: (c) => c.post('/api/days/2027-03-10/redo') },

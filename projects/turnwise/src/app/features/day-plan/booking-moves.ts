@@ -15,7 +15,7 @@ export function movedByBookingSystem(changes: readonly PlanChangeRecord[]): Read
   for (const record of changes) {
     if (record.undone) continue;
     for (const change of record.changes) {
-      const examId = change.type === 'staffing' ? null : change.examId;
+      const examId = change.type === 'move' || change.type === 'exam' ? change.examId : null;
       if (examId === null || seen.has(examId)) continue;
       seen.add(examId);
       if (record.afterManualChange) flagged.add(examId);

@@ -21,6 +21,7 @@ const REASONS: Readonly<Record<ChangeReason, string>> = {
   'exam edited': 'exam edited',
   'exam cancelled': 'exam cancelled',
   hl7: 'booking system (HL7)',
+  roster: 'roster',
 };
 
 /**

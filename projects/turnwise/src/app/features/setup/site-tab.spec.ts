@@ -8,7 +8,7 @@ import { provideIcons } from '../../core/layout/icons';
 import { errorUnder, refusal, settle, submit, type } from '../../../testing/setup-dialogs';
 import { SiteTab } from './site-tab';
 
-const SETTINGS: SiteSettings = { siteName: 'North Imaging', timezone: 'America/Chicago', snugMarginMinutes: 3, noticesSender: '', dayBeforeNoticeAt: '16:00' };
+const SETTINGS: SiteSettings = { siteName: 'North Imaging', timezone: 'America/Chicago', snugMarginMinutes: 3, noticesSender: '', dayBeforeNoticeAt: '16:00', walkingMinutes: 3 };
 
 async function render() {
   TestBed.configureTestingModule({

@@ -5,13 +5,14 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 
 import { SNUG_MARGIN_MINUTES } from '@shared/api/limits';
+import { WALKING_MINUTES } from '@shared/api/roster';
 import { DEFAULT_SETTINGS, settingsInputSchema, type SiteSettings } from '@shared/api/settings';
 import { action } from '../../core/state/action';
 import { fieldMessage, schemaValidator, submitForm } from './form-problems';
 import { Hl7MappingForm } from './hl7-mapping-form';
 import { SetupApi } from './setup-api';
 
-/** Setup → Site: the department's name, its IANA time zone, the snug margin, the notices sender, the day-before notice's time and the booking feed's mapping. */
+/** Setup → Site: the department's name, its IANA time zone, the snug margin, the walking time between rooms, the notices sender, the day-before notice's time and the booking feed's mapping. */
 @Component({
   selector: 'tw-site-tab',
   imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, Hl7MappingForm],
@@ -39,6 +40,12 @@ import { SetupApi } from './setup-api';
         <input matInput type="number" formControlName="snugMarginMinutes" [min]="snugMargin.min" [max]="snugMargin.max" step="1" required />
         <mat-hint>A gap that fits with less than this to spare is marked snug</mat-hint>
         <mat-error>{{ message('snugMarginMinutes') }}</mat-error>
+      </mat-form-field>
+      <mat-form-field>
+        <mat-label>Walking time between rooms (minutes)</mat-label>
+        <input matInput type="number" formControlName="walkingMinutes" [min]="walking.min" [max]="walking.max" step="1" required />
+        <mat-hint>For the roster: how long a person takes to get from one room to another. 3 is common practice, no source: time your own corridor</mat-hint>
+        <mat-error>{{ message('walkingMinutes') }}</mat-error>
       </mat-form-field>
       <mat-form-field>
         <mat-label>Notices e-mail sender</mat-label>
@@ -72,6 +79,7 @@ export class SiteTab {
   private readonly api = inject(SetupApi);
   protected readonly zones = supportedZones();
   protected readonly snugMargin = SNUG_MARGIN_MINUTES;
+  protected readonly walking = WALKING_MINUTES;
   protected readonly formError = signal<string | null>(null);
   protected readonly saved = signal(false);
   protected readonly loading = signal(true);
@@ -79,12 +87,13 @@ export class SiteTab {
     siteName: ['', [Validators.required, Validators.maxLength(80)]],
     timezone: ['', Validators.required],
     snugMarginMinutes: [3, [Validators.required, Validators.min(SNUG_MARGIN_MINUTES.min), Validators.max(SNUG_MARGIN_MINUTES.max)]],
+    walkingMinutes: [WALKING_MINUTES.default as number, [Validators.required, Validators.min(WALKING_MINUTES.min), Validators.max(WALKING_MINUTES.max)]],
     noticesSender: ['', [Validators.email, Validators.maxLength(254)]],
     dayBeforeNoticeAt: [DEFAULT_SETTINGS.dayBeforeNoticeAt, [Validators.required, schemaValidator(settingsInputSchema(() => true).shape.dayBeforeNoticeAt)]],
   });
   protected readonly saving = action(() => {
     const value = this.form.getRawValue();
-    return this.api.saveSettings({ ...value, noticesSender: value.noticesSender.trim(), snugMarginMinutes: Number(value.snugMarginMinutes) });
+    return this.api.saveSettings({ ...value, noticesSender: value.noticesSender.trim(), snugMarginMinutes: Number(value.snugMarginMinutes), walkingMinutes: Number(value.walkingMinutes) });
   });
 
   constructor() {
@@ -94,6 +103,7 @@ export class SiteTab {
           siteName: settings.siteName,
           timezone: settings.timezone,
           snugMarginMinutes: settings.snugMarginMinutes,
+          walkingMinutes: settings.walkingMinutes ?? WALKING_MINUTES.default,
           noticesSender: settings.noticesSender ?? '',
           dayBeforeNoticeAt: settings.dayBeforeNoticeAt ?? DEFAULT_SETTINGS.dayBeforeNoticeAt,
         });
