@@ -145,7 +145,7 @@ describe('HL7 booking feed: the site mapping', () => {
     expect(ack.text).toContain('OBX TW-PREC (OBX-5) sent precaution "quarantine"');
     expect(ack.text).toContain('Setup');
     expect(await exam('MAP-6')).toBeUndefined();
-    expect(await h.db('hl7_messages').where({ control_id: 'M-6' }).first()).toMatchObject({ ack_code: 'AE', accession: null });
+    expect(await h.db('hl7_messages').where({ control_id: 'M-6' }).first()).toMatchObject({ ack_code: 'AE', accession: 'MAP-6' });
   });
 
   it('a change in Setup holds from the next message on', async () => {

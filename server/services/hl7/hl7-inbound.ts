@@ -58,7 +58,7 @@ export async function receiveHl7(deps: Hl7InboundDeps, raw: string): Promise<str
           return { outcome: { code: seen.ack_code, text: seen.ack_code === 'AA' ? '' : seen.outcome } as Outcome, logId: seen.id, repeat: true };
         }
       }
-      const outcome = read.ok ? await applyOnce(trx, deps, read.booking, header!, now) : ({ code: read.ack, text: read.reason, error: read.error } as Outcome);
+      const outcome = read.ok ? await applyOnce(trx, deps, read.booking, header!, now) : ({ code: read.ack, text: read.reason, error: read.error, accession: read.accession } as Outcome);
       const [{ id: logId }] = await trx('hl7_messages').insert({
         received_at: now.toISOString(),
         last_received_at: now.toISOString(),

@@ -42,7 +42,7 @@ export type Hl7ErrorCode = 100 | 101 | 102 | 103 | 200 | 201 | 204 | 205 | 207;
 
 export type SiuRead =
   | { ok: true; header: Hl7Header; booking: SiuBooking }
-  | { ok: false; ack: 'AR' | 'AE'; error: Hl7ErrorCode; reason: string; header: Hl7Header | null };
+  | { ok: false; ack: 'AR' | 'AE'; error: Hl7ErrorCode; reason: string; header: Hl7Header | null; accession?: string };
 
 /** Segments are ended by CR (chapter 2); senders that write LF or CRLF are read alike. */
 export function hl7Text(raw: string): string {
@@ -88,7 +88,7 @@ export function readSiu(raw: string, mapping: SiuMapping): SiuRead {
     if (!source || sent === undefined || sent === '') continue;
     const ours = ourValue(field, sent, mapping.values[field]);
     // refused, never applied without it: a precaution dropped unseen would plan an isolation case as none
-    if (ours === null) return refuse('AE', 103, unknownValue(field, source, sent));
+    if (ours === null) return { ...refuse('AE', 103, unknownValue(field, source, sent)), accession } as SiuRead;
     given[field] = ours;
   }
   const booking: SiuBooking = {
