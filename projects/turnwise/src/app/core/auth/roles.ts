@@ -65,6 +65,8 @@ export const ABILITIES = {
   moveSlots: ['scheduler', 'charge', 'admin'],
   /** People on a turnover or a room; accept a suggested fix. */
   changeStaffing: ['charge', 'admin'],
+  /** Who is on shift on a day (the roster); every role may read it. */
+  editRoster: ['charge', 'admin'],
   /** Replace a day's list from a file. */
   importDayList: screen('import').roles,
   /** Tick steps, record an exam's end, close a turnover, log cleaning. */

@@ -9,6 +9,7 @@ import { Router, RouterLink } from '@angular/router';
 
 import type { Fix } from '@shared/fixes/model';
 import type { PlanExam, PlannedDay } from '@shared/api/plan';
+import type { DayRoster } from '@shared/api/roster';
 import { AuthService } from '../../core/auth/auth-service';
 import { may } from '../../core/auth/roles';
 import { CautionNote, cautionsForDay } from '../../shared/ui/caution-note';
@@ -23,9 +24,11 @@ import { ExamDialog, type ExamDialogData } from './exam-dialog';
 import { GapPanel } from './gap-panel';
 import { HistoryPanel } from './history-panel';
 import { PatientsToCallPanel } from './patients-to-call-panel';
+import { PeopleView } from './people-view';
 import { gapPeopleWords } from './people-reason';
 import { ProblemGap, problemGaps, stepProblem } from './problem-gaps';
 import { ZOOMS, Zoom } from './timeline-scale';
+import { RosterDialog, type RosterDialogData } from '../roster/roster-dialog';
 
 /**
  * The Day plan: the day's timeline with its summary, filter, zoom, undo/redo, history and live
@@ -36,7 +39,7 @@ import { ZOOMS, Zoom } from './timeline-scale';
   selector: 'tw-day-plan',
   imports: [
     MatButtonModule, MatButtonToggleModule, MatIconModule, MatProgressBarModule, MatSlideToggleModule, RouterLink,
-    BandLegend, CautionNote, DayPicker, DayTimeline, GapPanel, HistoryPanel, LiveIndicator, PatientsToCallPanel, VerdictSummary,
+    BandLegend, CautionNote, DayPicker, DayTimeline, GapPanel, HistoryPanel, LiveIndicator, PatientsToCallPanel, PeopleView, VerdictSummary,
   ],
   providers: [DayPlanStore],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -63,10 +66,16 @@ export class DayPlan {
   protected readonly zoom = signal<Zoom>('4h');
   protected readonly onlyProblems = signal(false);
   protected readonly historyOpen = signal(false);
+  /** A lane per room, or (when the day has a roster) a lane per person. */
+  protected readonly view = signal<'rooms' | 'people'>('rooms');
+  protected readonly hasRoster = computed(() => !!this.store.plan()?.people);
+  /** The view drawn: back to the rooms when the day has no roster (another day, or the roster removed). */
+  protected readonly shownView = computed(() => (this.hasRoster() ? this.view() : 'rooms'));
   /** The gap shown in the panel, by the exam it leads to. */
   protected readonly selectedGap = signal<number | null>(null);
 
   private readonly timeline = viewChild(DayTimeline);
+  private readonly peopleView = viewChild(PeopleView);
   /** The day's snug, short and overlapping gaps in time order, and which of them is open. */
   protected readonly problems = computed(() => {
     const plan = this.store.plan();
@@ -124,8 +133,8 @@ export class DayPlan {
   protected closeGap(): void {
     const toExamId = this.selectedGap();
     this.selectedGap.set(null);
-    // Back to where the keyboard was: the gap's marker on the timeline.
-    afterNextRender(() => document.querySelector<HTMLElement>(`[data-gap-to="${toExamId}"]`)?.focus(), { injector: this.injector });
+    // Back to where the keyboard was: the gap's marker on the timeline, or its work in the people view.
+    afterNextRender(() => document.querySelector<HTMLElement>(`[data-gap-to="${toExamId}"], [data-work-to="${toExamId}"]`)?.focus(), { injector: this.injector });
   }
 
   /** Adds an exam (none given) or edits or cancels one, in a dialog; its answer is the day's new plan. */
@@ -141,6 +150,19 @@ export class DayPlan {
       .afterClosed()
       .subscribe((answer) => {
         if (answer) void this.store.accept(answer);
+      });
+  }
+
+  /** Who is on shift (read-only for a role that may not change it); a saved roster replans the day. */
+  protected openRoster(): void {
+    const plan = this.store.plan();
+    if (!plan) return;
+    const data: RosterDialogData = { date: plan.date, rooms: plan.rooms.map((room) => ({ id: room.id, name: room.name })), readOnly: !may(this.role(), 'editRoster') };
+    this.dialog
+      .open<RosterDialog, RosterDialogData, DayRoster>(RosterDialog, { data, width: '64rem', maxWidth: '96vw', autoFocus: 'dialog' })
+      .afterClosed()
+      .subscribe((saved) => {
+        if (saved) this.store.reload();
       });
   }
 
@@ -162,7 +184,8 @@ export class DayPlan {
 
   private openProblem(problem: ProblemGap): void {
     this.selectedGap.set(problem.gap.toExamId);
-    this.timeline()?.reveal(problem.room.id, problem.gap.toExamId);
+    if (this.shownView() === 'people') this.peopleView()?.reveal(problem.gap.toExamId);
+    else this.timeline()?.reveal(problem.room.id, problem.gap.toExamId);
   }
 
   protected onShortcut(event: KeyboardEvent): void {
