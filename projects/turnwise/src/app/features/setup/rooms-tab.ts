@@ -15,8 +15,9 @@ import { RoomDialog } from './room-dialog';
 import { weekSummary } from './room-week';
 import { SetupApi } from './setup-api';
 import { tableView } from './table-view';
+import { WeeklyRosterDialog } from '../roster/weekly-roster-dialog';
 
-/** Setup → Rooms: every room, retired ones too, with edit, kit and retire. */
+/** Setup → Rooms: every room, retired ones too, with edit, kit and retire; and the weekly roster of who covers them. */
 @Component({
   selector: 'tw-rooms-tab',
   imports: [MatButtonModule, MatFormFieldModule, MatInputModule, MatSortModule, MatTableModule],
@@ -27,6 +28,7 @@ import { tableView } from './table-view';
         <mat-label>Filter rooms</mat-label>
         <input matInput (input)="view.setFilter($any($event.target).value)" />
       </mat-form-field>
+      <button mat-stroked-button type="button" class="weekly-roster" (click)="weeklyRoster()">Weekly roster</button>
       <button mat-flat-button type="button" (click)="edit(null)">Add a room</button>
     </div>
     @if (message(); as text) {
@@ -107,6 +109,11 @@ export class RoomsTab {
   protected async edit(room: SetupRoom | null): Promise<void> {
     const saved = await firstValueFrom(this.dialog.open(RoomDialog, { data: room, autoFocus: 'first-tabbable' }).afterClosed());
     if (saved) this.rooms.reload();
+  }
+
+  /** Who is usually on shift each weekday, and which rooms they cover. */
+  protected weeklyRoster(): void {
+    this.dialog.open(WeeklyRosterDialog, { width: '64rem', maxWidth: '96vw', autoFocus: 'dialog' });
   }
 
   protected async kit(room: SetupRoom): Promise<void> {
