@@ -174,7 +174,7 @@ export function personLaneView(person: PlanPerson, plan: DayPlan, scale: Timelin
       toExamId: p.work.toExamId,
       roomId: p.work.roomId,
       room,
-      accession: width >= 48 ? blockAccession(accession, width) : '',
+      accession: workAccession(accession, width),
       showRoom: width >= ROOM_PX,
       left,
       width,
@@ -235,6 +235,21 @@ function walksMs(pieces: readonly { work: { roomId: number }; startMs: number; e
     if (next.work.roomId !== here.work.roomId && next.startMs >= here.endMs) out.push([here.endMs, Math.min(here.endMs + walkMs, next.startMs)]);
   }
   return out;
+}
+
+/** A 12 px character of the block's label text, and its padding and edges, in pixels. */
+const WORK_CHAR_PX = 7;
+const WORK_INSET_PX = 12;
+
+/**
+ * The accession as a work block can show it: whole when it fits, else its end after an ellipsis
+ * cut where a part begins, as on the room timeline; '' below four characters.
+ */
+export function workAccession(accession: string, width: number): string {
+  const chars = Math.floor((width - WORK_INSET_PX) / WORK_CHAR_PX);
+  if (accession.length <= chars) return accession;
+  // The room timeline's cut (whole parts of the accession), for as many characters as fit here.
+  return chars >= 4 ? blockAccession(accession, chars * 8 + 16) : '';
 }
 
 /** "short by 6 min", "fits". */
