@@ -22,7 +22,10 @@ export interface HelperSlot {
 
 export interface ClusterModel {
   lp: LpWriter;
-  /** Objectives in lexicographic order: gaps left, exams moved, minutes moved, day's end, helpers. */
+  /**
+   * Objectives solved in turn: gaps left, exams moved, then one weighted objective for minutes
+   * moved, the day's end and helpers added (see `tail`).
+   */
   levels: Term[][];
   decode(values: ReadonlyMap<string, number>): ClusterSolution;
 }
@@ -33,7 +36,6 @@ export interface ClusterSolution {
   helpers: Map<number, HelperSlot>;
 }
 
-export const LEVEL_NAMES = ['gaps left', 'exams moved', 'minutes moved', "day's end", 'helpers added'] as const;
 
 /**
  * The MIP of one cluster. Decision space: each free exam's room (same modality, open) and start
@@ -84,7 +86,8 @@ export function clusterModel(
     for (let b = a + 1; b < n; b++) {
       const i = items[a]!;
       const j = items[b]!;
-      if (!i.free && !j.free && i.fe.roomId !== j.fe.roomId) continue;
+      // Two exams that both stay: their gap is what it is (the remaining gaps report it).
+      if (!i.free && !j.free) continue;
       const common = shares(i, j);
       if (common.length === 0) continue;
       for (const r of common) {
@@ -129,8 +132,9 @@ export function clusterModel(
     const v = lp.variable(`v${k}`, 'continuous', 0);
     moved.push([1, m]);
     minutes.push([1, v]);
-    lp.row([[1, s(k)], [-M, m]], '<=', start);
-    lp.row([[1, s(k)], [M, m]], '>=', start);
+    // Big-M as small as the window allows: a tight relaxation is what makes the solves fast.
+    lp.row([[1, s(k)], [-Math.max(0, it.hi - start), m]], '<=', start);
+    lp.row([[1, s(k)], [Math.max(0, start - it.lo), m]], '>=', start);
     lp.row([[1, v], [-1, s(k)]], '>=', -start);
     lp.row([[1, v], [1, s(k)]], '>=', start);
     const own = it.rooms.find((r) => r.room.id === it.fe.roomId);
@@ -145,8 +149,11 @@ export function clusterModel(
     // Hours of the room it is in (hard: a proposal never leaves a room's hours).
     for (const r of it.rooms) {
       const Y = inRoom(k, r);
-      lp.row([[1, s(k)], ...Y.terms.map(([c, x]) => [-M * c, x] as const)], '>=', r.open - M + M * Y.constant);
-      lp.row([[1, s(k)], ...Y.terms.map(([c, x]) => [M * c, x] as const)], '<=', r.close - duration + M - M * Y.constant);
+      if (Y.constant === 1) continue; // its only room: the bounds lo..hi already keep it within the hours
+      const below = r.open - it.lo;
+      const above = it.hi - (r.close - duration);
+      if (below > 0) lp.row([[1, s(k)], ...Y.terms.map(([c, x]) => [-below * c, x] as const)], '>=', r.open - below);
+      if (above > 0) lp.row([[1, s(k)], ...Y.terms.map(([c, x]) => [above * c, x] as const)], '<=', r.close - duration + above);
     }
   }
 
@@ -214,9 +221,11 @@ export function clusterModel(
     for (const r of it.rooms) {
       const { r0, r1 } = req(r, null, it.fe.exam);
       const Y = inRoom(k, r);
-      const terms: Term[] = [[1, s(k)], [M, u(k)], ...Y.terms.map(([c, x]) => [-M * c, x] as const)];
+      const Mk = r.open + r0 - it.lo;
+      if (Mk <= 0) continue; // never binding
+      const terms: Term[] = [[1, s(k)], [Mk, u(k)], ...Y.terms.map(([c, x]) => [-Mk * c, x] as const)];
       if (r1 !== null) for (const [, h] of helperOf.get(k) ?? []) terms.push([r0 - r1, h]);
-      lp.row(terms, '>=', r.open + r0 - M + M * Y.constant);
+      lp.row(terms, '>=', r.open + r0 - Mk + Mk * Y.constant);
     }
   }
 
@@ -234,19 +243,19 @@ export function clusterModel(
       if (ij && ji && !o) o = lp.variable(`o${a}_${b}`, 'binary');
       const Yi = inRoom(a, r);
       const Yj = inRoom(b, r);
-      const both: Term[] = [...Yi.terms, ...Yj.terms].map(([c, x]) => [-M * c, x] as const);
-      const yConst = M * (Yi.constant + Yj.constant) - 2 * M;
       const write = (first: number, second: number, sign: 1 | -1 | 0) => {
         const F = items[first]!;
         const S = items[second]!;
         const { r0, r1 } = req(r, F.fe.exam, S.fe.exam);
-        // Never binding: the second can start no earlier than the first's latest end plus the turnover.
-        if (sign === 0 && S.lo >= F.hi + F.fe.duration + r0) return;
-        const terms: Term[] = [[1, s(second)], [-1, s(first)], [M, u(second)], ...both];
+        // The most the row can be violated by: its big-M (never binding when not positive).
+        const Mp = F.hi + F.fe.duration + r0 - S.lo;
+        if (Mp <= 0) return;
+        const both: Term[] = [...Yi.terms, ...Yj.terms].map(([c, x]) => [-Mp * c, x] as const);
+        const terms: Term[] = [[1, s(second)], [-1, s(first)], [Mp, u(second)], ...both];
         if (r1 !== null) for (const [, h] of helperOf.get(second) ?? []) terms.push([r0 - r1, h]);
-        let rhs = F.fe.duration + r0 + yConst;
-        if (sign === 1) { terms.push([-M, o!]); rhs -= M; } // first = i when o = 1
-        if (sign === -1) terms.push([M, o!]); // first = j when o = 0
+        let rhs = F.fe.duration + r0 + Mp * (Yi.constant + Yj.constant) - 2 * Mp;
+        if (sign === 1) { terms.push([-Mp, o!]); rhs -= Mp; } // first = i when o = 1
+        if (sign === -1) terms.push([Mp, o!]); // first = j when o = 0
         lp.row(terms, '>=', rhs);
       };
       if (ij && ji) {
@@ -259,7 +268,7 @@ export function clusterModel(
 
   return {
     lp,
-    levels: [gapsLeft, moved, minutes, [[1, 'z']], helperTerms],
+    levels: [gapsLeft, moved, tail(minutes, helperTerms, hi - lo)],
     decode(values) {
       const places = new Map<number, { roomId: number; start: number }>();
       const helpers = new Map<number, HelperSlot>();
@@ -277,4 +286,22 @@ export function clusterModel(
       return { places, helpers };
     },
   };
+}
+
+/**
+ * Minutes moved, then the day's end, then helpers, as one objective with weights that keep the
+ * order exact. Each is a whole number (starts are whole minutes; z settles on the latest end,
+ * a whole minute): helpers h ∈ [0, H], the end z − lo ∈ [0, T], minutes ≥ 0. With weights
+ * (T+1)(H+1) for minutes and H+1 for the end, one minute more outweighs the largest possible
+ * difference of the rest, T(H+1) + H = (T+1)(H+1) − 1, and one minute of end outweighs H
+ * helpers; so the weighted minimum is the lexicographic one. The products stay far below 2^53
+ * and, with a zero relative and a 0.5 absolute MIP gap, "optimal" is exact.
+ */
+function tail(minutes: Term[], helpers: Term[], T: number): Term[] {
+  const H = helpers.length;
+  return [
+    ...minutes.map(([c, v]) => [c * (T + 1) * (H + 1), v] as const),
+    [H + 1, 'z'],
+    ...helpers,
+  ];
 }

@@ -5,6 +5,10 @@ import type { FitDay, FitExam, FitGroup, FitRoom } from './instance';
 export interface Reach {
   neighbours: number;
   shiftMinutes: number;
+  /** Rooms an exam may move among (its own block of this many, in id order). */
+  roomsPerBlock: number;
+  /** Free exams in one cluster at most. */
+  maxFree: number;
 }
 
 /** Every free exam of the group may go anywhere in the group's hours: one cluster, the exact model. */
@@ -38,26 +42,38 @@ export function neighbourhoods(day: FitDay, group: FitGroup, seeds: ReadonlySet<
       }
     });
   }
+  // Moves to another room stay within a block of rooms (ids in order), so clusters stay small.
+  const blockOf = new Map(group.rooms.map((r, k) => [r.room.id, Math.floor(k / reach.roomsPerBlock)]));
   const free = group.exams
     .filter((fe) => freeIds.has(fe.exam.id))
-    .map((fe) => freeItem(fe, group.rooms, fe.start - reach.shiftMinutes, fe.start + reach.shiftMinutes))
+    .map((fe) => freeItem(fe, group.rooms.filter((r) => blockOf.get(r.room.id) === blockOf.get(fe.roomId)), fe.start - reach.shiftMinutes, fe.start + reach.shiftMinutes))
     .filter((it) => it.rooms.length > 0)
-    .sort((a, b) => a.lo - b.lo);
+    .sort((a, b) => blockOf.get(a.fe.roomId)! - blockOf.get(b.fe.roomId)! || a.lo - b.lo);
   const pad = longestTurnover(day, group) + 1;
-  // Sweep: free exams whose reach (plus a turnover) meets fall in one cluster.
+  // Sweep, block by block: free exams whose reach (plus a turnover) meets fall in one cluster, up
+  // to `maxFree`; a longer run is cut, and the later part is solved after the earlier, with the
+  // earlier one's exams as constants at their new places (solveGroup refreshes them).
   const clusters: ClusterItem[][] = [];
   let end = -Infinity;
+  let block = -1;
   for (const it of free) {
-    if (it.lo - pad > end || clusters.length === 0) clusters.push([]);
+    const current = clusters[clusters.length - 1];
+    const b = blockOf.get(it.fe.roomId)!;
+    if (!current || b !== block || it.lo - pad > end || current.length >= reach.maxFree) {
+      clusters.push([]);
+      end = -Infinity;
+    }
+    block = b;
     clusters[clusters.length - 1]!.push(it);
     end = Math.max(end, it.hi + it.fe.duration + pad);
   }
   return clusters.map((items) => {
-    const from = Math.min(...items.map((it) => it.lo)) - pad;
-    const to = Math.max(...items.map((it) => it.hi + it.fe.duration)) + pad;
+    const from = Math.min(...items.map((it) => it.lo)) - pad - reach.shiftMinutes;
+    const to = Math.max(...items.map((it) => it.hi + it.fe.duration)) + pad + reach.shiftMinutes;
     const ids = new Set(items.map((it) => it.fe.exam.id));
+    const rooms = new Set(items.flatMap((it) => it.rooms.map((r) => r.room.id)));
     const context = group.exams
-      .filter((fe) => !ids.has(fe.exam.id) && fe.start + fe.duration >= from && fe.start <= to)
+      .filter((fe) => !ids.has(fe.exam.id) && rooms.has(fe.roomId) && fe.start + fe.duration >= from && fe.start <= to)
       .map((fe) => fixedItem(fe, group.rooms));
     return [...items, ...context];
   });
@@ -70,7 +86,7 @@ function freeItem(fe: FitExam, rooms: readonly FitRoom[], from: number, to: numb
   return { fe, free: true, lo, hi, rooms: fits };
 }
 
-function fixedItem(fe: FitExam, rooms: readonly FitRoom[]): ClusterItem {
+export function fixedItem(fe: FitExam, rooms: readonly FitRoom[]): ClusterItem {
   return { fe, free: false, lo: fe.start, hi: fe.start, rooms: rooms.filter((r) => r.room.id === fe.roomId) };
 }
 

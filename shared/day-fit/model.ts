@@ -50,7 +50,7 @@ export interface DayFitOptions {
    * an enumeration on the same grid). Default 1: whole minutes.
    */
   gridMinutes?: number;
-  /** A modality group with at most this many exams is solved whole (exact); larger ones by neighbourhoods. Default 36. */
+  /** A modality group with at most this many exams is solved whole (exact); larger ones by neighbourhoods. Default 12. */
   wholeGroupLimit?: number;
   /** Clock for the budget; default Date.now. */
   now?: () => number;

@@ -5,7 +5,7 @@ import { isProblemVerdict } from '../fixes/room-gaps';
 import { wallTimeToMillis } from '../turnover/zoned-time';
 import type { DayPlanInput } from '../turnover/day-plan-input';
 import { clusterModel, type ClusterItem, type ClusterSolution, type HelperSlot } from './cluster-model';
-import { neighbourhoods, wholeGroup, type Reach } from './clusters';
+import { fixedItem, neighbourhoods, wholeGroup, type Reach } from './clusters';
 import { fitDay, type FitDay, type FitExam, type FitGroup } from './instance';
 import { lpRow, type Term } from './lp-writer';
 import type { DayFitOptions, DayFitProposal, FitCall, FitExamMove, FitHelperUse, MipResult, MipSolve } from './model';
@@ -13,8 +13,9 @@ import { remainingGaps } from './remaining';
 
 /** Larger neighbourhoods tried in turn for a group too large to solve whole. */
 const REACHES: readonly Reach[] = [
-  { neighbours: 1, shiftMinutes: 60 },
-  { neighbours: 3, shiftMinutes: 180 },
+  { neighbours: 0, shiftMinutes: 30, roomsPerBlock: 4, maxFree: 6 },
+  { neighbours: 1, shiftMinutes: 90, roomsPerBlock: 4, maxFree: 8 },
+  { neighbours: 3, shiftMinutes: 180, roomsPerBlock: 4, maxFree: 10 },
 ];
 
 interface SolveTally {
@@ -29,8 +30,8 @@ interface SolveTally {
  * The whole-day proposal: changes (start shifts within hours, moves to another open room of the
  * same modality, helpers from spare people, isolation cases anywhere including last) that leave
  * no `short` or `overlap` gap, minimising lexicographically the gaps left, exams moved, minutes
- * patients are moved, the day's end and helpers added — one MIP solve per level, each level's
- * optimum kept as a bound for the next. Fixed exams never move.
+ * patients are moved, the day's end and helpers added — solved in turn (the last three as one
+ * safely weighted objective), each optimum kept as a bound for the next. Fixed exams never move.
  *
  * @throws RangeError on a bad date, zone or start (as the day plan does)
  * @example
@@ -72,7 +73,7 @@ function solveGroup(
   const now = options.now ?? Date.now;
   const result: ClusterSolution = { places: new Map(), helpers: new Map() };
   const model = (items: ClusterItem[]) => clusterModel(day, group.rooms, items, slots, { grid: options.gridMinutes ?? 1, walkingMinutes: options.walkingMinutes ?? 0 });
-  if (group.exams.length <= (options.wholeGroupLimit ?? 36)) {
+  if (group.exams.length <= (options.wholeGroupLimit ?? 12)) {
     const [items] = wholeGroup(group);
     tally.clusters++;
     const solved = solveLevels(model(items!), mip, tally, deadline, now);
@@ -84,13 +85,20 @@ function solveGroup(
   for (let tier = 0; tier < REACHES.length && seeds.size > 0; tier++) {
     const clusters = neighbourhoods(day, view, seeds, REACHES[tier]!);
     const unresolved = new Set<number>();
-    clusters.forEach((items, index) => {
+    clusters.forEach((clusterItems, index) => {
       tally.clusters++;
+      // Exams an earlier cluster placed are constants at their new places.
+      const items = clusterItems.map((it) => {
+        const place = it.free ? undefined : result.places.get(it.fe.exam.id);
+        return place ? fixedItem({ ...it.fe, start: place.start, roomId: place.roomId, stays: 'proposed' }, group.rooms) : it;
+      });
       const budget = (deadline - now()) / (clusters.length - index);
-      const solved = solveLevels(model(items), mip, tally, now() + Math.max(100, budget), now);
       const clusterSeeds = items.filter((it) => seeds.has(it.fe.exam.id)).map((it) => it.fe.exam.id);
-      if (!solved || (solved.gapsLeft > 0 && tier < REACHES.length - 1)) {
-        for (const id of clusterSeeds) unresolved.add(id);
+      if (now() >= deadline) return;
+      const solved = solveLevels(model(items), mip, tally, now() + Math.max(100, budget), now);
+      const last = tier === REACHES.length - 1;
+      if (!solved || (solved.gapsLeft > 0 && !last) || (solved.gapsLeft > 0 && !better(day, group, result.places, solved.solution))) {
+        if (!last) for (const id of clusterSeeds) unresolved.add(id);
         return;
       }
       for (const [id, place] of solved.solution.places) result.places.set(id, place);
@@ -120,18 +128,30 @@ function solveLevels(
   const bounds: ReturnType<typeof lpRow>[] = [];
   let best: ReadonlyMap<string, number> | null = null;
   let gapsLeft = 0;
-  const levels = m.levels.map((terms, index) => ({ terms, index })).filter(({ terms }) => terms.length > 0);
-  for (let k = 0; k < levels.length; k++) {
-    const { terms, index } = levels[k]!;
-    const seconds = Math.max(0.05, (deadline - now()) / 1000 / (levels.length - k));
-    const answer: MipResult = mip(m.lp.text(terms, bounds), seconds);
+  const levels = m.levels.map((terms, index) => ({ terms, index }));
+  const run = (terms: readonly Term[], extra: ReturnType<typeof lpRow>[], share: number): MipResult => {
+    const seconds = Math.max(0.05, ((deadline - now()) / 1000) * share);
+    const answer = mip(m.lp.text(terms, extra), seconds);
     tally.solves++;
-    if (!answer.values) {
-      if (answer.status === 'time-limit') tally.timeLimited = true;
-      break;
-    }
-    if (answer.status !== 'optimal') tally.timeLimited = true;
-    tally.mipGap = Math.max(tally.mipGap, answer.mipGap);
+    if (answer.status === 'time-limit' || (answer.values && answer.status !== 'optimal')) tally.timeLimited = true;
+    if (answer.values) tally.mipGap = Math.max(tally.mipGap, answer.mipGap);
+    return answer;
+  };
+  // First with every gap cleared (no gap left): the usual case, and a much tighter model.
+  let k = 1;
+  const cleared = lpRow(levels[0]!.terms, '<=', 0);
+  const first = run(levels[1]!.terms, [cleared], 1 / (levels.length - 1));
+  if (first.values) {
+    best = first.values;
+    bounds.push(cleared, lpRow(levels[1]!.terms, '<=', Math.round(valueOf(levels[1]!.terms, best)) + 1e-6));
+    k = 2;
+  } else {
+    k = 0;
+  }
+  for (; k < levels.length; k++) {
+    const { terms, index } = levels[k]!;
+    const answer = run(terms, bounds, 1 / (levels.length - k));
+    if (!answer.values) break;
     best = answer.values;
     const value = valueOf(terms, best);
     if (index === 0) gapsLeft = Math.round(value);
@@ -228,4 +248,24 @@ function judgedBefore(day: FitDay, roomId: number): number | null {
   const exams = day.input.exams.filter((e) => e.roomId === roomId).map((e) => ({ id: e.id, at: day.minuteOf(e.start) }));
   exams.sort((a, b) => a.at - b.at || a.id - b.id);
   return exams.length ? exams[exams.length - 1]!.id : null;
+}
+
+/**
+ * A cluster that cannot clear every gap is kept only when the engine counts fewer problem gaps
+ * in the group's rooms with it than without it (its "gap left" relaxation says nothing of the
+ * gaps it would make).
+ */
+function better(day: FitDay, group: FitGroup, placed: ReadonlyMap<number, { roomId: number; start: number }>, solution: ClusterSolution): boolean {
+  const movesOf = (places: ReadonlyMap<number, { roomId: number; start: number }>): PlanChange[] =>
+    [...places].map(([examId, to]) => {
+      const exam = day.input.exams.find((e) => e.id === examId)!;
+      return { type: 'move', examId, accession: exam.accession, from: { roomId: exam.roomId, start: exam.start }, to: { roomId: to.roomId, start: day.toIso(to.start) } };
+    });
+  const roomIds = new Set(group.rooms.map((r) => r.room.id));
+  const input = { ...day.input, rooms: day.input.rooms.filter((r) => roomIds.has(r.id)), exams: day.input.exams.filter((e) => roomIds.has(e.roomId)) };
+  const problems = (places: ReadonlyMap<number, { roomId: number; start: number }>) => {
+    const judged = fixDay(withChanges(input, movesOf(places)));
+    return input.rooms.reduce((n, r) => n + judged.judged(r.id).gaps.filter((g) => isProblemVerdict(g.verdict)).length, 0);
+  };
+  return problems(new Map([...placed, ...solution.places])) < problems(placed);
 }

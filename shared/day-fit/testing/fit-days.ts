@@ -7,7 +7,7 @@ import type { FixedReason } from '../model';
  * An invented working day for "make the day fit" (no real rooms or exams): `rooms` rooms of MR
  * and CT (three MR to one CT), open 07:00–19:00 in America/Chicago, about `examsPerRoom` exams
  * each, booked one after another with turnovers mostly long enough and now and then too short
- * (a scheduler's day), some isolation cases and coil changes; a few exams fixed.
+ * (a scheduler's day), MR rooms with two people, some isolation cases and coil changes; a few exams fixed.
  *
  * @example
  * const { input, fixed } = fitWorkDay(1, { rooms: 4, examsPerRoom: 20 }); // 80 exams
@@ -21,7 +21,7 @@ export function fitWorkDay(seed: number, size: { rooms: number; examsPerRoom: nu
     id: 1 + i,
     name: `${i % 4 === 3 ? 'CT' : 'MR'} ${i + 1}`,
     modality: i % 4 === 3 ? 'CT' : 'MR',
-    staff: 1,
+    staff: i % 4 === 3 ? 1 : 2,
     airChangesPerHour: 12,
     opensAt: '07:00',
     closesAt: '19:00',
