@@ -4,7 +4,11 @@ import type { RosterChange } from '../../shared/api/changes';
 import { dayRosterInputSchema, ROSTER_LIMITS, WALKING_MINUTES, type DayRoster, type RosterRow, type RosterSource, type WeeklyRoster } from '../../shared/api/roster';
 import { expandRoster } from '../../shared/roster/expand';
 import type { DayPlanRoster } from '../../shared/turnover/day-plan-input';
-import { Refusal, ValidationError } from '../errors';
+import { HttpError, Refusal, ValidationError } from '../errors';
+import { parseRosterTable } from '../../shared/roster/roster-file';
+import { readExamFile, type UploadedExamFile } from './exam-file';
+import { unreadableFile } from './file-refusal';
+import { listRooms } from './rooms';
 import { recordAudit, type Actor } from './audit';
 import { recordChange } from './plan-changes';
 import { weekdayOf } from './room-hours';
@@ -189,4 +193,50 @@ export async function saveWeeklyRoster(db: Knex, weekday: number, rows: RosterRo
     );
   });
   return readWeeklyRoster(db);
+}
+
+/** A roster file is a few dozen rows: bounded well below an exam list. */
+export const ROSTER_FILE_MAX_BYTES = 256 * 1024;
+
+export interface RosterFileAnswer {
+  dryRun: boolean;
+  rows: RosterRow[];
+  /** The day's roster after a commit; null for a preview. */
+  roster: DayRoster | null;
+}
+
+/**
+ * Reads a roster file (CSV or .xlsx, `shared/roster/roster-file.ts`) for a day: a preview
+ * (`dryRun`) answers its rows; a commit saves them as the day's roster (history entry, version).
+ * A file with any bad row is refused whole: 422 `validation_failed` with `errors:[{row, column,
+ * message}]`, as the exam list is.
+ *
+ * @example
+ * await importRosterFile(db, { day, file, userId, dryRun: true, now }); // { dryRun: true, rows, roster: null }
+ */
+export async function importRosterFile(
+  db: Knex,
+  request: { day: string; file: UploadedExamFile; userId: number; dryRun: boolean; now: Date },
+): Promise<RosterFileAnswer> {
+  let table: string[][];
+  try {
+    table = await readExamFile(request.file);
+  } catch (error) {
+    // The exam list's reader words a header-only file for exams; a roster lists people.
+    if (error instanceof HttpError && /header row but no exams/.test(error.message)) {
+      throw unreadableFile('The file has a header row but no people.');
+    }
+    throw error;
+  }
+  const parsed = parseRosterTable(table, await listRooms(db));
+  if (parsed.errors) {
+    const shown = parsed.errors.slice(0, 200);
+    throw new ValidationError(
+      `The roster file has ${parsed.errors.length} ${parsed.errors.length === 1 ? 'problem' : 'problems'}; nothing was imported.`,
+      { problems: shown.map((e) => ({ field: `row ${e.row}, ${e.column}`, message: e.message })) },
+      { errors: shown, errorCount: parsed.errors.length },
+    );
+  }
+  if (request.dryRun) return { dryRun: true, rows: parsed.rows, roster: null };
+  return { dryRun: false, rows: parsed.rows, roster: await saveDayRoster(db, request.day, parsed.rows, request.userId, request.now) };
 }

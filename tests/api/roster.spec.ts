@@ -192,4 +192,46 @@ describe('roster API', () => {
     expect((await scheduler.get(`/api/days/${DAY}/roster`)).body.roster.walkingMinutes).toBe(0);
     await admin.put('/api/settings', { timezone: site.timezone, snugMarginMinutes: 3, walkingMinutes: 3 });
   });
+
+  describe('roster file', () => {
+    const csv = (lines: string[]) => lines.join('\r\n') + '\r\n';
+
+    it('previews a good file (dryRun) without saving, then imports it as the day\'s roster', async () => {
+      const file = csv(['name,role,count,start,end,breaks,rooms', 'Sam Example,technologist,,07:00,15:30,11:00-11:30,MR 1', ',aide,2,07:00,15:00,,MR 1 + MR 2']);
+      const before = (await charge.get(`/api/days/${DAY}/roster`)).body.roster;
+      const preview = await charge.upload(`/api/days/${DAY}/roster/import?dryRun=true`, file, 'roster.csv');
+      expect(preview.status).toBe(200);
+      expect(preview.body).toMatchObject({ dryRun: true, roster: null });
+      expect(preview.body.rows).toHaveLength(2);
+      expect((await charge.get(`/api/days/${DAY}/roster`)).body.roster).toEqual(before);
+
+      const done = await charge.upload(`/api/days/${DAY}/roster/import`, file, 'roster.csv');
+      expect(done.status).toBe(200);
+      expect(done.body.roster).toMatchObject({ source: 'day' });
+      expect(done.body.roster.people.map((p: { label: string }) => p.label)).toEqual(['Sam Example', 'Aide 1', 'Aide 2']);
+    });
+
+    it('refuses a file with bad rows whole, every problem by row and column (422)', async () => {
+      const before = (await charge.get(`/api/days/${DAY}/roster`)).body.roster;
+      const res = await charge.upload(`/api/days/${DAY}/roster/import`, csv(['role,start,end,rooms', 'porter,07:00,15:00,MR 1', 'aide,15:00,07:00,MR 7']), 'roster.csv');
+      expect(res.status).toBe(422);
+      expect(res.body.errors).toEqual([
+        { row: 2, column: 'role', message: 'a role is technologist or aide' },
+        { row: 3, column: 'rooms', message: 'no room "MR 7" is set up (or it is retired)' },
+        { row: 3, column: 'end', message: 'the shift must end after it starts' },
+      ]);
+      expect(res.body.errorCount).toBe(3);
+      expect((await charge.get(`/api/days/${DAY}/roster`)).body.roster).toEqual(before);
+    });
+
+    it('refuses a header-only file, a binary one and one over the size limit with a clear error', async () => {
+      const empty = await charge.upload(`/api/days/${DAY}/roster/import`, 'role,start,end,rooms\n', 'roster.csv');
+      expect(empty.status).toBe(422);
+      expect(empty.body.error.message).toBe('The file has a header row but no people.');
+      expect((await charge.upload(`/api/days/${DAY}/roster/import`, Buffer.from([0, 1, 2, 3, 0, 0]), 'roster.csv')).status).toBe(415);
+      const big = await charge.upload(`/api/days/${DAY}/roster/import`, 'x'.repeat(300 * 1024), 'roster.csv');
+      expect(big.status).toBe(413);
+      expect(big.body.error.code).toBe('file_limit_exceeded');
+    });
+  });
 });

@@ -101,6 +101,12 @@ export const ROUTE_TABLE: RouteCase[] = [
   { method: 'get', path: '/api/days/:date/roster', allowed: 'signed-in', send: (c) => c.get('/api/days/2027-03-10/roster') },
   { method: 'put', path: '/api/days/:date/roster', allowed: ['charge', 'admin'], send: (c) => c.put('/api/days/2027-03-12/roster', { rows: [MATRIX_ROSTER_ROW] }) },
   { method: 'delete', path: '/api/days/:date/roster', allowed: ['charge', 'admin'], send: (c) => c.delete('/api/days/2027-03-12/roster') },
+  {
+    method: 'post',
+    path: '/api/days/:date/roster/import?dryRun=true',
+    allowed: ['charge', 'admin'],
+    send: (c) => c.upload('/api/days/2027-03-12/roster/import?dryRun=true', 'role,count,start,end,rooms\naide,2,07:00,15:00,MR 1\n', 'roster.csv'),
+  },
   { method: 'get', path: '/api/roster/weekly', allowed: 'signed-in', send: (c) => c.get('/api/roster/weekly') },
   { method: 'put', path: '/api/roster/weekly/:weekday', allowed: ['admin'], send: (c) => c.put('/api/roster/weekly/7', { rows: [MATRIX_ROSTER_ROW] }) },
   { method: 'get', path: '/api/days/:date/history', allowed: 'signed-in', send: (c) => c.get('/api/days/2027-03-10/history') },
