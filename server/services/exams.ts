@@ -20,6 +20,7 @@ export interface ExamRow {
   contrast: number | boolean;
   notes: string | null;
   version: number;
+  pinned?: number | boolean;
 }
 
 export function toPlanExam(row: ExamRow): DayPlanExam {
@@ -36,6 +37,7 @@ export function toPlanExam(row: ExamRow): DayPlanExam {
     contrast: Boolean(row.contrast),
     notes: row.notes,
     version: row.version,
+    ...(row.pinned ? { pinned: true } : {}),
   };
 }
 

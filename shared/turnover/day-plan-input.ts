@@ -30,6 +30,8 @@ export interface DayPlanExam {
   contrast: boolean;
   notes?: string | null;
   version: number;
+  /** Pinned by a user: "make the day fit" never moves it. */
+  pinned?: boolean;
 }
 
 export interface DayPlanInput {

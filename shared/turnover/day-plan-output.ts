@@ -80,5 +80,6 @@ export function toPlanExam({ exam, startMs, endMs }: DayPlanSlot, format: ZonedF
     notes: exam.notes ?? null,
     version: exam.version,
     outsideHours,
+    ...(exam.pinned ? { pinned: true } : {}),
   };
 }

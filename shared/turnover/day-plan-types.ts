@@ -115,6 +115,8 @@ export interface PlanExam {
   version: number;
   /** Starts before the room opens or ends after it closes (flagged, never refused). */
   outsideHours: boolean;
+  /** Pinned by a user: "make the day fit" never moves it (absent when not pinned). */
+  pinned?: boolean;
 }
 
 /** The protocol a room's turnovers were planned with (version and id null for an unstored one). */
