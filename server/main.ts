@@ -47,7 +47,8 @@ async function main(): Promise<void> {
       console.log(`Demo accounts (password "${demoAccounts.password}"): ${demoAccounts.accounts.map((a) => `${a.username} (${a.role})`).join(', ')}`);
     }
   });
-  const stop = () => server.close(() => Promise.all([closeApp(app), db.destroy()]).then(() => process.exit(0)));
+  // the pool closes after the app: a notice pass under way still needs it to finish
+  const stop = () => server.close(() => closeApp(app).then(() => db.destroy()).then(() => process.exit(0)));
   process.on('SIGINT', stop);
   process.on('SIGTERM', stop);
 }
