@@ -56,6 +56,8 @@ export interface ErrorDetails {
   changed_since: { accession: string; examId: number } | { rosterDay: string };
   /** 409: the suggested fix no longer applies (the day changed); the gap's fixes were recomputed. */
   fix_stale: undefined;
+  /** 409: a "make the day fit" proposal computed on an older version of the day; nothing applied. */
+  fit_stale: { proposedVersion: number; currentVersion: number };
   /** 409: already recorded: a step ticked, an exam's end, a shift task ticked off (`at`: when). */
   already_done: { at: string; by?: string };
   /** 409: the turnover was completed; corrections go to the log. */
@@ -131,6 +133,7 @@ export const ERROR_STATUS: { readonly [C in ErrorCode]: number } = {
   nothing_to_redo: 409,
   changed_since: 409,
   fix_stale: 409,
+  fit_stale: 409,
   already_done: 409,
   turnover_complete: 409,
   turnover_moved: 409,

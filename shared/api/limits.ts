@@ -32,9 +32,9 @@ export type MoveReason = (typeof MOVE_REASONS)[number];
 /**
  * Why a day's plan changed: a move's reason, or an action that is not a single move. `hl7`: a
  * message from the booking system's HL7 feed (a booking, reschedule, change or cancellation).
- * `roster`: the day's roster saved or returned to the weekly default.
+ * `roster`: the day's roster saved or returned to the weekly default. `day fit`: a "make the day fit" proposal applied.
  */
-export const CHANGE_REASONS = [...MOVE_REASONS, 'suggestion', 'undo', 'redo', 'staffing', 'exam added', 'exam edited', 'exam cancelled', 'hl7', 'roster'] as const;
+export const CHANGE_REASONS = [...MOVE_REASONS, 'suggestion', 'undo', 'redo', 'staffing', 'exam added', 'exam edited', 'exam cancelled', 'hl7', 'roster', 'day fit'] as const;
 export type ChangeReason = (typeof CHANGE_REASONS)[number];
 
 /** Days one report may cover (a quarter): its work grows with the range, so the range is capped. */

@@ -22,6 +22,7 @@ const REASONS: Readonly<Record<ChangeReason, string>> = {
   'exam cancelled': 'exam cancelled',
   hl7: 'booking system (HL7)',
   roster: 'roster',
+  'day fit': 'make the day fit',
 };
 
 /**
