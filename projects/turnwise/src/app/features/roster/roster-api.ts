@@ -22,6 +22,13 @@ export class RosterApi {
     return this.http.put<{ roster: DayRoster }>(`/api/days/${date}/roster`, { rows }, this.quiet).pipe(map((r) => r.roster));
   }
 
+  /** `POST /api/days/:date/roster/import?dryRun=true`: a roster file's rows, unsaved; 422 with `errors` by row and column. */
+  previewFile(date: string, file: File): Observable<RosterRow[]> {
+    const body = new FormData();
+    body.append('file', file, file.name);
+    return this.http.post<{ rows: RosterRow[] }>(`/api/days/${date}/roster/import?dryRun=true`, body, this.quiet).pipe(map((r) => r.rows));
+  }
+
   /** `DELETE /api/days/:date/roster`: the day back to its weekday's default. */
   clearDay(date: string): Observable<DayRoster> {
     return this.http.delete<{ roster: DayRoster }>(`/api/days/${date}/roster`, this.quiet).pipe(map((r) => r.roster));

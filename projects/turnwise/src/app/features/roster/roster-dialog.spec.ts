@@ -88,3 +88,33 @@ describe('RosterDialog', () => {
     expect(page.querySelector('.remove-row')).toBeNull();
   });
 });
+
+describe('RosterDialog: a roster file', () => {
+  const pick = (page: HTMLElement, content: string) => {
+    const input = page.querySelector<HTMLInputElement>('input[type="file"]')!;
+    Object.defineProperty(input, 'files', { value: [new File([content], 'roster.csv', { type: 'text/csv' })], configurable: true });
+    input.dispatchEvent(new Event('change'));
+  };
+
+  it('previews the file and shows its rows for review, saving nothing yet', async () => {
+    const { fixture, backend, page } = await render();
+    pick(page, 'role,count,start,end,rooms\naide,3,07:00,15:00,MR 1 + MR 2\n');
+    await settle(fixture);
+    backend.expectOne({ method: 'POST', url: '/api/days/2027-03-16/roster/import?dryRun=true' }).flush({ dryRun: true, rows: [ROSTER.rows[1]], roster: null });
+    await settle(fixture);
+    expect(page.querySelectorAll('li.row')).toHaveLength(1);
+    backend.expectNone({ method: 'PUT', url: '/api/days/2027-03-16/roster' });
+  });
+
+  it("lists a refused file's problems by row and column, and keeps the rows as they were", async () => {
+    const { fixture, backend, page } = await render();
+    pick(page, 'role,start,end,rooms\nporter,07:00,15:00,MR 1\n');
+    await settle(fixture);
+    backend
+      .expectOne({ method: 'POST', url: '/api/days/2027-03-16/roster/import?dryRun=true' })
+      .flush(...refusal([{ field: 'row 2, role', message: 'a role is technologist or aide' }], 'The roster file has 1 problem; nothing was imported.'));
+    await settle(fixture);
+    expect(page.querySelector('.file-errors')?.textContent).toContain('row 2, role: a role is technologist or aide');
+    expect(page.querySelectorAll('li.row')).toHaveLength(2);
+  });
+});

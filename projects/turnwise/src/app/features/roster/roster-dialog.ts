@@ -4,7 +4,8 @@ import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 
-import type { DayRoster } from '@shared/api/roster';
+import type { ApiError, Problem } from '@shared/api/errors';
+import type { DayRoster, RosterRow } from '@shared/api/roster';
 import { action } from '../../core/state/action';
 import { showProblems } from '../setup/form-problems';
 import { RosterApi } from './roster-api';
@@ -40,6 +41,23 @@ const SOURCE_WORDS: Readonly<Record<DayRoster['source'], string>> = {
       @if (roster(); as shown) {
         <p class="source" [attr.data-source]="shown.source">{{ sourceWords[shown.source] }}</p>
         <p class="walking">Walking between rooms: {{ shown.walkingMinutes }} min (Setup → Site).</p>
+        @if (!data.readOnly) {
+          <p class="file">
+            <input #file type="file" accept=".csv,.xlsx,text/csv" hidden (change)="loadFile(file)" />
+            <button mat-stroked-button type="button" class="load-file" [disabled]="busy()" (click)="file.click()">Load a roster file…</button>
+            <span class="hint">CSV or .xlsx with columns name, role, count, start, end, breaks, rooms: the rows replace those below; nothing is saved until you save.</span>
+          </p>
+        }
+        @if (fileErrors().length > 0) {
+          <div class="file-errors" role="alert">
+            <p>The file was not loaded: {{ fileErrors().length }} {{ fileErrors().length === 1 ? 'problem' : 'problems' }}.</p>
+            <ul>
+              @for (e of fileErrors(); track $index) {
+                <li>{{ e.field }}: {{ e.message }}</li>
+              }
+            </ul>
+          </div>
+        }
         <form [formGroup]="form()" (ngSubmit)="save()" novalidate id="tw-roster-form">
           <tw-roster-rows [form]="form()" [rooms]="data.rooms" [readOnly]="data.readOnly" />
         </form>
@@ -65,7 +83,9 @@ const SOURCE_WORDS: Readonly<Record<DayRoster['source'], string>> = {
   styles: `
     mat-dialog-content { min-width: min(60rem, 90vw); }
     .source, .walking { margin: 0 0 8px; color: var(--mat-sys-on-surface-variant); }
-    .form-error { color: var(--mat-sys-error); }
+    .form-error, .file-errors { color: var(--mat-sys-error); }
+    .file { display: flex; flex-wrap: wrap; align-items: center; gap: 8px 12px; margin: 0 0 12px; }
+    .hint { color: var(--mat-sys-on-surface-variant); font: var(--mat-sys-body-small); flex: 1 1 20rem; }
   `,
 })
 export class RosterDialog {
@@ -77,15 +97,20 @@ export class RosterDialog {
   protected readonly roster = signal<DayRoster | null>(null);
   protected readonly loadError = signal<string | null>(null);
   protected readonly formError = signal<string | null>(null);
+  /** A refused file's problems, "row 3, rooms: …" (the API names each by row and column). */
+  protected readonly fileErrors = signal<Problem[]>([]);
+  /** Rows loaded from a file, shown for review in place of the roster's until saved. */
+  private readonly loaded = signal<RosterRow[] | null>(null);
   protected readonly form = computed<RosterForm>(() => {
-    const form = rosterForm(this.fb, this.roster()?.rows ?? []);
+    const form = rosterForm(this.fb, this.loaded() ?? this.roster()?.rows ?? []);
     if (this.data.readOnly) form.disable();
     return form;
   });
 
   protected readonly saving = action(() => this.api.saveDay(this.data.date, rowsOf(this.form())));
   protected readonly clearing = action(() => this.api.clearDay(this.data.date));
-  protected readonly busy = () => this.saving.pending() || this.clearing.pending();
+  private readonly previewing = signal(false);
+  protected readonly busy = () => this.saving.pending() || this.clearing.pending() || this.previewing();
 
   constructor() {
     this.api.day(this.data.date).subscribe({
@@ -105,6 +130,27 @@ export class RosterDialog {
     const result = await this.saving.run();
     if (result.status === 'done') this.ref.close(result.value);
     else this.formError.set(showProblems(form, result.error) ?? 'Check the marked fields.');
+  }
+
+  protected async loadFile(input: HTMLInputElement): Promise<void> {
+    const file = input.files?.[0];
+    input.value = '';
+    if (!file) return;
+    this.formError.set(null);
+    this.fileErrors.set([]);
+    this.previewing.set(true);
+    this.api.previewFile(this.data.date, file).subscribe({
+      next: (rows) => {
+        this.previewing.set(false);
+        this.loaded.set(rows);
+      },
+      error: (error: ApiError) => {
+        this.previewing.set(false);
+        const problems = (error.details as { problems?: Problem[] } | undefined)?.problems;
+        if (error.code === 'validation_failed' && problems && problems.length > 0) this.fileErrors.set(problems);
+        else this.formError.set(error.message);
+      },
+    });
   }
 
   protected async useWeekly(): Promise<void> {
