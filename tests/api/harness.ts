@@ -121,11 +121,11 @@ async function migrateAndSeed(db: Knex, now: Date, seed: Required<HarnessSeed>):
 const API_REQUEST = { domain: '127.0.0.1', path: '/api/auth/login', secure: false, script: false } as CookieAccessInfo;
 
 /**
- * A cookie-keeping client that sends its current XSRF token on every call. The server re-issues
- * the token when the session changes (sign-in), so it is read from the cookie jar each time,
- * as the Angular client reads the cookie before each request.
+ * A cookie-keeping client (of an app, or of a server's base URL) that sends its current XSRF
+ * token on every call. The server re-issues the token when the session changes (sign-in), so it
+ * is read from the cookie jar each time, as the Angular client reads the cookie before each request.
  */
-export async function client(app: Express) {
+export async function client(app: Express | string) {
   const agent = request.agent(app);
   await agent.get('/api/health');
   const jar = (agent as unknown as { jar: CookieJar }).jar;
@@ -152,8 +152,8 @@ export async function client(app: Express) {
 
 export type Client = Awaited<ReturnType<typeof client>>;
 
-/** A client signed in as the demo account of that role. */
-export async function signedIn(app: Express, role: Role): Promise<Client> {
+/** A client signed in as the demo account of that role (on an app, or a server's base URL). */
+export async function signedIn(app: Express | string, role: Role): Promise<Client> {
   const c = await client(app);
   const res = await c.post('/api/auth/login', { username: role, password: DEMO_PASSWORD });
   if (res.status !== 200) throw new Error(`login as ${role} failed: ${res.status} ${JSON.stringify(res.body)}`);
