@@ -120,6 +120,15 @@ export const ROUTE_TABLE: RouteCase[] = [
     alsoOk: [409, 422],
     send: (c) => c.post('/api/days/2027-03-10/fixes/apply', { fixId: 'add-helper:0' }),
   },
+  { method: 'post', path: '/api/days/:date/fit', allowed: ['charge', 'admin'], send: (c) => c.post('/api/days/2027-03-10/fit') },
+  {
+    method: 'post',
+    path: '/api/days/:date/fit/apply',
+    allowed: ['charge', 'admin'],
+    alsoOk: [409, 422],
+    send: (c) => c.post('/api/days/2027-03-10/fit/apply', { dayVersion: 0, changes: [{ type: 'staffing', toExamId: 1, accession: 'x', from: null, to: 2 }] }),
+  },
+  { method: 'put', path: '/api/exams/:id/pin', allowed: ['scheduler', 'charge', 'admin'], alsoOk: [404], send: (c) => c.put('/api/exams/1/pin', { pinned: false }) },
   {
     method: 'get',
     path: '/api/days/:date/events',

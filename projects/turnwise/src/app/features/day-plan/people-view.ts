@@ -80,7 +80,14 @@ export class PeopleView {
       observer.observe(element);
       destroyRef.onDestroy(() => observer.disconnect());
     });
-    // On a new day (and on first showing), bring the working part into view: now on today, else the first piece of work.
+    // The work of the gap open in the panel stays in view: when it is chosen (a problem stepped to,
+    // an exam from the address) and when the scale changes under it (the panel narrows the lanes, a zoom).
+    effect(() => {
+      const toExamId = this.selectedGap();
+      this.scale();
+      if (toExamId !== null) afterNextRender(() => this.keepInView(toExamId), { injector: this.injector });
+    });
+    // On a new day (and on first showing), bring the working part into view: now on today, else the first exam (as the room timeline does).
     let shownDate = '';
     effect(() => {
       const plan = this.plan();
@@ -106,8 +113,20 @@ export class PeopleView {
     );
   }
 
+  /** Scrolls sideways just enough to show the gap's first piece of work, if it is out of view. */
+  private keepInView(toExamId: number): void {
+    const scroller = this.scroller().nativeElement;
+    const work = scroller.querySelector<HTMLElement>(`[data-work-to="${toExamId}"]`);
+    if (!work) return;
+    const box = work.getBoundingClientRect();
+    const view = scroller.getBoundingClientRect();
+    const left = view.left + LANE_HEADER_PX;
+    if (box.left < left) scroller.scrollLeft -= left - box.left + 24;
+    else if (box.right > view.right) scroller.scrollLeft += box.right - view.right + 24;
+  }
+
   private scrollToStart(again = true): void {
-    const starts = (this.plan().people?.people ?? []).flatMap((person) => person.work.map((work) => Date.parse(work.start)));
+    const starts = this.plan().rooms.flatMap((room) => room.exams.map((exam) => Date.parse(exam.start)));
     const target = Math.max(0, (this.nowX() ?? (starts.length ? xOf(this.scale(), Math.min(...starts)) : 0)) - 60);
     const element = this.scroller().nativeElement;
     element.scrollLeft = target;

@@ -23,7 +23,7 @@ describe('personLaneView', () => {
     ]);
     expect(view.work[3]!.label).toBe('MR 1, ACC-2, turnover 10:15–10:35, short by 6 min');
     expect(view.work[2]!.label).toBe('MR 2, ACC-21, turnover 09:52–10:12, fits');
-    expect(view.work.every((w) => !w.clash && w.row === 0)).toBe(true);
+    expect(view.work.every((w) => !w.clash && w.row === 0 && w.rows === 1)).toBe(true);
     expect(view.rows).toBe(1);
   });
 
@@ -63,8 +63,10 @@ describe('personLaneView', () => {
     const view = personLaneView(plan.people!.people[0]!, plan, scale);
     const clashing = view.work.filter((w) => w.clash);
     expect(clashing.map((w) => w.toExamId)).toEqual([2, 22]);
-    expect(clashing.map((w) => w.row)).toEqual([0, 1]);
+    expect(clashing.map((w) => [w.row, w.rows])).toEqual([[0, 2], [1, 2]]);
     expect(view.rows).toBe(2);
+    // Work that clashes with nothing keeps the whole height of the lane.
+    expect(view.work.filter((w) => !w.clash).every((w) => w.row === 0 && w.rows === 1)).toBe(true);
     expect(clashing[0]!.label).toBe('MR 1, ACC-2, turnover 10:15–10:35, short by 6 min; clashes with MR 2, ACC-22 (10:25–10:45)');
     expect(view.clashes).toEqual([{ left: (10 * 60 + 25 - 420) * 2, width: 20, text: 'clash 10:25–10:35' }]);
     // No walk is drawn into a piece that has already begun.

@@ -19,8 +19,10 @@ export interface WorkBlockView {
   showRoom: boolean;
   left: number;
   width: number;
-  /** 0 unless pieces overlap: the row the block is drawn in, of `rows` (see {@link PersonLaneView.rows}). */
+  /** 0 unless pieces overlap: the row the block is drawn in, of `rows`. */
   row: number;
+  /** 1, or the rows its run of overlapping pieces needs: only clashing work gives up height. */
+  rows: number;
   verdict: Verdict | null;
   /** The work overlaps another piece of this person's, or leaves no time to walk to the next room. */
   clash: boolean;
@@ -66,7 +68,7 @@ export interface PersonLaneView {
   free: SpanView[];
   work: WorkBlockView[];
   clashes: ClashView[];
-  /** 1, or more when pieces overlap (each drawn in its own row). */
+  /** 1, or the most rows a run of overlapping pieces needs. */
   rows: number;
 }
 
@@ -118,15 +120,24 @@ export function personLaneView(person: PlanPerson, plan: DayPlan, scale: Timelin
   const gapOf = (roomId: number, examId: number) => rooms.get(roomId)?.gaps.find((gap) => gap.toExamId === examId) ?? null;
   const describe = (p: (typeof pieces)[number]) => `${roomName(p.work.roomId)}, ${accessionOf(p.work.roomId, p.work.toExamId)} (${clockOf(p.work.start)}–${clockOf(p.work.end)})`;
 
-  // Rows: each piece in the first row free at its start (interval partitioning), so overlapping
-  // pieces sit one above the other instead of hiding each other.
-  const rowEnds: number[] = [];
-  const rowOf = pieces.map((p) => {
-    let row = rowEnds.findIndex((end) => end <= p.startMs);
-    if (row < 0) row = rowEnds.push(0) - 1;
-    rowEnds[row] = p.endMs;
-    return row;
-  });
+  // Rows: within each run of overlapping pieces, each piece in the first row free at its start
+  // (interval partitioning), so they sit one above the other instead of hiding each other.
+  const rowOf: number[] = [];
+  const rowsOf: number[] = [];
+  for (let first = 0; first < pieces.length; ) {
+    let last = first;
+    let runEnd = pieces[first]!.endMs;
+    while (last + 1 < pieces.length && pieces[last + 1]!.startMs < runEnd) runEnd = Math.max(runEnd, pieces[++last]!.endMs);
+    const rowEnds: number[] = [];
+    for (let i = first; i <= last; i++) {
+      let row = rowEnds.findIndex((end) => end <= pieces[i]!.startMs);
+      if (row < 0) row = rowEnds.push(0) - 1;
+      rowEnds[row] = pieces[i]!.endMs;
+      rowOf[i] = row;
+    }
+    for (let i = first; i <= last; i++) rowsOf[i] = rowEnds.length;
+    first = last + 1;
+  }
 
   // Clashes: every pair that overlaps, and every move to another room that leaves less than the walk.
   const clashesWith = pieces.map(() => [] as string[]);
@@ -179,6 +190,7 @@ export function personLaneView(person: PlanPerson, plan: DayPlan, scale: Timelin
       left,
       width,
       row: rowOf[i]!,
+      rows: rowsOf[i]!,
       verdict: gap?.verdict ?? null,
       clash: clashesWith[i]!.length > 0,
       dimmed: onlyProblems && (gap?.verdict ?? 'fits') === 'fits',
@@ -222,7 +234,7 @@ export function personLaneView(person: PlanPerson, plan: DayPlan, scale: Timelin
     free,
     work,
     clashes,
-    rows: Math.max(1, rowEnds.length),
+    rows: Math.max(1, ...rowsOf),
   };
 }
 
