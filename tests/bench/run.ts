@@ -3,6 +3,7 @@ import { benchEngine } from './engine.bench';
 import { benchFixes } from './fixes.bench';
 import { benchHl7 } from './hl7.bench';
 import { benchImport } from './import.bench';
+import { benchPgProcesses } from './pg-processes.bench';
 import { benchPlan } from './plan.bench';
 import { benchTime } from './time.bench';
 import { benchTimeline } from './timeline.bench';
@@ -11,7 +12,7 @@ import { benchTimeline } from './timeline.bench';
 async function main(): Promise<void> {
   console.log(`Turnwise benchmarks — Node ${process.version}, ${new Date().toISOString()}`);
   // The bundle bench goes first: it rebuilds a stale client, which the timeline bench then drives.
-  for (const bench of [benchBundle, benchEngine, benchTime, benchFixes, benchImport, benchPlan, benchHl7, benchTimeline]) {
+  for (const bench of [benchBundle, benchEngine, benchTime, benchFixes, benchImport, benchPlan, benchPgProcesses, benchHl7, benchTimeline]) {
     for (const line of await bench()) console.log(line);
   }
 }
