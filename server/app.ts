@@ -23,6 +23,7 @@ import { dayEventsFor } from './services/day-events-postgres';
 import { SessionStore } from './services/session-store';
 import { createWorkerPool, type WorkerPool } from './workers/pool';
 import { createFixesPool, type FixesPool } from './workers/fixes-pool';
+import { createDayFitPool, type DayFitPool } from './workers/day-fit-pool';
 import { createMailer, type Mailer } from './services/mail/mailer';
 import type { SmtpSettings } from './services/mail/smtp-settings';
 import { startNoticeLoop } from './services/notices/loop';
@@ -40,6 +41,8 @@ export interface AppDeps {
   workers?: WorkerPool;
   /** Worker threads for suggested fixes; made per app if omitted. */
   fixesPool?: FixesPool;
+  /** The worker thread that makes a day fit; made per app if omitted. */
+  dayFitPool?: DayFitPool;
   /** Demo mode lists the demo accounts on the sign-in page. */
   demo?: boolean;
   /** Production: Secure cookies behind a TLS-terminating proxy. */
@@ -74,6 +77,7 @@ export function createApp(deps: AppDeps): Express {
   const events = deps.events ?? ownEvents!;
   const workers = deps.workers ?? createWorkerPool();
   const fixesPool = deps.fixesPool ?? createFixesPool();
+  const dayFitPool = deps.dayFitPool ?? createDayFitPool();
   const production = deps.production ?? false;
   const mailer: Mailer = createMailer({ db: deps.db, smtp: deps.smtp ?? null, demoServer: !production || Boolean(deps.demo), now: () => clock.now() });
   const noticeContext = { publicUrl: (deps.publicUrl ?? 'http://localhost:3000').replace(/\/+$/, ''), secret: deps.sessionSecret };
@@ -162,6 +166,7 @@ export function createApp(deps: AppDeps): Express {
       events,
       workers,
       fixesPool,
+      dayFitPool,
       demo: Boolean(deps.demo),
       notices: { mailer, context: noticeContext },
       hl7,
@@ -191,7 +196,7 @@ export function createApp(deps: AppDeps): Express {
   app.locals['close'] = async () => {
     await sessionStore.close();
     await stopNotices();
-    await Promise.all([workers.close(), fixesPool.close(), mailer.close(), hl7?.close(), ownEvents?.close?.()]);
+    await Promise.all([workers.close(), fixesPool.close(), dayFitPool.close(), mailer.close(), hl7?.close(), ownEvents?.close?.()]);
   };
   return app;
 }

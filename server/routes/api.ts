@@ -4,9 +4,11 @@ import type { Clock } from '../clock';
 import type { DayEvents } from '../services/day-events';
 import type { WorkerPool } from '../workers/pool';
 import type { FixesPool } from '../workers/fixes-pool';
+import type { DayFitPool } from '../workers/day-fit-pool';
 import type { MllpListener } from '../services/hl7/mllp-listener';
 import { authRoutes, type AuthDeps } from './auth';
 import { dayChangeRoutes } from './day-changes';
+import { dayFitRoutes, examPinRoutes } from './day-fit';
 import { dayRoutes } from './days';
 import { examRoutes } from './exams';
 import { boardRoutes } from './board';
@@ -35,6 +37,8 @@ export interface ApiDeps {
   events: DayEvents;
   workers: WorkerPool;
   fixesPool: FixesPool;
+  /** The worker thread that makes a day fit. */
+  dayFitPool: DayFitPool;
   demo: boolean;
   /** E-mail notices: where they go and what their links need. */
   notices: NoticeDeps;
@@ -58,8 +62,8 @@ export function apiRoutes(deps: ApiDeps): Router {
   router.use('/auth', authRoutes({ ...deps.auth, db: deps.db, demo: deps.demo }));
   router.use('/rooms', roomRoutes(deps));
   router.use('/settings', settingsRoutes(deps));
-  router.use('/days', dayRoutes(deps), dayChangeRoutes(deps), dayRosterRoutes(deps));
-  router.use('/exams', examRoutes(deps), examProgressRoutes(deps));
+  router.use('/days', dayRoutes(deps), dayChangeRoutes(deps), dayRosterRoutes(deps), dayFitRoutes(deps));
+  router.use('/exams', examRoutes(deps), examProgressRoutes(deps), examPinRoutes(deps));
   // Rooms now, checklists, the cleaning log and shift tasks
   router.use(boardRoutes(deps));
   router.use('/turnovers', turnoverRoutes(deps));

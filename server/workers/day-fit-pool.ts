@@ -1,0 +1,61 @@
+import type { DayFitProposal } from '../../shared/day-fit';
+import { HttpError } from '../errors';
+import type { DayFitTask } from './day-fit-task';
+import { createThreadPool, poolFailure } from './thread-pool';
+
+export interface DayFitPoolOptions {
+  /** Threads at most; default 1, leaving the other core of a small server to the event loop. */
+  maxThreads?: number;
+  /** Days waiting for a thread before new ones are turned away with 503; default 4. */
+  maxQueue?: number;
+  /** The solver's own budget; the thread is given up 20 s after it. Default 8 s. */
+  solveMs?: number;
+}
+
+/** Whole-day proposals computed in a worker thread, one solve per day and version at a time. */
+export interface DayFitPool {
+  /** The proposal for `key` (day and version); a call for a key already being solved shares that solve. */
+  propose(key: string, task: DayFitTask): Promise<DayFitProposal>;
+  close(): Promise<void>;
+}
+
+/**
+ * A one-thread pool for "make the day fit" (created in `createApp`). Its own pool, so a long
+ * solve never delays an upload or a suggestion; a second request for a day and version already
+ * being solved waits for that solve instead of starting another.
+ *
+ * @example
+ * const pool = createDayFitPool();
+ * const proposal = await pool.propose('2027-03-16@12', { input, options: { fixed } });
+ */
+export function createDayFitPool(options: DayFitPoolOptions = {}): DayFitPool {
+  const pool = createThreadPool({
+    entry: 'day-fit-worker.cjs',
+    maxThreads: options.maxThreads,
+    maxQueue: options.maxQueue ?? 4,
+    maxHeapMb: 512,
+    idleTimeoutMs: 60_000,
+  });
+  const solveMs = options.solveMs ?? 8_000;
+  const running = new Map<string, Promise<DayFitProposal>>();
+  return {
+    propose(key, task) {
+      let solve = running.get(key);
+      if (!solve) {
+        solve = pool
+          .run<DayFitProposal>('dayFitTask', { ...task, options: { timeLimitMs: solveMs, ...task.options } }, (task.options.timeLimitMs ?? solveMs) + 20_000)
+          .catch((error: unknown) => {
+            throw poolFailure(error) === null ? error : busy();
+          })
+          .finally(() => running.delete(key));
+        running.set(key, solve);
+      }
+      return solve;
+    },
+    close: () => pool.close(),
+  };
+}
+
+function busy(): HttpError {
+  return new HttpError(503, 'busy', 'The server is busy making a day fit. Try again in a moment.');
+}

@@ -1,0 +1,90 @@
+import { signedIn, startHarness, type Client, type Harness } from './harness';
+
+const DAY = '2027-03-10'; // the demo seed's "today" for this clock (America/Chicago)
+
+type Plan = { rooms: { id: number; exams: { id: number; roomId: number; start: string; pinned?: boolean }[]; gaps: { toExamId: number; staff: number; verdict: string }[] }[] };
+const places = (plan: Plan) => plan.rooms.flatMap((r) => r.exams.map((e) => [e.id, e.roomId, e.start]));
+const staffing = (plan: Plan) => plan.rooms.flatMap((r) => r.gaps.map((g) => [g.toExamId, g.staff]));
+
+describe('make the day fit (API, real database)', () => {
+  let h: Harness;
+  let charge: Client;
+  let scheduler: Client;
+  beforeAll(async () => {
+    h = await startHarness({ seedDay: true, now: '2027-03-10T11:00:00Z' });
+    charge = await signedIn(h.app, 'charge');
+    scheduler = await signedIn(h.app, 'scheduler');
+  }, 60_000);
+  afterAll(() => h.close(), 30_000);
+
+  it('proposes, applies as one history entry, and undo restores the day exactly', async () => {
+    const before: Plan = (await charge.get(`/api/days/${DAY}/plan`)).body;
+    // Pin one exam of a problem gap: it must stay where it is.
+    const problem = before.rooms.flatMap((r) => r.gaps).find((g) => g.verdict === 'short' || g.verdict === 'overlap')!;
+    expect(problem).toBeDefined();
+    expect((await scheduler.put(`/api/exams/${problem.toExamId}/pin`, { pinned: true })).status).toBe(200);
+    const pinnedPlan: Plan = (await charge.get(`/api/days/${DAY}/plan`)).body;
+    expect(pinnedPlan.rooms.flatMap((r) => r.exams).find((e) => e.id === problem.toExamId)?.pinned).toBe(true);
+
+    const res = await charge.post(`/api/days/${DAY}/fit`);
+    expect(res.status).toBe(200);
+    const proposal = res.body;
+    expect(proposal.fixed).toEqual(expect.arrayContaining([{ examId: problem.toExamId, accession: expect.any(String), reason: 'pinned' }]));
+    expect(proposal.moves.map((m: { examId: number }) => m.examId)).not.toContain(problem.toExamId);
+    expect(proposal.changes.length).toBeGreaterThan(0);
+    expect(proposal.calls.length).toBeLessThanOrEqual(proposal.moves.length);
+    expect(['optimal', 'time-limit']).toContain(proposal.solver.status);
+    expect(typeof proposal.dayVersion).toBe('number');
+
+    const applied = await charge.post(`/api/days/${DAY}/fit/apply`, { dayVersion: proposal.dayVersion, changes: proposal.changes });
+    expect(applied.status).toBe(200);
+    const after: Plan = applied.body.plan;
+    for (const move of proposal.moves) {
+      const exam = after.rooms.flatMap((r) => r.exams).find((e) => e.id === move.examId)!;
+      expect([exam.roomId, Date.parse(exam.start)]).toEqual([move.to.roomId, Date.parse(move.to.start)]);
+    }
+    const history = (await charge.get(`/api/days/${DAY}/history`)).body;
+    expect(history.changes[0]).toMatchObject({ reason: 'day fit', changes: expect.any(Array) });
+    expect(history.changes[0].changes).toHaveLength(proposal.changes.length);
+
+    // The same proposal again: the day has moved on.
+    const stale = await charge.post(`/api/days/${DAY}/fit/apply`, { dayVersion: proposal.dayVersion, changes: proposal.changes });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.code).toBe('fit_stale');
+
+    const undo = await charge.post(`/api/days/${DAY}/undo`);
+    expect(undo.status).toBe(200);
+    expect(places(undo.body)).toEqual(places(pinnedPlan));
+    expect(staffing(undo.body)).toEqual(staffing(pinnedPlan));
+    expect(undo.body.summary).toEqual((pinnedPlan as unknown as { summary: unknown }).summary);
+    await scheduler.put(`/api/exams/${problem.toExamId}/pin`, { pinned: false });
+  }, 120_000);
+
+  it('refuses a proposal that moves a pinned exam or crosses modalities, listing every problem', async () => {
+    const plan: Plan & { rooms: { modality: string }[] } = (await charge.get(`/api/days/${DAY}/plan`)).body;
+    const mr = plan.rooms.find((r) => r.modality === 'MR' && r.exams.length > 1)!;
+    const ct = plan.rooms.find((r) => r.modality === 'CT')!;
+    const [a, b] = mr.exams;
+    await scheduler.put(`/api/exams/${a!.id}/pin`, { pinned: true });
+    const version = (await charge.post(`/api/days/${DAY}/fit`)).body.dayVersion;
+    const res = await charge.post(`/api/days/${DAY}/fit/apply`, {
+      dayVersion: version,
+      changes: [
+        { type: 'move', examId: a!.id, accession: 'x', from: { roomId: mr.id, start: a!.start }, to: { roomId: mr.id, start: a!.start } },
+        { type: 'move', examId: b!.id, accession: 'y', from: { roomId: mr.id, start: b!.start }, to: { roomId: ct.id, start: b!.start } },
+      ],
+    });
+    expect(res.status).toBe(422);
+    expect(res.body.error.code).toBe('validation_failed');
+    expect(res.body.error.details.problems.map((p: { field: string }) => p.field)).toEqual(['changes.0', 'changes.1.to.roomId']);
+    await scheduler.put(`/api/exams/${a!.id}/pin`, { pinned: false });
+  }, 120_000);
+
+  it('refuses a bad body with 422 listing its problems, and an unknown exam with 404', async () => {
+    const res = await charge.post(`/api/days/${DAY}/fit/apply`, { dayVersion: -1, changes: [] });
+    expect(res.status).toBe(422);
+    expect(res.body.error.details.problems.length).toBeGreaterThanOrEqual(2);
+    const pin = await scheduler.put('/api/exams/999999/pin', { pinned: true });
+    expect(pin.status).toBe(404);
+  }, 60_000);
+});
