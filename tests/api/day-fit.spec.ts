@@ -2,7 +2,7 @@ import { signedIn, startHarness, type Client, type Harness } from './harness';
 
 const DAY = '2027-03-10'; // the demo seed's "today" for this clock (America/Chicago)
 
-type Plan = { rooms: { id: number; exams: { id: number; roomId: number; start: string; pinned?: boolean }[]; gaps: { toExamId: number; staff: number; verdict: string }[] }[] };
+type Plan = { rooms: { id: number; modality: string; exams: { id: number; roomId: number; start: string; pinned?: boolean }[]; gaps: { toExamId: number; staff: number; verdict: string }[] }[] };
 const places = (plan: Plan) => plan.rooms.flatMap((r) => r.exams.map((e) => [e.id, e.roomId, e.start]));
 const staffing = (plan: Plan) => plan.rooms.flatMap((r) => r.gaps.map((g) => [g.toExamId, g.staff]));
 
@@ -61,7 +61,7 @@ describe('make the day fit (API, real database)', () => {
   }, 120_000);
 
   it('refuses a proposal that moves a pinned exam or crosses modalities, listing every problem', async () => {
-    const plan: Plan & { rooms: { modality: string }[] } = (await charge.get(`/api/days/${DAY}/plan`)).body;
+    const plan: Plan = (await charge.get(`/api/days/${DAY}/plan`)).body;
     const mr = plan.rooms.find((r) => r.modality === 'MR' && r.exams.length > 1)!;
     const ct = plan.rooms.find((r) => r.modality === 'CT')!;
     const [a, b] = mr.exams;
