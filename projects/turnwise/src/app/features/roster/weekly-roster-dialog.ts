@@ -28,7 +28,7 @@ import { RosterRows } from './roster-rows';
       <p class="intro">Who is usually on shift each weekday. A day with a roster of its own (Day plan → Roster) uses that instead.</p>
       <mat-button-toggle-group class="weekdays" aria-label="Weekday" [value]="weekday()" (change)="pick($event.value)" hideSingleSelectionIndicator>
         @for (day of weekdays; track day.weekday) {
-          <mat-button-toggle [value]="day.weekday" [attr.aria-label]="day.name">{{ day.short }}</mat-button-toggle>
+          <mat-button-toggle [value]="day.weekday" [aria-label]="day.name">{{ day.short }}</mat-button-toggle>
         }
       </mat-button-toggle-group>
       @if (weekly() && rooms(); as roomList) {
