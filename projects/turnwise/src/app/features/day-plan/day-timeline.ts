@@ -8,6 +8,7 @@ import type { DayPlan, PlanExam, PlanRoom } from '@shared/api/plan';
 import { Clock } from '../../core/time/clock';
 import { DayPlanStore } from './day-plan-store';
 import { LANE_HEADER_PX, LANE_HEIGHT_PX } from './lane-size';
+import { centreAlongAxis, scrollToDayStart } from './lane-scroll';
 import { LaneWindow } from './lane-window';
 import { previewMove } from './plan-preview';
 import { DragPointer, PointerDrag } from './pointer-drag';
@@ -269,10 +270,7 @@ export class DayTimeline {
       () => {
         const marker = this.lanesEl().nativeElement.querySelector<HTMLElement>(`[data-gap-to="${toExamId}"]`);
         if (!marker) return;
-        const box = marker.getBoundingClientRect();
-        const view = scroller.getBoundingClientRect();
-        // Centre it along the time axis, clear of the sticky room headers.
-        scroller.scrollLeft += box.left + box.width / 2 - (view.left + LANE_HEADER_PX + (view.width - LANE_HEADER_PX) / 2);
+        centreAlongAxis(scroller, marker);
         marker.focus({ preventScroll: true });
       },
       { injector: this.injector },
@@ -284,13 +282,8 @@ export class DayTimeline {
     afterNextRender(() => this.lanesEl().nativeElement.querySelector<HTMLElement>(`[data-exam-id="${examId}"]`)?.focus(), { injector: this.injector });
   }
 
-  private scrollToStart(again = true): void {
-    const exams = this.plan().rooms.flatMap((room) => room.exams.map((exam) => Date.parse(exam.start)));
-    const target = Math.max(0, (this.nowX() ?? (exams.length ? xOf(this.scale(), Math.min(...exams)) : 0)) - 60);
-    const element = this.scroller().nativeElement;
-    element.scrollLeft = target;
-    // The lanes may not have their new width yet (first measure of the viewport): once more next frame.
-    if (again && Math.abs(element.scrollLeft - target) > 1) requestAnimationFrame(() => this.scrollToStart(false));
+  private scrollToStart(): void {
+    scrollToDayStart(this.scroller().nativeElement, this.plan(), this.scale(), this.nowX());
   }
 }
 

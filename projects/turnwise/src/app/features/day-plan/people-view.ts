@@ -7,6 +7,7 @@ import { DateTime } from 'luxon';
 
 import type { DayPlan } from '@shared/api/plan';
 import { Clock } from '../../core/time/clock';
+import { centreAlongAxis, scrollToDayStart } from './lane-scroll';
 import { LANE_HEADER_PX } from './lane-size';
 import { PersonLane } from './person-lane';
 import { personLaneView, uncoveredRooms } from './person-lane-view';
@@ -104,9 +105,7 @@ export class PeopleView {
         const scroller = this.scroller().nativeElement;
         const work = scroller.querySelector<HTMLElement>(`[data-work-to="${toExamId}"]`);
         if (!work) return;
-        const box = work.getBoundingClientRect();
-        const view = scroller.getBoundingClientRect();
-        scroller.scrollLeft += box.left + box.width / 2 - (view.left + LANE_HEADER_PX + (view.width - LANE_HEADER_PX) / 2);
+        centreAlongAxis(scroller, work);
         work.focus({ preventScroll: true });
       },
       { injector: this.injector },
@@ -125,11 +124,7 @@ export class PeopleView {
     else if (box.right > view.right) scroller.scrollLeft += box.right - view.right + 24;
   }
 
-  private scrollToStart(again = true): void {
-    const starts = this.plan().rooms.flatMap((room) => room.exams.map((exam) => Date.parse(exam.start)));
-    const target = Math.max(0, (this.nowX() ?? (starts.length ? xOf(this.scale(), Math.min(...starts)) : 0)) - 60);
-    const element = this.scroller().nativeElement;
-    element.scrollLeft = target;
-    if (again && Math.abs(element.scrollLeft - target) > 1) requestAnimationFrame(() => this.scrollToStart(false));
+  private scrollToStart(): void {
+    scrollToDayStart(this.scroller().nativeElement, this.plan(), this.scale(), this.nowX());
   }
 }
