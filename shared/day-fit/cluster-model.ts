@@ -32,8 +32,8 @@ export interface ClusterModel {
 
 export interface ClusterSolution {
   places: Map<number, { roomId: number; start: number }>;
-  /** Helper slot taken on the gap before an exam. */
-  helpers: Map<number, HelperSlot>;
+  /** Helper slot taken on the gap before an exam, and the minutes the person is booked (start − longest turnover, start). */
+  helpers: Map<number, { slot: HelperSlot; busyFrom: number; busyTo: number }>;
 }
 
 
@@ -86,8 +86,8 @@ export function clusterModel(
     for (let b = a + 1; b < n; b++) {
       const i = items[a]!;
       const j = items[b]!;
-      // Two exams that both stay: their gap is what it is (the remaining gaps report it).
-      if (!i.free && !j.free) continue;
+      // Two exams that both stay: their gap is what it is (the remaining gaps report it), unless a helper may shorten it.
+      if (!i.free && !j.free && (slots.length === 0 || i.fe.roomId !== j.fe.roomId)) continue;
       const common = shares(i, j);
       if (common.length === 0) continue;
       for (const r of common) {
@@ -271,7 +271,7 @@ export function clusterModel(
     levels: [gapsLeft, moved, tail(minutes, helperTerms, hi - lo)],
     decode(values) {
       const places = new Map<number, { roomId: number; start: number }>();
-      const helpers = new Map<number, HelperSlot>();
+      const helpers: ClusterSolution['helpers'] = new Map();
       items.forEach((it, k) => {
         if (!it.free) return;
         const start = Math.round(values.get(s(k)) ?? it.fe.start);
@@ -280,7 +280,10 @@ export function clusterModel(
       });
       for (const [k, terms] of helperOf) {
         for (const [, h] of terms) {
-          if ((values.get(h) ?? 0) > 0.5) helpers.set(items[k]!.fe.exam.id, slots[Number(h.split('_')[1])]!);
+          if ((values.get(h) ?? 0) > 0.5) {
+            const start = Math.round(values.get(s(k)) ?? items[k]!.fe.start);
+            helpers.set(items[k]!.fe.exam.id, { slot: slots[Number(h.split('_')[1])]!, busyFrom: start - busy.get(k)!, busyTo: start });
+          }
         }
       }
       return { places, helpers };

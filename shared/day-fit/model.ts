@@ -87,6 +87,10 @@ export interface FitHelperUse {
   /** People on the turnover before and after (the room's staff or a set value, then one more). */
   staffFrom: number;
   staffTo: number;
+  roomId: number;
+  /** When the person is booked for it: the longest turnover that could precede the exam, ending at its start. */
+  busyFrom: string;
+  busyTo: string;
 }
 
 /** A gap still `short` or `overlap` after the proposal, and why. */

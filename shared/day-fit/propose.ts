@@ -49,7 +49,7 @@ export function proposeDayFit(input: DayPlanInput, solve: MipSolve, options: Day
   const slots = helperSlots(input, options);
   const tally: SolveTally = { solves: 0, clusters: 0, mipGap: 0, timeLimited: false, neighbourhood: false };
   const places = new Map<number, { roomId: number; start: number }>();
-  const helpers = new Map<number, HelperSlot>();
+  const helpers: ClusterSolution['helpers'] = new Map();
   const groups = day.groups.filter((g) => g.exams.some((fe) => problemInto.has(fe.exam.id)));
   groups.forEach((group, index) => {
     const budgetMs = (deadline - now()) / (groups.length - index);
@@ -174,7 +174,7 @@ function helperSlots(input: DayPlanInput, options: DayFitOptions): HelperSlot[] 
 function proposal(
   day: FitDay,
   places: ReadonlyMap<number, { roomId: number; start: number }>,
-  helpers: ReadonlyMap<number, HelperSlot>,
+  helpers: ClusterSolution['helpers'],
   before: DayFitProposal['before'],
   tally: SolveTally,
   milliseconds: number,
@@ -197,14 +197,14 @@ function proposal(
   }
   const roomById = new Map(input.rooms.map((r) => [r.id, r]));
   const helperUses: FitHelperUse[] = [];
-  for (const [toExamId, slot] of [...helpers].sort((a, b) => a[0] - b[0])) {
+  for (const [toExamId, { slot, busyFrom, busyTo }] of [...helpers].sort((a, b) => a[0] - b[0])) {
     const exam = examById.get(toExamId)!;
     const room = roomById.get(places.get(toExamId)?.roomId ?? exam.roomId)!;
     const staffFrom = day.baseStaff(room, exam);
     const staffTo = day.helperStaff(room, exam)!;
     const change: StaffingChange = { type: 'staffing', toExamId, accession: exam.accession, from: input.staffOverrides?.[toExamId] ?? null, to: staffTo };
     changes.push(change);
-    helperUses.push({ toExamId, accession: exam.accession, helperId: slot.helper.id, label: slot.helper.label, staffFrom, staffTo });
+    helperUses.push({ toExamId, accession: exam.accession, helperId: slot.helper.id, label: slot.helper.label, staffFrom, staffTo, roomId: room.id, busyFrom: day.toIso(busyFrom), busyTo: day.toIso(busyTo) });
   }
   const after = withChanges(input, changes);
   const judgedAfter = fixDay(after);
