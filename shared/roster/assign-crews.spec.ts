@@ -88,7 +88,7 @@ describe('assignCrews', () => {
       let unproven = 0;
       for (let i = 0; i < 40; i++) {
         const problem = randomCrewProblem(rand, { maxPeople: 3, maxWanted: 2 });
-        const result = assignCrews(problem, { clusterNodeBudget: 1 });
+        const result = assignCrews(problem, { clusterWorkBudget: 1 });
         expect(crewProblems(problem, result)).toEqual([]);
         if (!result.provenOptimal) unproven++;
       }
@@ -144,7 +144,7 @@ describe('assignCrews', () => {
       fc.assert(
         fc.property(problems, (problem) => {
           const exact = assignCrews(problem);
-          const greedy = assignCrews(problem, { clusterNodeBudget: 0 });
+          const greedy = assignCrews(problem, { clusterWorkBudget: 0 });
           expect(compareKeys(exact.key, greedy.key)).toBeLessThanOrEqual(0);
         }),
         { seed: 42, numRuns: 200 },

@@ -1,5 +1,5 @@
 import { clusterJobs } from './clusters';
-import { crewStart, eligiblePeople, MINUTE, personFit, type CrewJob, type CrewProblem, type PersonState } from './crew-problem';
+import { arrivalAt, crewStart, eligiblePeople, MINUTE, personFit, type CrewJob, type CrewProblem, type PersonState } from './crew-problem';
 import { compareKeys, jobOutcome, keyOf, unstaffedOutcome, type DayKey, type JobOutcome } from './day-key';
 
 /** A job's crew (person indices; empty: nobody could do it) and when it starts (NaN when nobody). */
@@ -20,10 +20,13 @@ export interface CrewAssignment {
 }
 
 export interface AssignCrewsOptions {
-  /** Nodes one cluster may visit before its search stops. Default 20,000. */
-  clusterNodeBudget?: number;
-  /** Nodes the whole day may visit; clusters after that keep their greedy schedule. Default 200,000. */
-  dayNodeBudget?: number;
+  /**
+   * Work one cluster's search may do (crews tried and lower bounds taken, each a unit) before it
+   * stops. Default 60,000.
+   */
+  clusterWorkBudget?: number;
+  /** Work the whole day's searches may do; clusters after that keep their greedy schedule. Default 240,000. */
+  dayWorkBudget?: number;
 }
 
 /**
@@ -33,19 +36,22 @@ export interface AssignCrewsOptions {
  * Exact: the jobs are split into clusters that compete for the same people
  * ({@link clusterJobs}); each cluster starts from its greedy schedule (each job in order takes
  * the crew best for itself — the documented heuristic) and a depth-first branch and bound over
- * every crew of 1 … wanted people who cover the room improves it, pruned by a lower bound that
- * counts each job still open as started the moment its room is free with its largest possible
- * crew. Interchangeable people (same shift, breaks and rooms, standing in the same place, free at
- * the same time) are tried once. When a cluster's search reaches its node budget (or the day's),
- * the best schedule found so far stands and `provenOptimal` is false.
+ * every crew of 1 … wanted people who cover the room improves it. Its lower bound counts each job
+ * still open as started the moment its room is free or, if later, the first moment anyone covering
+ * it can be there (from where people stand now: more work only makes them later), with its largest
+ * possible crew. Interchangeable people (same shift, breaks and rooms, standing in the same place,
+ * free at the same time) are tried once. The search's work is bounded (a unit per crew tried and per
+ * job bounded): when a cluster reaches its budget (or the day's), the best schedule found so far
+ * stands and `provenOptimal` is false, so a tangled, understaffed day costs tens of milliseconds,
+ * never seconds.
  *
  * @example
  * const { choices, key, provenOptimal } = assignCrews({ jobs, people, walkMs: 3 * 60_000 });
  * choices[0].crew; // [1]: person 1 turns the first room over
  */
 export function assignCrews(problem: CrewProblem, options: AssignCrewsOptions = {}): CrewAssignment {
-  const clusterBudget = options.clusterNodeBudget ?? 20_000;
-  let dayBudget = options.dayNodeBudget ?? 200_000;
+  const clusterBudget = options.clusterWorkBudget ?? 60_000;
+  let dayBudget = options.dayWorkBudget ?? 240_000;
   const choices: CrewChoice[] = new Array(problem.jobs.length);
   const kinds = personKinds(problem);
   let provenOptimal = true;
@@ -54,7 +60,7 @@ export function assignCrews(problem: CrewProblem, options: AssignCrewsOptions = 
     const search = new ClusterSearch(problem, cluster, kinds, Math.min(clusterBudget, dayBudget));
     const found = search.run();
     nodes += search.nodes;
-    dayBudget = Math.max(0, dayBudget - search.nodes);
+    dayBudget = Math.max(0, dayBudget - search.work);
     if (!found.proven) provenOptimal = false;
     cluster.forEach((j, i) => (choices[j] = found.choices[i]!));
   }
@@ -71,15 +77,21 @@ function personKinds(problem: CrewProblem): number[] {
   });
 }
 
+interface Sums {
+  unstaffed: number;
+  problems: number;
+  shortBy: number;
+  requiredSum: number;
+}
+
 class ClusterSearch {
   nodes = 0;
+  /** Crews tried and jobs bounded, in this search. */
+  work = 0;
   private best: { key: DayKey; choices: CrewChoice[] } | null = null;
   private aborted = false;
   private readonly jobs: CrewJob[];
   private readonly eligible: number[][];
-  /** Lower bounds of the jobs from position i on (sums), and of each job alone. */
-  private readonly lbSuffix: { unstaffed: number; problems: number; shortBy: number; requiredSum: number }[];
-  private readonly lbJob: JobOutcome[];
 
   constructor(
     private readonly problem: CrewProblem,
@@ -89,27 +101,12 @@ class ClusterSearch {
   ) {
     this.jobs = cluster.map((j) => problem.jobs[j]!);
     this.eligible = this.jobs.map((job) => eligiblePeople(problem, job));
-    this.lbJob = this.jobs.map((job, i) => this.lowerBound(job, this.eligible[i]!));
-    this.lbSuffix = new Array(this.jobs.length + 1);
-    this.lbSuffix[this.jobs.length] = { unstaffed: 0, problems: 0, shortBy: 0, requiredSum: 0 };
-    for (let i = this.jobs.length - 1; i >= 0; i--) {
-      const next = this.lbSuffix[i + 1]!;
-      const o = this.lbJob[i]!;
-      this.lbSuffix[i] = {
-        unstaffed: next.unstaffed + o.unstaffed,
-        problems: next.problems + o.problem,
-        shortBy: next.shortBy + o.shortBy,
-        requiredSum: next.requiredSum + o.required,
-      };
-    }
   }
 
   run(): { choices: CrewChoice[]; proven: boolean } {
     const states = this.problem.people.map((): PersonState => ({ freeMs: -Infinity, roomId: null }));
     this.greedy(states);
-    if (compareKeys(this.bound([], 0, this.zero()), this.best!.key) < 0) {
-      this.dfs(0, states, [], this.zero());
-    }
+    if (this.promising(0, states, [], ZERO)) this.dfs(0, states, [], ZERO);
     return { choices: this.best!.choices, proven: !this.aborted };
   }
 
@@ -125,31 +122,52 @@ class ClusterSearch {
     this.best = { key: keyOf(choices.map((c) => c.outcome)), choices };
   }
 
-  private dfs(i: number, states: PersonState[], chosen: CrewChoice[], sums: ReturnType<ClusterSearch['zero']>): void {
-    if (this.aborted) return;
+  private dfs(i: number, states: PersonState[], chosen: CrewChoice[], sums: Sums): void {
     if (i === this.jobs.length) {
       const key = keyOf(chosen.map((c) => c.outcome));
       if (compareKeys(key, this.best!.key) < 0) this.best = { key, choices: [...chosen] };
       return;
     }
-    if (++this.nodes > this.budget) {
-      this.aborted = true;
-      return;
-    }
+    this.nodes++;
     const job = this.jobs[i]!;
     for (const option of this.options(i, states)) {
       const o = option.outcome;
-      const next = { unstaffed: sums.unstaffed + o.unstaffed, problems: sums.problems + o.problem, shortBy: sums.shortBy + o.shortBy, requiredSum: sums.requiredSum + o.required };
+      const next: Sums = { unstaffed: sums.unstaffed + o.unstaffed, problems: sums.problems + o.problem, shortBy: sums.shortBy + o.shortBy, requiredSum: sums.requiredSum + o.required };
       chosen.push(option);
-      if (compareKeys(this.bound(chosen, i + 1, next), this.best!.key) < 0) {
-        const saved = option.crew.map((p) => states[p]!);
-        for (const p of option.crew) states[p] = { freeMs: option.startMs + job.busyMinutes[option.crew.length]! * MINUTE, roomId: job.roomId };
-        this.dfs(i + 1, states, chosen, next);
-        option.crew.forEach((p, q) => (states[p] = saved[q]!));
-      }
+      const saved = option.crew.map((p) => states[p]!);
+      for (const p of option.crew) states[p] = { freeMs: option.startMs + job.busyMinutes[option.crew.length]! * MINUTE, roomId: job.roomId };
+      if (this.promising(i + 1, states, chosen, next)) this.dfs(i + 1, states, chosen, next);
+      option.crew.forEach((p, q) => (states[p] = saved[q]!));
       chosen.pop();
       if (this.aborted) return;
     }
+  }
+
+  /**
+   * Whether the jobs from i on, bounded from where people stand, could still beat the best
+   * schedule; false too once the budget is spent (the search then stops).
+   */
+  private promising(i: number, states: readonly PersonState[], chosen: readonly CrewChoice[], sums: Sums): boolean {
+    if (this.aborted) return false;
+    const bounds: JobOutcome[] = [];
+    const total = { ...sums };
+    for (let q = i; q < this.jobs.length; q++) {
+      const o = this.lowerBound(q, states);
+      bounds.push(o);
+      total.unstaffed += o.unstaffed;
+      total.problems += o.problem;
+      total.shortBy += o.shortBy;
+      total.requiredSum += o.required;
+    }
+    if (this.work > this.budget) {
+      this.aborted = true;
+      return false;
+    }
+    const best = this.best!.key;
+    const order = total.unstaffed - best.unstaffed || total.problems - best.problems || total.shortBy - best.shortBy || total.requiredSum - best.requiredSum;
+    if (order !== 0) return order < 0;
+    const required = [...chosen.map((c) => c.outcome.required), ...bounds.map((o) => o.required)];
+    return compareKeys({ ...total, required }, best) < 0;
   }
 
   /** Every crew for job i from where people stand, best for the job first; one per interchangeable crew. */
@@ -165,6 +183,7 @@ class ClusterSearch {
         const sig = crew.map((p) => `${this.kinds[p]}@${states[p]!.freeMs}@${states[p]!.roomId}`).sort().join('|');
         if (!seen.has(sig)) {
           seen.add(sig);
+          this.work++;
           const startMs = crewStart(this.problem, job, crew, states, crew.length);
           if (startMs !== Infinity) out.push({ crew: [...crew], startMs, outcome: jobOutcome(job, startMs, crew.length), order: out.length });
         }
@@ -191,37 +210,32 @@ class ClusterSearch {
   }
 
   /**
-   * A job's best case on its own: its largest crew, starting when the room is free or, if later,
-   * when the first person covering it can start the shortest crew's work. Certain to be unstaffed
-   * when nobody covering it can work at all from the room's free time.
+   * Job i's best case from where people stand: its largest crew, starting when the room is free
+   * or, if later, when the first person covering it can arrive and work the shortest crew's time
+   * (more work before it only makes everyone later). Certain to be unstaffed when nobody covering
+   * it can work at all from there.
    */
-  private lowerBound(job: CrewJob, eligible: readonly number[]): JobOutcome {
+  private lowerBound(i: number, states: readonly PersonState[]): JobOutcome {
+    const job = this.jobs[i]!;
+    const eligible = this.eligible[i]!;
+    this.work++;
     const maxK = Math.min(job.wanted, eligible.length);
     if (maxK === 0) return unstaffedOutcome(job);
-    const shortest = Math.min(...job.busyMinutes.slice(1, maxK + 1)) * MINUTE;
-    let start = Infinity;
-    for (const p of eligible) start = Math.min(start, personFit(this.problem.people[p]!, job.fromMs, shortest));
-    if (start === Infinity) return unstaffedOutcome(job);
+    let shortest = Infinity;
     let fewest = Infinity;
-    for (let k = 1; k <= maxK; k++) fewest = Math.min(fewest, job.requiredMinutes[k]!);
+    for (let k = 1; k <= maxK; k++) {
+      shortest = Math.min(shortest, job.busyMinutes[k]! * MINUTE);
+      fewest = Math.min(fewest, job.requiredMinutes[k]!);
+    }
+    let start = Infinity;
+    for (const p of eligible) {
+      const from = Math.max(job.fromMs, arrivalAt(states[p]!, job.roomId, this.problem.walkMs));
+      start = Math.min(start, personFit(this.problem.people[p]!, from, shortest));
+    }
+    if (start === Infinity) return unstaffedOutcome(job);
     const required = Math.ceil((start - job.fromMs) / MINUTE - 1e-9) + fewest;
     return { unstaffed: 0, problem: required > job.availableMinutes ? 1 : 0, shortBy: Math.max(0, required - job.availableMinutes), required };
   }
-
-  private bound(chosen: readonly CrewChoice[], i: number, sums: ReturnType<ClusterSearch['zero']>): DayKey {
-    const rest = this.lbSuffix[i]!;
-    const required = chosen.map((c) => c.outcome.required);
-    for (let q = i; q < this.jobs.length; q++) required.push(this.lbJob[q]!.required);
-    return {
-      unstaffed: sums.unstaffed + rest.unstaffed,
-      problems: sums.problems + rest.problems,
-      shortBy: sums.shortBy + rest.shortBy,
-      requiredSum: sums.requiredSum + rest.requiredSum,
-      required,
-    };
-  }
-
-  private zero() {
-    return { unstaffed: 0, problems: 0, shortBy: 0, requiredSum: 0 };
-  }
 }
+
+const ZERO: Sums = { unstaffed: 0, problems: 0, shortBy: 0, requiredSum: 0 };
