@@ -93,12 +93,12 @@ import { breakGroup, rowGroup, type RosterForm, type RowGroup } from './roster-f
               @if (!readOnly() && row.controls.breaks.length < limits.breaks) {
                 <button mat-button type="button" class="add-break" (click)="row.controls.breaks.push(newBreak())"><mat-icon svgIcon="add_circle" />Break</button>
               }
+              @if (!readOnly()) {
+                <button mat-button type="button" class="remove-row" [attr.aria-label]="'Remove ' + title(row, i)" (click)="rows.removeAt(i)">
+                  <mat-icon svgIcon="remove_circle" />Remove
+                </button>
+              }
             </div>
-            @if (!readOnly()) {
-              <button mat-icon-button type="button" class="remove-row" [attr.aria-label]="'Remove ' + title(row, i)" (click)="rows.removeAt(i)">
-                <mat-icon svgIcon="remove_circle" />
-              </button>
-            }
           </fieldset>
         </li>
       }
