@@ -6,6 +6,9 @@ import { systemClock } from './clock';
 import { listDemoAccounts } from './services/demo-accounts';
 import { smtpFromEnv } from './services/mail/smtp-settings';
 
+/** How long a stopping server lets running requests finish. */
+const STOP_GRACE_MS = 5000;
+
 async function main(): Promise<void> {
   const config = readConfig();
   const db = createDb(config.databaseUrl ?? config.databaseFile);
@@ -47,8 +50,13 @@ async function main(): Promise<void> {
       console.log(`Demo accounts (password "${demoAccounts.password}"): ${demoAccounts.accounts.map((a) => `${a.username} (${a.role})`).join(', ')}`);
     }
   });
-  // the pool closes after the app: a notice pass under way still needs it to finish
-  const stop = () => server.close(() => closeApp(app).then(() => db.destroy()).then(() => process.exit(0)));
+  const stop = () => {
+    // the pool closes after the app: a notice pass under way still needs it to finish
+    server.close(() => closeApp(app).then(() => db.destroy()).then(() => process.exit(0)));
+    // open event streams never end by themselves: cut them (and any request still running) after
+    // a grace; browsers reconnect, behind a proxy to another server process
+    setTimeout(() => server.closeAllConnections(), STOP_GRACE_MS).unref();
+  };
   process.on('SIGINT', stop);
   process.on('SIGTERM', stop);
 }
