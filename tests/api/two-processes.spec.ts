@@ -92,4 +92,15 @@ const row = (acc: string, start: string) => [acc, 'MR 1', start, '30', 'MR exam'
     expect(answers.map((answer) => answer.status).sort()).toEqual([200, 409]);
     expect((await exam('P-2')).version).toBe(p2.version + 1);
   });
+
+  it('stops on SIGTERM with an event stream open: the stream is ended after a grace, and the process exits', async () => {
+    const stream = await new Promise<http.IncomingMessage>((resolve, reject) => {
+      http.get(`${b.url}/api/days/${DAY}/events`, { agent: false, headers: { Cookie: chargeCookies() } }, (res) => res.once('data', () => resolve(res))).once('error', reject);
+    });
+    const closed = new Promise((resolve) => stream.once('close', resolve));
+    stream.resume();
+    // without an end to the stream the server would wait for it forever, and be killed here
+    expect(await b.stop(30_000)).toBe('exited');
+    await closed;
+  }, 60_000);
 });

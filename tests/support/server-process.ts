@@ -14,8 +14,8 @@ export interface ServerProcess {
   readonly appName: string;
   /** The end of what it printed. */
   output(): string;
-  /** SIGTERM, then SIGKILL if it has not exited within `graceMs`; resolves once it has exited. */
-  stop(graceMs?: number): Promise<void>;
+  /** SIGTERM, then SIGKILL if it has not exited within `graceMs`; answers, once it has exited, which ended it. */
+  stop(graceMs?: number): Promise<'exited' | 'killed'>;
 }
 
 const running = new Set<ChildProcess>();
@@ -66,14 +66,16 @@ export async function startServerProcess(options: { databaseUrl: string; appName
   const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
   void exited.then(() => running.delete(child));
 
-  const stop = async (graceMs = 10_000) => {
-    if (child.exitCode !== null || child.signalCode !== null) return;
+  const stop = async (graceMs = 10_000): Promise<'exited' | 'killed'> => {
+    if (child.exitCode !== null || child.signalCode !== null) return child.signalCode === 'SIGKILL' ? 'killed' : 'exited';
     child.kill('SIGTERM');
     let timer: NodeJS.Timeout | undefined;
     const late = new Promise<boolean>((resolve) => (timer = setTimeout(() => resolve(true), graceMs)));
-    if (await Promise.race([exited.then(() => false), late])) child.kill('SIGKILL');
+    const killed = await Promise.race([exited.then(() => false), late]);
+    if (killed) child.kill('SIGKILL');
     clearTimeout(timer);
     await exited;
+    return killed ? 'killed' : 'exited';
   };
 
   const server: ServerProcess = { url, appName: options.appName, output: () => output, stop };
