@@ -1,7 +1,8 @@
 import { HttpTestingController } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 
-import { clashingPlan, rosterPlan } from './testing/example-roster';
+import { exam } from './testing/example-day';
+import { ROSTER_INPUT, clashingPlan, rosterPlan } from './testing/example-roster';
 import { renderDay, settle, text } from './testing/day-plan-harness';
 
 // Invented roster day (testing/example-roster.ts): Aide 1 covers MR 1 and MR 2; nobody covers CT 1.
@@ -89,6 +90,21 @@ describe('Day plan people view', () => {
     expect(work(page, 22).getAttribute('aria-label')).toContain('clashes with MR 1, ACC-2 (10:15–10:35)');
     expect(page.querySelector('tw-person-lane')!.getAttribute('aria-label')).toContain('1 clash');
     expect(text(page.querySelector('tw-people-view .clash-note'))).toContain('1 clash: someone is booked in two places at once');
+  });
+
+  it('lists the turnovers nobody on the roster can do, each opening its gap', async () => {
+    // Invented: MR 2's ACC-24 leaves at 15:20, after Aide 1's shift (07:00–15:00); ACC-25 follows at 15:45.
+    const late = rosterPlan({ ...ROSTER_INPUT, exams: [...ROSTER_INPUT.exams, exam(24, 2, '14:50'), exam(25, 2, '15:45')] });
+    const { page, fixture, backend } = await showPeople(late);
+    const listed = Array.from(page.querySelectorAll<HTMLButtonElement>('tw-people-view .unstaffed-gap'));
+    expect(listed.map(text)).toEqual(['MR 2, ACC-25 at 15:45']);
+    expect(text(page.querySelector('tw-people-view .unstaffed'))).toContain('A turnover has nobody on the roster to do it');
+    listed[0]!.click();
+    await settle(fixture);
+    backend.expectOne('/api/days/2027-03-15/fixes?gap=25').flush({ fixes: [] });
+    await settle(fixture);
+    expect(text(page.querySelector('tw-gap-panel .people-reason'))).toMatch(/^Short by \d+ min: nobody on the roster covers MR 2 then$/);
+    expect(text(page.querySelector('tw-gap-panel .crew'))).toBe('nobody on the roster');
   });
 
   it('falls back to the rooms when the day shown has no roster', async () => {

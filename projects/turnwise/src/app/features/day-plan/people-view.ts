@@ -10,6 +10,7 @@ import { Clock } from '../../core/time/clock';
 import { centreAlongAxis, scrollToDayStart } from './lane-scroll';
 import { LANE_HEADER_PX } from './lane-size';
 import { PersonLane } from './person-lane';
+import { clockOf } from './lane-view';
 import { personLaneView, uncoveredRooms } from './person-lane-view';
 import { TimeAxis } from './time-axis';
 import { Zoom, dayRange, readablePxPerMinute, scaleFor, xOf } from './timeline-scale';
@@ -68,6 +69,17 @@ export class PeopleView {
   protected readonly lanes = computed(() => (this.plan().people?.people ?? []).map((person) => personLaneView(person, this.plan(), this.scale(), this.onlyProblems())));
   protected readonly clashes = computed(() => this.lanes().reduce((sum, lane) => sum + lane.clashes.length, 0));
   protected readonly uncovered = computed(() => uncoveredRooms(this.plan()).map((room) => room.name));
+  /** Turnovers of covered rooms that nobody on the roster can do: no lane shows them, so they are listed. */
+  protected readonly unstaffed = computed(() =>
+    this.plan().rooms.flatMap((room) =>
+      room.gaps
+        .filter((gap) => gap.crew?.length === 0)
+        .map((gap) => {
+          const to = room.exams.find((exam) => exam.id === gap.toExamId);
+          return { toExamId: gap.toExamId, words: `${room.name}, ${to?.accession ?? 'exam ' + gap.toExamId} at ${to ? clockOf(to.start) : ''}` };
+        }),
+    ),
+  );
   protected readonly provenOptimal = computed(() => this.plan().people?.provenOptimal ?? true);
   protected readonly walkingMinutes = computed(() => this.plan().people?.walkingMinutes ?? 0);
 

@@ -64,6 +64,8 @@ describe('personLaneView', () => {
     const clashing = view.work.filter((w) => w.clash);
     expect(clashing.map((w) => w.toExamId)).toEqual([2, 22]);
     expect(clashing.map((w) => [w.row, w.rows])).toEqual([[0, 2], [1, 2]]);
+    // 20 min at 2 px a minute, the room beside the accession on one line: room for its last part only.
+    expect(clashing.map((w) => [w.room, w.accession])).toEqual([['MR 1', ''], ['MR 2', '']]);
     expect(view.rows).toBe(2);
     // Work that clashes with nothing keeps the whole height of the lane.
     expect(view.work.filter((w) => !w.clash).every((w) => w.row === 0 && w.rows === 1)).toBe(true);

@@ -185,7 +185,8 @@ export function personLaneView(person: PlanPerson, plan: DayPlan, scale: Timelin
       toExamId: p.work.toExamId,
       roomId: p.work.roomId,
       room,
-      accession: workAccession(accession, width),
+      // A block stacked in a clash has one line: the room takes its part of the width first.
+      accession: workAccession(accession, rowsOf[i]! > 1 && width >= ROOM_PX ? width - ROOM_PX : width),
       showRoom: width >= ROOM_PX,
       left,
       width,
