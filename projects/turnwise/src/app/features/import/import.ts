@@ -21,6 +21,9 @@ import { ImportService } from './import-service';
 import { ImportState } from './import-state';
 import { ProblemGapList } from './problem-gap-list';
 import { RefusalReport } from './refusal-report';
+import { AuthService } from '../../core/auth/auth-service';
+import { may } from '../../core/auth/roles';
+import { RosterFileImport } from '../roster/roster-file-import';
 
 /** Import a day list: choose the day and a file, check the preview, then replace the day's list. */
 @Component({
@@ -36,6 +39,7 @@ import { RefusalReport } from './refusal-report';
     ImportPreview,
     ProblemGapList,
     RefusalReport,
+    RosterFileImport,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './import.html',
@@ -45,6 +49,9 @@ export class Import {
   private readonly imports = inject(ImportService);
   private upload: Subscription | null = null;
   protected readonly today = inject(SiteSettingsService).today;
+  private readonly user = inject(AuthService).user;
+  /** The optional roster file: for a role that may change the roster (a scheduler imports the list only). */
+  protected readonly mayRoster = computed(() => may(this.user()?.role ?? null, 'editRoster'));
 
   /** `YYYY-MM-DD` from `/import?date=…` (the Day plan links here); else today at the site. */
   readonly date = input<string>();

@@ -29,6 +29,13 @@ export class RosterApi {
     return this.http.post<{ rows: RosterRow[] }>(`/api/days/${date}/roster/import?dryRun=true`, body, this.quiet).pipe(map((r) => r.rows));
   }
 
+  /** `POST /api/days/:date/roster/import`: a roster file saved as the day's roster. */
+  importFile(date: string, file: File): Observable<DayRoster> {
+    const body = new FormData();
+    body.append('file', file, file.name);
+    return this.http.post<{ roster: DayRoster }>(`/api/days/${date}/roster/import`, body, this.quiet).pipe(map((r) => r.roster));
+  }
+
   /** `DELETE /api/days/:date/roster`: the day back to its weekday's default. */
   clearDay(date: string): Observable<DayRoster> {
     return this.http.delete<{ roster: DayRoster }>(`/api/days/${date}/roster`, this.quiet).pipe(map((r) => r.roster));
