@@ -5,7 +5,7 @@ import type { DayEvents } from '../services/day-events';
 import type { WorkerPool } from '../workers/pool';
 import type { FixesPool } from '../workers/fixes-pool';
 import type { DayFitPool } from '../workers/day-fit-pool';
-import type { MllpListener } from '../services/hl7/mllp-listener';
+import type { Hl7Feed } from '../services/hl7/feed';
 import { authRoutes, type AuthDeps } from './auth';
 import { dayChangeRoutes } from './day-changes';
 import { dayFitRoutes, examPinRoutes } from './day-fit';
@@ -43,7 +43,7 @@ export interface ApiDeps {
   /** E-mail notices: where they go and what their links need. */
   notices: NoticeDeps;
   /** The HL7 booking feed's listener, when on (its interface log says where it listens). */
-  hl7?: MllpListener | null;
+  hl7?: Hl7Feed | null;
   /** What sign-in needs from the app (sessions, XSRF, throttling). */
   auth: Omit<AuthDeps, 'db' | 'demo'>;
 }

@@ -6,18 +6,19 @@ import type { Clock } from '../clock';
 import { requireRole } from '../middleware/roles';
 import { listHl7Messages, readHl7Message } from '../services/hl7/hl7-log';
 import { readHl7Mapping, writeHl7Mapping } from '../services/hl7/hl7-mapping-setup';
-import type { MllpListener } from '../services/hl7/mllp-listener';
+import type { Hl7Feed } from '../services/hl7/feed';
 import { parseInput } from '../validate';
 import { idParam } from './params';
 
 /** The HL7 booking feed (admin): the interface log (messages received, their ACKs and what they changed) and the site's mapping. */
-export function hl7Routes(deps: { db: Knex; clock: Clock; hl7?: MllpListener | null }): Router {
+export function hl7Routes(deps: { db: Knex; clock: Clock; hl7?: Hl7Feed | null }): Router {
   const router = Router();
   router.use(requireRole('admin'));
   router.get('/messages', async (req, res) => {
     const query = parseInput(hl7LogQuerySchema, req.query, 'interface log query');
-    const at = deps.hl7 ? await deps.hl7.address() : null;
-    const page: Hl7LogPage = { ...(await listHl7Messages(deps.db, query)), listener: at && { host: at.address, port: at.port } };
+    // on PostgreSQL another server process may be the one listening
+    const listener = deps.hl7 ? await deps.hl7.served() : null;
+    const page: Hl7LogPage = { ...(await listHl7Messages(deps.db, query)), listener };
     res.json(page);
   });
   router.get('/messages/:id', async (req, res) => {

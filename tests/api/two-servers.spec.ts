@@ -6,8 +6,7 @@ import request from 'supertest';
 import { closeApp, createApp } from '../../server/app';
 import { createDb, HL7_LISTENER_LOCK, NOTICE_PASS_LOCK, onceAcrossProcesses } from '../../server/db';
 import { PostgresDayEvents } from '../../server/services/day-events-postgres';
-import { startHl7Feed } from '../../server/services/hl7/feed';
-import type { MllpListener } from '../../server/services/hl7/mllp-listener';
+import { startHl7Feed, type Hl7Feed } from '../../server/services/hl7/feed';
 import { EXAM_LIST_HEADER, toCsv } from '../fixtures/exam-lists';
 import { siu } from '../fixtures/siu-messages';
 import { MllpClient } from '../support/mllp-client';
@@ -119,7 +118,7 @@ const row = (acc: string, start: string) => [acc, 'MR 1', start, '30', 'MR exam'
   });
 
   describe('the HL7 listener', () => {
-    const feeds: MllpListener[] = [];
+    const feeds: Hl7Feed[] = [];
     afterAll(() => Promise.all(feeds.map((feed) => feed.close())), 30_000);
     /** A feed as each server starts it, trying to take over every 50 ms (5 s in a server). */
     const feedOn = (db: Knex, events: PostgresDayEvents) => {
@@ -128,13 +127,13 @@ const row = (acc: string, start: string) => [acc, 'MR 1', start, '30', 'MR exam'
       return feed;
     };
     /** Waits (within the test's timeout) until one of the feeds listens; answers which. */
-    const leaderOf = async (candidates: MllpListener[]): Promise<MllpListener> => {
+    const leaderOf = async (candidates: Hl7Feed[]): Promise<Hl7Feed> => {
       for (;;) {
         for (const feed of candidates) if (await feed.address()) return feed;
         await new Promise((resolve) => setTimeout(resolve, 20));
       }
     };
-    const acceptsMessages = async (feed: MllpListener, control: string) => {
+    const acceptsMessages = async (feed: Hl7Feed, control: string) => {
       const client = await MllpClient.connect((await feed.address())!.port);
       try {
         return await client.send(siu('S12', { control, accession: `HL7-${control}`, start: '20270311090000-0600', minutes: 30, room: 'MR 1' }));
@@ -148,6 +147,9 @@ const row = (acc: string, start: string) => [acc, 'MR 1', start, '30', 'MR exam'
       expect(await onA.address()).not.toBeNull();
       const onB = feedOn(dbB, eventsB);
       expect(await onB.address()).toBeNull();
+      // what each one's Interface log shows: where A listens, and, on B, the port every process is given
+      expect(await onA.served()).toEqual({ host: '127.0.0.1', port: (await onA.address())!.port });
+      expect(await onB.served()).toEqual({ host: '127.0.0.1', port: 0 });
       expect(await acceptsMessages(onA, 'A-1')).toContain('MSA|AA|');
 
       // the leader's session ends as when its process dies: it stops listening, and one of them leads again
