@@ -65,6 +65,8 @@ export const ABILITIES = {
   moveSlots: ['scheduler', 'charge', 'admin'],
   /** People on a turnover or a room; accept a suggested fix. */
   changeStaffing: ['charge', 'admin'],
+  /** "Make the day fit": ask for the whole-day proposal and apply it. */
+  makeDayFit: ['charge', 'admin'],
   /** Who is on shift on a day (the roster); every role may read it. */
   editRoster: ['charge', 'admin'],
   /** Replace a day's list from a file. */

@@ -18,9 +18,11 @@ import { LiveIndicator } from '../../shared/ui/live-indicator';
 import { SiteSettingsService } from '../../core/site/site-settings-service';
 import { VerdictSummary } from '../../shared/ui/verdict-summary';
 import { BandLegend } from './band-legend';
+import { DayFitStore } from './day-fit-store';
 import { DayPlanStore } from './day-plan-store';
 import { DayTimeline } from './day-timeline';
 import { ExamDialog, type ExamDialogData } from './exam-dialog';
+import { FitPanel } from './fit-panel';
 import { GapPanel } from './gap-panel';
 import { HistoryPanel } from './history-panel';
 import { PatientsToCallPanel } from './patients-to-call-panel';
@@ -39,9 +41,9 @@ import { RosterDialog, type RosterDialogData } from '../roster/roster-dialog';
   selector: 'tw-day-plan',
   imports: [
     MatButtonModule, MatButtonToggleModule, MatIconModule, MatProgressBarModule, MatSlideToggleModule, RouterLink,
-    BandLegend, CautionNote, DayPicker, DayTimeline, GapPanel, HistoryPanel, LiveIndicator, PatientsToCallPanel, PeopleView, VerdictSummary,
+    BandLegend, CautionNote, DayPicker, DayTimeline, FitPanel, GapPanel, HistoryPanel, LiveIndicator, PatientsToCallPanel, PeopleView, VerdictSummary,
   ],
-  providers: [DayPlanStore],
+  providers: [DayPlanStore, DayFitStore],
   changeDetection: ChangeDetectionStrategy.OnPush,
   host: { '(document:keydown)': 'onShortcut($event)' },
   templateUrl: './day-plan.html',
@@ -54,6 +56,7 @@ export class DayPlan {
   private readonly user = inject(AuthService).user;
   private readonly role = computed(() => this.user()?.role ?? null);
   protected readonly store = inject(DayPlanStore);
+  protected readonly fit = inject(DayFitStore);
   protected readonly today = inject(SiteSettingsService).today;
 
   /** `YYYY-MM-DD` from the address (`/day/…` or `/day?date=…`); absent means today at the site. */
@@ -86,6 +89,7 @@ export class DayPlan {
   protected readonly mayMove = computed(() => may(this.role(), 'moveSlots'));
   protected readonly mayStaff = computed(() => may(this.role(), 'changeStaffing'));
   protected readonly mayImport = computed(() => may(this.role(), 'importDayList'));
+  protected readonly mayFit = computed(() => may(this.role(), 'makeDayFit'));
   protected readonly empty = computed(() => this.store.plan()?.rooms.every((room) => room.exams.length === 0) ?? false);
   protected readonly selection = computed(() => {
     const toExamId = this.selectedGap();
@@ -144,7 +148,7 @@ export class DayPlan {
     // A block opens for every role; only a role that may move slots gets the form to change it.
     const readOnly = !this.mayMove();
     if (readOnly && !exam) return;
-    const data: ExamDialogData = { date: plan.date, rooms: plan.rooms.map((room) => ({ id: room.id, name: room.name })), exam, readOnly };
+    const data: ExamDialogData = { date: plan.date, rooms: plan.rooms.map((room) => ({ id: room.id, name: room.name })), exam, readOnly, mayPin: this.mayMove() };
     this.dialog
       .open<ExamDialog, ExamDialogData, PlannedDay>(ExamDialog, { data, width: '40rem' })
       .afterClosed()

@@ -10,6 +10,7 @@ import { DayPlanStore } from './day-plan-store';
 import { LANE_HEADER_PX, LANE_HEIGHT_PX } from './lane-size';
 import { centreAlongAxis, scrollToDayStart } from './lane-scroll';
 import { LaneWindow } from './lane-window';
+import type { FitGhost, FitPreview } from './fit-preview';
 import { previewMove } from './plan-preview';
 import { DragPointer, PointerDrag } from './pointer-drag';
 import { markStart, measureSinceStart } from './render-marks';
@@ -54,6 +55,10 @@ export class DayTimeline {
   readonly refusal = output<string>();
   /** An exam block clicked (without dragging it) or pressed with Enter or Space: open the exam. */
   readonly examOpened = output<PlanExam>();
+  /** A "make the day fit" proposal to show: its rooms instead of the plan's, old places ghosted. */
+  readonly fit = input<FitPreview | null>(null);
+  protected readonly noGhosts: readonly FitGhost[] = [];
+  protected readonly noneProposed: ReadonlySet<number> = new Set();
 
   private readonly scroller = viewChild.required<ElementRef<HTMLElement>>('scroller');
   private readonly lanesEl = viewChild.required<ElementRef<HTMLElement>>('laneList');
@@ -86,7 +91,8 @@ export class DayTimeline {
     return (input && previewMove(input, { examId: move.exam.id, roomId: move.roomId, start })) ?? null;
   });
   protected readonly lanes = computed((): PlanRoom[] => {
-    const rooms = this.plan().rooms;
+    const fit = this.fit();
+    const rooms = fit ? this.plan().rooms.map((room) => fit.rooms.get(room.id) ?? room) : this.plan().rooms;
     const move = this.pending();
     if (!move) return rooms;
     const preview = this.preview();

@@ -13,6 +13,7 @@ import { EXAM_LIST_LIMITS, MOBILITIES, PRECAUTIONS } from '@shared/exam-list';
 import { action } from '../../core/state/action';
 import { fieldMessage, showProblems } from '../setup/form-problems';
 import { DayPlanService } from './day-plan-service';
+import { PinToggle } from './pin-toggle';
 
 /** What the dialog opens on: the day, its rooms, and the exam to edit (none to add one). */
 export interface ExamDialogData {
@@ -21,6 +22,8 @@ export interface ExamDialogData {
   exam?: PlanExam | null;
   /** For a role that may not move slots: the exam's fields shown, nothing to save or cancel. */
   readOnly?: boolean;
+  /** The pin toggle ("make the day fit" never moves a pinned exam). */
+  mayPin?: boolean;
 }
 
 /**
@@ -31,7 +34,7 @@ export interface ExamDialogData {
  */
 @Component({
   selector: 'tw-exam-dialog',
-  imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule],
+  imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, PinToggle],
   changeDetection: ChangeDetectionStrategy.OnPush,
   // The import's messages run longer than a field is wide ("Accession "X" is already on the list
   // for …"): let them wrap under the field instead of being cut at one line.
@@ -102,6 +105,9 @@ export interface ExamDialogData {
           <textarea matInput formControlName="notes" rows="2"></textarea>
           <mat-error>{{ message('notes') }}</mat-error>
         </mat-form-field>
+        @if (exam && !readOnly && data.mayPin) {
+          <tw-pin-toggle [exam]="exam" />
+        }
         @if (formError(); as text) {
           <p class="form-error" role="alert">{{ text }}</p>
         }

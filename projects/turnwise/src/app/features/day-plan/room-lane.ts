@@ -7,6 +7,7 @@ import type { PlanRoom } from '@shared/api/plan';
 import { ExamBlock } from './exam-block';
 import { GapMarker } from './gap-marker';
 import { LaneSlot, clockOf, laneView } from './lane-view';
+import type { FitGhost } from './fit-preview';
 import { TimelineScale, xOf } from './timeline-scale';
 
 /**
@@ -35,11 +36,17 @@ export class RoomLane {
   readonly drawn = input(true);
   /** Exams the booking feed moved after a hand change (the day's history). */
   readonly movedByBooking = input<ReadonlySet<number>>(new Set());
+  /** "Make the day fit" preview: exams' old places in this lane, and the exams (or gaps) it changes. */
+  readonly ghosts = input<readonly FitGhost[]>([]);
+  readonly proposed = input<ReadonlySet<number>>(new Set());
   readonly gapOpened = output<number>();
   readonly staffChanged = output<number>();
   /** "N to check" was chosen: show the room's first problem gap. */
   readonly problemsOpened = output<void>();
 
+  protected readonly ghostViews = computed(() =>
+    this.ghosts().map((g) => ({ ...g, left: xOf(this.scale(), g.startMs), width: Math.max(2, xOf(this.scale(), g.endMs) - xOf(this.scale(), g.startMs)), label: `${g.accession} was here (${clockOf(g.start)})` })),
+  );
   /** Fewest and most people a turnover may have (the server's limits). */
   protected readonly staffRange = TURNOVER_STAFF;
   protected readonly span = computed(() => {

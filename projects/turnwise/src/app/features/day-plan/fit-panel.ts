@@ -1,0 +1,115 @@
+import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+
+import type { DayFitAnswer } from '@shared/api/day-fit';
+
+/** `HH:MM` of an ISO time written with the site's offset (as the server writes every time). */
+const clock = (iso: string) => iso.slice(11, 16);
+
+/**
+ * The proposal beside the timeline: what it changes, the patients to call, what stays unsolved
+ * and why, and Apply or Discard. The timeline shows the same proposal (old places ghosted).
+ */
+@Component({
+  selector: 'tw-fit-panel',
+  imports: [MatButtonModule, MatIconModule],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  host: { class: 'tw-fit-panel', role: 'region', 'aria-labelledby': 'tw-fit-title' },
+  template: `
+    @let p = proposal();
+    <header>
+      <h2 id="tw-fit-title">Make the day fit</h2>
+      <button mat-icon-button type="button" class="close" aria-label="Discard the proposal" (click)="discarded.emit()"><mat-icon svgIcon="close" /></button>
+    </header>
+    <p class="summary" role="status">{{ summary() }}</p>
+    <p class="solver">{{ solverWords() }}</p>
+    @if (p.calls.length > 0) {
+      <h3>Patients to call <span class="count">{{ p.calls.length }}</span></h3>
+      <ul class="calls">
+        @for (call of p.calls; track call.examId) {
+          <li><span class="accession">{{ call.accession }}</span> {{ time(call.fromStart) }} → {{ time(call.toStart) }}{{ roomChange(call.fromRoomId, call.toRoomId) }}</li>
+        }
+      </ul>
+    }
+    @if (otherMoves().length > 0) {
+      <h3>Other rooms, same time</h3>
+      <ul class="calls">
+        @for (move of otherMoves(); track move.examId) {
+          <li><span class="accession">{{ move.accession }}</span> {{ roomName(move.from.roomId) }} → {{ roomName(move.to.roomId) }}</li>
+        }
+      </ul>
+    }
+    @if (p.helpers.length > 0) {
+      <h3>Helpers</h3>
+      <ul class="calls">
+        @for (h of p.helpers; track h.toExamId) {
+          <li>{{ h.label }} on the turnover before <span class="accession">{{ h.accession }}</span> ({{ h.staffFrom }} → {{ h.staffTo }} people)</li>
+        }
+      </ul>
+    }
+    @if (p.remaining.length > 0) {
+      <h3 class="unsolved">Still short or overlapping <span class="count">{{ p.remaining.length }}</span></h3>
+      <ul class="remaining">
+        @for (gap of p.remaining; track gap.toExamId) {
+          <li><span class="accession">{{ gap.accession }}</span> in {{ roomName(gap.roomId) }}: {{ gap.verdict }}{{ gap.shortByMinutes ? ', short by ' + gap.shortByMinutes + ' min' : '' }} — {{ gap.reason }}</li>
+        }
+      </ul>
+    }
+    @if (p.fixed.length > 0) {
+      <p class="fixed">Not moved: {{ fixedWords() }}.</p>
+    }
+    <div class="actions">
+      <button mat-flat-button type="button" class="apply" [disabled]="busy() || p.changes.length === 0" (click)="applied.emit()">Apply</button>
+      <button mat-stroked-button type="button" class="discard" [disabled]="busy()" (click)="discarded.emit()">Discard</button>
+    </div>
+  `,
+  styles: `
+    :host { display: grid; gap: 8px; padding: 12px 16px; border-radius: var(--tw-radius-l); border: 1px solid var(--mat-sys-outline-variant); background: var(--mat-sys-surface-container-low); align-content: start; }
+    header { display: flex; align-items: center; justify-content: space-between; }
+    h2 { margin: 0; font: var(--mat-sys-title-medium); }
+    h3 { margin: 4px 0 0; font: var(--mat-sys-title-small); display: flex; gap: 8px; align-items: baseline; }
+    .count { font: var(--mat-sys-label-large); color: var(--mat-sys-on-surface-variant); }
+    p { margin: 0; font: var(--mat-sys-body-medium); }
+    .solver, .fixed { color: var(--mat-sys-on-surface-variant); font: var(--mat-sys-body-small); }
+    ul { margin: 0; padding: 0 0 0 18px; font: var(--mat-sys-body-medium); font-variant-numeric: tabular-nums; display: grid; gap: 2px; }
+    .accession { font-weight: 500; }
+    .actions { display: flex; gap: 8px; flex-wrap: wrap; margin-top: 4px; }
+  `,
+})
+export class FitPanel {
+  readonly proposal = input.required<DayFitAnswer>();
+  readonly rooms = input.required<readonly { id: number; name: string }[]>();
+  readonly busy = input(false);
+  readonly applied = output<void>();
+  readonly discarded = output<void>();
+
+  protected readonly time = clock;
+  protected readonly otherMoves = computed(() => this.proposal().moves.filter((m) => m.minutesMoved === 0));
+  protected readonly summary = computed(() => {
+    const { objective, remaining, changes } = this.proposal();
+    if (changes.length === 0 && remaining.length === 0) return 'Every gap already fits: nothing to change.';
+    const parts = [`${objective.examsMoved} exam${objective.examsMoved === 1 ? '' : 's'} moved`];
+    if (objective.minutesMoved > 0) parts.push(`${objective.minutesMoved} min in all`);
+    if (objective.helpersAdded > 0) parts.push(`${objective.helpersAdded} helper${objective.helpersAdded === 1 ? '' : 's'}`);
+    if (objective.dayEndsAt) parts.push(`the day ends at ${clock(objective.dayEndsAt)}`);
+    const cleared = remaining.length === 0 ? 'Clears every short and overlapping gap' : `Leaves ${remaining.length} gap${remaining.length === 1 ? '' : 's'} short or overlapping`;
+    return `${cleared}: ${parts.join(', ')}.`;
+  });
+  protected readonly solverWords = computed(() => {
+    const { solver } = this.proposal();
+    if (solver.status === 'nothing-to-do') return 'Nothing to solve.';
+    const scope = solver.scope === 'whole' ? 'whole day' : 'around each problem gap';
+    if (solver.status === 'optimal') return `Best possible (${scope}); found in ${(solver.milliseconds / 1000).toFixed(1)} s.`;
+    return `Best found within the time limit (${scope}); optimality gap ${(solver.mipGap * 100).toFixed(0)} %.`;
+  });
+  protected readonly fixedWords = computed(() => this.proposal().fixed.map((f) => `${f.accession} (${f.reason})`).join(', '));
+
+  protected roomName(id: number): string {
+    return this.rooms().find((r) => r.id === id)?.name ?? `room ${id}`;
+  }
+
+  protected roomChange(from: number, to: number): string {
+    return from === to ? '' : `, ${this.roomName(from)} → ${this.roomName(to)}`;
+  }
+}
