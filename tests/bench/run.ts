@@ -1,4 +1,5 @@
 import { benchBundle } from './bundle.bench';
+import { benchDayFit } from './day-fit.bench';
 import { benchEngine } from './engine.bench';
 import { benchFixes } from './fixes.bench';
 import { benchHl7 } from './hl7.bench';
@@ -12,7 +13,7 @@ import { benchTimeline } from './timeline.bench';
 async function main(): Promise<void> {
   console.log(`Turnwise benchmarks — Node ${process.version}, ${new Date().toISOString()}`);
   // The bundle bench goes first: it rebuilds a stale client, which the timeline bench then drives.
-  for (const bench of [benchBundle, benchEngine, benchTime, benchFixes, benchImport, benchPlan, benchPgProcesses, benchHl7, benchTimeline]) {
+  for (const bench of [benchBundle, benchEngine, benchTime, benchFixes, benchDayFit, benchImport, benchPlan, benchPgProcesses, benchHl7, benchTimeline]) {
     for (const line of await bench()) console.log(line);
   }
 }
