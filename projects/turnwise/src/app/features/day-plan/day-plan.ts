@@ -188,8 +188,14 @@ export class DayPlan {
 
   private openProblem(problem: ProblemGap): void {
     this.selectedGap.set(problem.gap.toExamId);
-    if (this.shownView() === 'people') this.peopleView()?.reveal(problem.gap.toExamId);
-    else this.timeline()?.reveal(problem.room.id, problem.gap.toExamId);
+    // Once the panel is drawn (its heading takes the keyboard as it opens), the keyboard goes back to the gap's mark.
+    afterNextRender(
+      () => {
+        if (this.shownView() === 'people') this.peopleView()?.reveal(problem.gap.toExamId);
+        else this.timeline()?.reveal(problem.room.id, problem.gap.toExamId);
+      },
+      { injector: this.injector },
+    );
   }
 
   protected onShortcut(event: KeyboardEvent): void {

@@ -81,6 +81,15 @@ describe('Day plan people view', () => {
     expect(document.activeElement).toBe(work(page, 2));
   });
 
+  it('steps to the next problem gap with ] and puts the keyboard on its work', async () => {
+    const { page, fixture, backend } = await showPeople();
+    document.dispatchEvent(new KeyboardEvent('keydown', { key: ']', bubbles: true }));
+    await settle(fixture);
+    backend.match(() => true);
+    expect(text(page.querySelector('tw-gap-panel h2'))).toBe('Turnover before ACC-2');
+    expect(document.activeElement).toBe(work(page, 2));
+  });
+
   it('draws a clash with its hatched band, icon and word, and says it in both blocks and above the lanes', async () => {
     const { page } = await showPeople(clashingPlan());
     const clash = page.querySelector('tw-person-lane .clash')!;
