@@ -120,7 +120,8 @@ class PostgresLeadership implements Leadership {
   }
 
   private async connect(): Promise<Client> {
-    const client = new Client({ ...(this.db.client.connectionSettings as ClientConfig), keepAlive: true });
+    // bounded, so a database that stops answering costs a turn (and the lead), never a hung close
+    const client = new Client({ ...(this.db.client.connectionSettings as ClientConfig), keepAlive: true, connectionTimeoutMillis: 10_000, query_timeout: 10_000 });
     client.on('error', (err) => {
       if (!this.closed) this.options.logError(err);
       this.dropped(client);
