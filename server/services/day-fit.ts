@@ -2,10 +2,11 @@ import type { Knex } from 'knex';
 import { DateTime } from 'luxon';
 import type { DayFitAnswer, DayFitApplyInput } from '../../shared/api/day-fit';
 import type { FixedReason } from '../../shared/day-fit';
+import { spareHelpers } from '../../shared/day-fit/roster-helpers';
 import type { Problem } from '../../shared/api/errors';
 import { NotFoundError, Refusal, ValidationError } from '../errors';
 import type { DayFitPool } from '../workers/day-fit-pool';
-import { loadDayPlanInput } from './day-plan';
+import { loadDayPlan, loadDayPlanInput } from './day-plan';
 import { dayVersion } from './day-version';
 import { applyChanges, recordChange } from './plan-changes';
 import { roomsOnDay } from './room-hours';
@@ -33,13 +34,19 @@ export async function fixedExams(db: Knex, day: string): Promise<Map<number, Fix
 
 /**
  * The whole-day proposal, solved in the day-fit worker on the day as stored now. The roster's
- * crews are not part of the model yet: each room plans with its own staff (and set helpers),
- * as suggested fixes do; no spare person is offered as a helper.
+ * crews are not part of the model yet: each room plans with its own staff (and set helpers), as
+ * suggested fixes do. With a roster, the people it leaves idle in the current plan are offered
+ * as helpers (`spareHelpers`), with the site's walking time between two of their turnovers.
  */
 export async function proposeFit(db: Knex, pool: DayFitPool, day: string): Promise<DayFitAnswer> {
   const version = await dayVersion(db, day);
-  const [{ roster: _roster, ...input }, fixed] = await Promise.all([loadDayPlanInput(db, day), fixedExams(db, day)]);
-  const proposal = await pool.propose(`${day}@${version}`, { input, options: { fixed: Object.fromEntries(fixed) } });
+  const [{ roster: _roster, ...input }, fixed, plan] = await Promise.all([loadDayPlanInput(db, day), fixedExams(db, day), loadDayPlan(db, day)]);
+  const options = {
+    fixed: Object.fromEntries(fixed),
+    helpers: plan.people ? spareHelpers(plan.people) : [],
+    walkingMinutes: plan.people?.walkingMinutes ?? 0,
+  };
+  const proposal = await pool.propose(`${day}@${version}`, { input, options });
   const accession = new Map(input.exams.map((e) => [e.id, e.accession]));
   return {
     ...proposal,

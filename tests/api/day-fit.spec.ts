@@ -1,3 +1,4 @@
+import { EXAM_LIST_HEADER, toCsv } from '../fixtures/exam-lists';
 import { signedIn, startHarness, type Client, type Harness } from './harness';
 
 const DAY = '2027-03-10'; // the demo seed's "today" for this clock (America/Chicago)
@@ -78,6 +79,31 @@ describe('make the day fit (API, real database)', () => {
     expect(res.body.error.code).toBe('validation_failed');
     expect(res.body.error.details.problems.map((p: { field: string }) => p.field)).toEqual(['changes.0', 'changes.1.to.roomId']);
     await scheduler.put(`/api/exams/${a!.id}/pin`, { pinned: false });
+  }, 120_000);
+
+  it('adds an idle aide to a short gap between two pinned exams (invented example), and undo takes the helper off', async () => {
+    const day = '2027-03-12';
+    // MR 1 (one person): HX-2 starts 15 min after HX-1 ends; a plain turnover needs 20 min with one person, 14 with two.
+    const row = (acc: string, start: string) => [acc, 'MR 1', start, '30', 'MR knee without contrast', 'knee', 'none', 'ambulatory', 'no', ''];
+    const csv = toCsv([EXAM_LIST_HEADER, row('HX-1', '09:00'), row('HX-2', '09:45')]);
+    expect((await charge.upload(`/api/days/${day}/exams/import`, csv, 'list.csv')).status).toBe(200);
+    const plan: Plan = (await charge.get(`/api/days/${day}/plan`)).body;
+    const exams = plan.rooms.flatMap((r) => r.exams);
+    for (const exam of exams) expect((await scheduler.put(`/api/exams/${exam.id}/pin`, { pinned: true })).status).toBe(200);
+    // Two aides for MR 1: one works its turnovers (its staff is one), the other is idle.
+    const rows = [{ name: null, role: 'aide', count: 2, start: '08:00', end: '12:00', breaks: [], roomIds: [plan.rooms.find((r) => r.exams.length > 0)!.id] }];
+    expect((await charge.put(`/api/days/${day}/roster`, { rows })).status).toBe(200);
+    const before: Plan = (await charge.get(`/api/days/${day}/plan`)).body;
+
+    const proposal = (await charge.post(`/api/days/${day}/fit`)).body;
+    expect(proposal.moves).toEqual([]);
+    expect(proposal.helpers).toEqual([expect.objectContaining({ accession: 'HX-2', staffFrom: 1, staffTo: 2 })]);
+    expect(proposal.remaining).toEqual([]);
+    const applied = await charge.post(`/api/days/${day}/fit/apply`, { dayVersion: proposal.dayVersion, changes: proposal.changes });
+    expect(applied.status).toBe(200);
+    expect((await charge.post(`/api/days/${day}/undo`)).status).toBe(200);
+    const after: Plan = (await charge.get(`/api/days/${day}/plan`)).body;
+    expect([places(after), staffing(after)]).toEqual([places(before), staffing(before)]);
   }, 120_000);
 
   it('refuses a bad body with 422 listing its problems, and an unknown exam with 404', async () => {
