@@ -7,7 +7,7 @@ import type { Problem } from '../../shared/api/errors';
 import { NotFoundError, Refusal, ValidationError } from '../errors';
 import type { DayFitPool } from '../workers/day-fit-pool';
 import { loadDayPlan, loadDayPlanInput } from './day-plan';
-import { dayVersion } from './day-version';
+import { dayVersion, planVersions } from './day-version';
 import { applyChanges, recordChange } from './plan-changes';
 import { roomsOnDay } from './room-hours';
 import { readSettings } from './settings';
@@ -39,14 +39,15 @@ export async function fixedExams(db: Knex, day: string): Promise<Map<number, Fix
  * as helpers (`spareHelpers`), with the site's walking time between two of their turnovers.
  */
 export async function proposeFit(db: Knex, pool: DayFitPool, day: string): Promise<DayFitAnswer> {
-  const version = await dayVersion(db, day);
+  const versions = await planVersions(db, day);
+  const version = versions.day;
   const [{ roster: _roster, ...input }, fixed, plan] = await Promise.all([loadDayPlanInput(db, day), fixedExams(db, day), loadDayPlan(db, day)]);
   const options = {
     fixed: Object.fromEntries(fixed),
     helpers: plan.people ? spareHelpers(plan.people) : [],
     walkingMinutes: plan.people?.walkingMinutes ?? 0,
   };
-  const proposal = await pool.propose(`${day}@${version}`, { input, options });
+  const proposal = await pool.propose(`${day}@${versions.day}/${versions.setup}`, { input, options });
   const accession = new Map(input.exams.map((e) => [e.id, e.accession]));
   return {
     ...proposal,

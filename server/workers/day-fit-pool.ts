@@ -3,6 +3,8 @@ import { HttpError } from '../errors';
 import type { DayFitTask } from './day-fit-task';
 import { createThreadPool, poolFailure } from './thread-pool';
 
+const RECENT_ANSWERS = 8;
+
 export interface DayFitPoolOptions {
   /** Threads at most; default 1, leaving the other core of a small server to the event loop. */
   maxThreads?: number;
@@ -14,7 +16,10 @@ export interface DayFitPoolOptions {
 
 /** Whole-day proposals computed in a worker thread, one solve per day and version at a time. */
 export interface DayFitPool {
-  /** The proposal for `key` (day and version); a call for a key already being solved shares that solve. */
+  /**
+   * The proposal for `key` (the day and the versions of the day and the setup): a call for a key
+   * already being solved shares that solve, and one of the last few answered gets that answer.
+   */
   propose(key: string, task: DayFitTask): Promise<DayFitProposal>;
   close(): Promise<void>;
 }
@@ -38,14 +43,23 @@ export function createDayFitPool(options: DayFitPoolOptions = {}): DayFitPool {
   });
   const solveMs = options.solveMs ?? 8_000;
   const running = new Map<string, Promise<DayFitProposal>>();
+  // The last few answers: the same day at the same versions gets the same proposal again at once.
+  const recent = new Map<string, DayFitProposal>();
   return {
     propose(key, task) {
+      const done = recent.get(key);
+      if (done) return Promise.resolve(done);
       let solve = running.get(key);
       if (!solve) {
         solve = pool
           .run<DayFitProposal>('dayFitTask', { ...task, options: { timeLimitMs: solveMs, ...task.options } }, (task.options.timeLimitMs ?? solveMs) + 20_000)
           .catch((error: unknown) => {
             throw poolFailure(error) === null ? error : busy();
+          })
+          .then((proposal) => {
+            if (recent.size >= RECENT_ANSWERS) recent.delete(recent.keys().next().value!);
+            recent.set(key, proposal);
+            return proposal;
           })
           .finally(() => running.delete(key));
         running.set(key, solve);
