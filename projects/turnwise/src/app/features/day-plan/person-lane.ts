@@ -4,9 +4,6 @@ import { MatIconModule } from '@angular/material/icon';
 import type { PersonLaneView } from './person-lane-view';
 import type { TimelineScale } from './timeline-scale';
 
-/** A person's lane in pixels (person-lane.scss draws the same): shorter than a room's, since it holds one row of work. */
-export const PERSON_LANE_PX = 84;
-
 /**
  * One person's lane in the people view: a header (name, hours, turnovers, rooms covered) and along
  * the time axis their shift (time off shift shaded), breaks, walks between rooms, free time, each
