@@ -44,7 +44,7 @@ import { SetupApi } from './setup-api';
       <mat-form-field>
         <mat-label>Walking time between rooms (minutes)</mat-label>
         <input matInput type="number" formControlName="walkingMinutes" [min]="walking.min" [max]="walking.max" step="1" required />
-        <mat-hint>For the roster: how long a person takes to get from one room to another. 3 is common practice, no source: time your own corridor</mat-hint>
+        <mat-hint>Roster: room to room; 3 is common practice (no source)</mat-hint>
         <mat-error>{{ message('walkingMinutes') }}</mat-error>
       </mat-form-field>
       <mat-form-field>
