@@ -101,7 +101,8 @@ export class FitPanel {
     if (solver.status === 'nothing-to-do') return 'Nothing to solve.';
     const scope = solver.scope === 'whole' ? 'whole day' : 'around each problem gap';
     if (solver.status === 'optimal') return `Best possible (${scope}); found in ${(solver.milliseconds / 1000).toFixed(1)} s.`;
-    return `Best found within the time limit (${scope}); optimality gap ${(solver.mipGap * 100).toFixed(0)} %.`;
+    const gap = solver.mipGap >= 1 ? 'not known' : `${(solver.mipGap * 100).toFixed(0)} %`;
+    return `Best found within the time limit (${scope}); optimality gap ${gap}.`;
   });
   protected readonly fixedWords = computed(() => this.proposal().fixed.map((f) => `${f.accession} (${f.reason})`).join(', '));
 

@@ -1,0 +1,71 @@
+import { TestBed } from '@angular/core/testing';
+
+import type { DayFitAnswer } from '@shared/api/day-fit';
+import { provideIcons } from '../../core/layout/icons';
+import { FitPanel } from './fit-panel';
+
+/** An invented proposal: FX-2 pushed 10 min, FX-5 to MR 2 at the same time, one gap left in MR 3. */
+const PROPOSAL: DayFitAnswer = {
+  date: '2027-03-16',
+  changes: [
+    { type: 'move', examId: 2, accession: 'FX-2', from: { roomId: 1, start: '2027-03-16T08:40:00-05:00' }, to: { roomId: 1, start: '2027-03-16T08:50:00-05:00' } },
+    { type: 'move', examId: 5, accession: 'FX-5', from: { roomId: 1, start: '2027-03-16T10:00:00-05:00' }, to: { roomId: 2, start: '2027-03-16T10:00:00-05:00' } },
+  ],
+  moves: [
+    { examId: 2, accession: 'FX-2', kind: 'shift', from: { roomId: 1, start: '2027-03-16T08:40:00-05:00' }, to: { roomId: 1, start: '2027-03-16T08:50:00-05:00' }, minutesMoved: 10 },
+    { examId: 5, accession: 'FX-5', kind: 'other-room', from: { roomId: 1, start: '2027-03-16T10:00:00-05:00' }, to: { roomId: 2, start: '2027-03-16T10:00:00-05:00' }, minutesMoved: 0 },
+  ],
+  calls: [{ examId: 2, accession: 'FX-2', fromStart: '2027-03-16T08:40:00-05:00', toStart: '2027-03-16T08:50:00-05:00', fromRoomId: 1, toRoomId: 1 }],
+  helpers: [],
+  remaining: [{ fromExamId: 8, toExamId: 9, accession: 'FX-9', roomId: 3, verdict: 'short', shortByMinutes: 4, reason: 'neither exam may move: FX-8 has arrived, FX-9 is pinned' }],
+  objective: { gapsLeft: 1, examsMoved: 2, minutesMoved: 10, dayEndsAt: '2027-03-16T18:40:00-05:00', helpersAdded: 0 },
+  before: { fits: 10, snug: 1, short: 3, overlap: 0, minutesShort: 20 },
+  after: { fits: 12, snug: 1, short: 1, overlap: 0, minutesShort: 4 },
+  solver: { status: 'optimal', mipGap: 0, scope: 'whole', solves: 2, clusters: 1, milliseconds: 420 },
+  dayVersion: 7,
+  fixed: [{ examId: 8, accession: 'FX-8', reason: 'arrived' }, { examId: 9, accession: 'FX-9', reason: 'pinned' }],
+};
+
+async function render(proposal = PROPOSAL) {
+  TestBed.configureTestingModule({ imports: [FitPanel], providers: [provideIcons()] });
+  const fixture = TestBed.createComponent(FitPanel);
+  fixture.componentRef.setInput('proposal', proposal);
+  fixture.componentRef.setInput('rooms', [{ id: 1, name: 'MR 1' }, { id: 2, name: 'MR 2' }, { id: 3, name: 'MR 3' }]);
+  await fixture.whenStable();
+  const host = fixture.nativeElement as HTMLElement;
+  return { fixture, host, text: () => host.textContent!.replace(/\s+/g, ' ') };
+}
+
+describe('FitPanel', () => {
+  it('lists the patients to call, the other-room moves and what stays unsolved with its reason', async () => {
+    const { text } = await render();
+    expect(text()).toContain('Leaves 1 gap short or overlapping: 2 exams moved, 10 min in all, the day ends at 18:40.');
+    expect(text()).toContain('FX-2 08:40 → 08:50');
+    expect(text()).toContain('FX-5 MR 1 → MR 2');
+    expect(text()).toContain('FX-9 in MR 3: short, short by 4 min — neither exam may move: FX-8 has arrived, FX-9 is pinned');
+    expect(text()).toContain('Not moved: FX-8 (arrived), FX-9 (pinned).');
+    expect(text()).toContain('Best possible (whole day)');
+  });
+
+  it('emits applied and discarded from its buttons', async () => {
+    const { fixture, host } = await render();
+    const applied = jest.fn();
+    const discarded = jest.fn();
+    fixture.componentInstance.applied.subscribe(applied);
+    fixture.componentInstance.discarded.subscribe(discarded);
+    host.querySelector<HTMLButtonElement>('button.apply')!.click();
+    host.querySelector<HTMLButtonElement>('button.discard')!.click();
+    expect([applied.mock.calls.length, discarded.mock.calls.length]).toEqual([1, 1]);
+  });
+
+  it('says the day already fits and offers no Apply when there is nothing to change', async () => {
+    const { host, text } = await render({ ...PROPOSAL, changes: [], moves: [], calls: [], remaining: [], fixed: [], solver: { ...PROPOSAL.solver, status: 'nothing-to-do' } });
+    expect(text()).toContain('Every gap already fits: nothing to change.');
+    expect(host.querySelector<HTMLButtonElement>('button.apply')!.disabled).toBe(true);
+  });
+
+  it('says when the time limit cut the search short, with the optimality gap', async () => {
+    const { text } = await render({ ...PROPOSAL, solver: { ...PROPOSAL.solver, status: 'time-limit', mipGap: 0.12, scope: 'neighbourhood' } });
+    expect(text()).toContain('Best found within the time limit (around each problem gap); optimality gap 12 %.');
+  });
+});
