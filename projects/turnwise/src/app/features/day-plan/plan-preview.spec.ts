@@ -43,6 +43,23 @@ describe('previewMove', () => {
     expect(after.get(2)!.gaps.find((gap) => gap.toExamId === 4)!.staff).toBe(3);
   });
 
+  it('with a roster, counts the people busy in rooms the move does not touch, as the server does', () => {
+    // Invented: one aide covers MR 1 and MR 3 (3 minutes' walk); MR 3's patient leaves at 08:20, so
+    // the aide turns MR 3 over until 08:40 and reaches MR 1 at 08:43: ready 09:03.
+    const mr3: Room = { id: 3, name: 'MR 3', modality: 'MR', airChangesPerHour: 8, staff: 1, opensAt: '07:00', closesAt: '19:00' };
+    const rostered: DayPlanInput = {
+      ...input,
+      rooms: [...rooms, mr3],
+      exams: [...input.exams, exam(5, 3, '07:50'), exam(6, 3, '09:30')],
+      roster: { source: 'day', walkingMinutes: 3, people: [{ id: 'r1-1', name: null, label: 'Aide 1', role: 'aide', start: '07:00', end: '15:00', breaks: [], roomIds: [1, 3] }] },
+    };
+    const after = previewMove(rostered, { examId: 2, roomId: 1, start: '2027-03-15T09:00:00-05:00' })!;
+    expect([...after.keys()]).toEqual([1]);
+    expect(after.get(1)!.gaps[1]).toMatchObject({ verdict: 'short', shortByMinutes: 3, crew: ['r1-1'], people: { kind: 'busy', roomId: 3 } });
+    const moved = { ...rostered, exams: rostered.exams.map((e) => (e.id === 2 ? { ...e, start: '2027-03-15T09:00:00-05:00' } : e)) };
+    expect(after.get(1)).toEqual(computeDayPlan(moved).rooms[0]);
+  });
+
   it('returns null for an exam that is not on the day', () => {
     expect(previewMove(input, { examId: 99, roomId: 1, start: '2027-03-15T08:55:00-05:00' })).toBeNull();
   });

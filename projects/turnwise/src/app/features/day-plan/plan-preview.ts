@@ -12,8 +12,10 @@ export interface SlotMove {
 
 /**
  * The rooms a move touches (where the slot was and where it would go), recomputed with the same
- * engine as the server on the input the plan came with (`PlannedDay.input`); other rooms cannot
- * change, so they are not computed. Null when the engine refuses the input.
+ * engine as the server on the input the plan came with (`PlannedDay.input`); without a roster
+ * other rooms cannot change, so they are not computed. With one, people are shared between rooms,
+ * so the whole day is computed (as the server does) and the touched rooms taken from it. Null when
+ * the engine refuses the input.
  */
 export function previewMove(input: DayPlanInput, move: SlotMove): Map<number, PlanRoom> | null {
   const exam = input.exams.find((candidate) => candidate.id === move.examId);
@@ -28,12 +30,14 @@ export function previewMove(input: DayPlanInput, move: SlotMove): Map<number, Pl
   };
   const moved = withChanges(input, [change]);
   try {
-    const plan = computeDayPlan({
-      ...moved,
-      rooms: moved.rooms.filter((room) => touched.has(room.id)),
-      exams: moved.exams.filter((candidate) => touched.has(candidate.roomId)),
-    });
-    return new Map(plan.rooms.map((room) => [room.id, room]));
+    const plan = moved.roster
+      ? computeDayPlan(moved)
+      : computeDayPlan({
+          ...moved,
+          rooms: moved.rooms.filter((room) => touched.has(room.id)),
+          exams: moved.exams.filter((candidate) => touched.has(candidate.roomId)),
+        });
+    return new Map(plan.rooms.filter((room) => touched.has(room.id)).map((room) => [room.id, room]));
   } catch {
     return null;
   }
