@@ -70,7 +70,13 @@ export function personFit(person: CrewPerson, fromMs: number, busyMs: number): n
   return t + busyMs <= person.endMs ? t : Infinity;
 }
 
-/** When the person can be in `roomId`, from where they stand (walking to another room). */
+/**
+ * When the person can be in `roomId`, from where they stand: free there, or free elsewhere plus
+ * the walk; -Infinity before their first job (they start the shift wherever they are needed).
+ *
+ * @example
+ * arrivalAt({ freeMs: t, roomId: 2 }, 1, 3 * 60_000); // t + 3 minutes
+ */
 export function arrivalAt(state: PersonState, roomId: number, walkMs: number): number {
   if (state.roomId === null) return -Infinity;
   return state.roomId === roomId ? state.freeMs : state.freeMs + walkMs;
@@ -96,7 +102,12 @@ export function crewStart(problem: CrewProblem, job: CrewJob, crew: readonly num
   }
 }
 
-/** People who cover the job's room (in person order). */
+/**
+ * People who cover the job's room (in person order).
+ *
+ * @example
+ * eligiblePeople(problem, problem.jobs[0]); // [0, 2]
+ */
 export function eligiblePeople(problem: CrewProblem, job: CrewJob): number[] {
   const out: number[] = [];
   problem.people.forEach((person, p) => {
