@@ -16,12 +16,14 @@ function scoreOf(input: Parameters<typeof fitDay>[0], proposal: DayFitProposal):
 }
 
 describe('proposeDayFit against exhaustive enumeration', () => {
-  // Invented small days: two MR rooms, up to 6 exams, starts on a 15-minute grid (the MIP on the same grid).
-  for (let seed = 1; seed <= 40; seed++) {
-    it(`finds the enumeration's best proposal (invented day ${seed})`, () => {
-      const { input, fixed } = smallDay(seed, 15);
-      const best = bestByEnumeration(input, { grid: 15, fixed });
-      const proposal = proposeDayFit(input, solve, { fixed, gridMinutes: 15, timeLimitMs: 60_000 });
+  // Invented small days: two MR rooms, up to 3 exams each on a 15-minute grid (days 1–40), or
+  // up to 4 each on a 30-minute grid (days 201–216); the MIP on the same grid as the enumeration.
+  const days = [...Array.from({ length: 40 }, (_, i) => [i + 1, 3, 15]), ...Array.from({ length: 16 }, (_, i) => [201 + i, 4, 30])] as const;
+  for (const [seed, mostPerRoom, grid] of days) {
+    it(`finds the enumeration's best proposal (invented day ${seed}, up to ${mostPerRoom} exams a room, ${grid}-minute grid)`, () => {
+      const { input, fixed } = smallDay(seed, grid, mostPerRoom);
+      const best = bestByEnumeration(input, { grid, fixed });
+      const proposal = proposeDayFit(input, solve, { fixed, gridMinutes: grid, timeLimitMs: 60_000 });
       expect(proposal.solver.status === 'optimal' || proposal.solver.status === 'nothing-to-do').toBe(true);
       if (proposal.solver.status === 'nothing-to-do') expect(best.score[1]).toBe(0);
       else if (best.score[0] === 0) expect(scoreOf(input, proposal)).toEqual(best.score);

@@ -5,14 +5,14 @@ import type { FixedReason } from '../model';
 
 /**
  * An invented small day that enumeration can search in full: two MR rooms open 07:00 to
- * 08:30–09:30, 1–3 exams each on a `grid`-minute grid, booked back to back with gaps of 0–30
+ * 08:30–09:30, 1 to `mostPerRoom` exams each on a `grid`-minute grid, booked back to back with gaps of 0–30
  * minutes (so some are short or overlap), every precaution and mobility now and then, and
  * sometimes one exam fixed.
  *
  * @example
  * smallDay(3, 15).input.exams.length; // 2 to 6
  */
-export function smallDay(seed: number, grid: number): { input: DayPlanInput; fixed: Record<number, FixedReason> } {
+export function smallDay(seed: number, grid: number, mostPerRoom = 3): { input: DayPlanInput; fixed: Record<number, FixedReason> } {
   const next = seededRandom(seed);
   const int = (min: number, max: number) => min + Math.floor(next() * (max - min + 1));
   const pick = <T>(list: readonly T[]): T => list[Math.floor(next() * list.length)]!;
@@ -30,7 +30,7 @@ export function smallDay(seed: number, grid: number): { input: DayPlanInput; fix
   const fixed: Record<number, FixedReason> = {};
   for (const room of rooms) {
     let minute = 7 * 60 + grid * int(0, 2);
-    for (let k = int(1, 3); k > 0; k--) {
+    for (let k = int(1, mostPerRoom); k > 0; k--) {
       const id = exams.length + 1;
       const durationMinutes = pick([10, 15, 20, 30]);
       if (minute + durationMinutes > 9 * 60) break;
