@@ -57,7 +57,7 @@ const clock = (iso: string) => iso.slice(11, 16);
       </ul>
     }
     @if (p.fixed.length > 0) {
-      <p class="fixed">Not moved: {{ fixedWords() }}.</p>
+      <p class="fixed" [title]="fixedList()">May not move: {{ fixedWords() }}.</p>
     }
     <div class="actions">
       <button mat-flat-button type="button" class="apply" [disabled]="busy() || p.changes.length === 0" (click)="applied.emit()">Apply</button>
@@ -104,7 +104,16 @@ export class FitPanel {
     const gap = solver.mipGap >= 1 ? 'not known' : `${(solver.mipGap * 100).toFixed(0)} %`;
     return `Best found within the time limit (${scope}); optimality gap ${gap}.`;
   });
-  protected readonly fixedWords = computed(() => this.proposal().fixed.map((f) => `${f.accession} (${f.reason})`).join(', '));
+  /** By reason, short enough for a busy afternoon ("12 started, 2 arrived, FX-9 pinned"); every accession in the title. */
+  protected readonly fixedWords = computed(() => {
+    const fixed = this.proposal().fixed;
+    return (['started', 'arrived', 'pinned'] as const)
+      .map((reason) => fixed.filter((f) => f.reason === reason))
+      .filter((list) => list.length > 0)
+      .map((list) => (list.length <= 2 ? `${list.map((f) => f.accession).join(', ')} ${list[0]!.reason}` : `${list.length} ${list[0]!.reason}`))
+      .join('; ');
+  });
+  protected readonly fixedList = computed(() => this.proposal().fixed.map((f) => `${f.accession} (${f.reason})`).join(', '));
 
   protected roomName(id: number): string {
     return this.rooms().find((r) => r.id === id)?.name ?? `room ${id}`;
