@@ -18,6 +18,9 @@ const REACHES: readonly Reach[] = [
   { neighbours: 3, shiftMinutes: 180, roomsPerBlock: 4, maxFree: 10 },
 ];
 
+/** Longest one solve may take (a small cluster that needs longer is rarely worth it). */
+const MAX_SOLVE_SECONDS = 2;
+
 interface SolveTally {
   solves: number;
   clusters: number;
@@ -130,7 +133,8 @@ function solveLevels(
   let gapsLeft = 0;
   const levels = m.levels.map((terms, index) => ({ terms, index }));
   const run = (terms: readonly Term[], extra: ReturnType<typeof lpRow>[], share: number): MipResult => {
-    const seconds = Math.max(0.05, ((deadline - now()) / 1000) * share);
+    // One hard cluster may not eat the day's budget: a solve stops at its cap with its best point.
+    const seconds = Math.min(MAX_SOLVE_SECONDS, Math.max(0.05, ((deadline - now()) / 1000) * share));
     const answer = mip(m.lp.text(terms, extra), seconds);
     tally.solves++;
     if (answer.status === 'time-limit' || (answer.values && answer.status !== 'optimal')) tally.timeLimited = true;
