@@ -52,7 +52,7 @@ export interface ErrorDetails {
   nothing_to_undo: undefined;
   /** 409: redo with nothing undone (or a new action made since the undo). */
   nothing_to_redo: undefined;
-  /** 409: undo, redo or a fix found a slot or a staffing changed since the action it reverts or applies. */
+  /** 409: undo, redo or a fix found a slot, a staffing or the day's roster (`rosterDay`) changed since the action it reverts or applies. */
   changed_since: { accession: string; examId: number } | { rosterDay: string };
   /** 409: the suggested fix no longer applies (the day changed); the gap's fixes were recomputed. */
   fix_stale: undefined;
