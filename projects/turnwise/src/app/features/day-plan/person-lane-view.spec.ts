@@ -14,15 +14,17 @@ describe('personLaneView', () => {
     const view = personLaneView(plan.people!.people[0]!, plan, scale);
     expect(scale.pxPerMinute).toBe(2);
     expect(view.work.map((w) => [w.room, w.showRoom, w.accession, w.left, w.width])).toEqual([
-      ['MR 1', false, '', 0, 24], // 07:00–07:07: 14 px, drawn as the 24 px pointer target, named in its label only
-      ['MR 2', false, '', 20, 24],
+      ['MR 1', false, '', 0, 18], // 07:00–07:07: 14 px, widened toward the 24 px pointer target as far as the next piece allows
+      ['MR 2', false, '', 20, 24], // widened to 24 px: nothing follows soon
       ['MR 2', true, '…21', (9 * 60 + 52 - 420) * 2, 40], // 20 min: the accession's last part
       ['MR 1', true, '…2', (10 * 60 + 15 - 420) * 2, 40],
       ['MR 2', true, '…22', (10 * 60 + 50 - 420) * 2, 40],
       ['MR 2', true, '…23', (12 * 60 + 10 - 420) * 2, 40],
     ]);
-    expect(view.work[3]!.label).toBe('MR 1, ACC-2, turnover 10:15–10:35, short by 6 min');
-    expect(view.work[2]!.label).toBe('MR 2, ACC-21, turnover 09:52–10:12, fits');
+    // The words in view first and in order, then the whole accession they cut (WCAG 2.5.3).
+    expect(view.work[3]!.label).toBe('MR 1, …2 (ACC-2), turnover 10:15–10:35, short by 6 min');
+    expect(view.work[2]!.label).toBe('MR 2, …21 (ACC-21), turnover 09:52–10:12, fits');
+    expect(view.work[0]!.label).toBe('MR 1, ACC-1, turnover 07:00–07:07, fits');
     expect(view.work.every((w) => !w.clash && w.row === 0 && w.rows === 1)).toBe(true);
     expect(view.rows).toBe(1);
   });

@@ -175,19 +175,27 @@ export function personLaneView(person: PlanPerson, plan: DayPlan, scale: Timelin
   const work = pieces.map((p, i): WorkBlockView => {
     const gap = gapOf(p.work.roomId, p.work.toExamId);
     const left = xOf(scale, p.startMs);
-    const width = Math.max(MIN_WORK_PX, ((p.endMs - p.startMs) / MINUTE) * scale.pxPerMinute);
+    // At least the 24 px pointer target, but never over the next piece in its row (two targets in one place).
+    const real = ((p.endMs - p.startMs) / MINUTE) * scale.pxPerMinute;
+    const next = pieces.find((q, j) => j > i && rowOf[j] === rowOf[i] && q.startMs >= p.endMs);
+    const space = next ? xOf(scale, next.startMs) - left - 2 : Infinity;
+    const width = Math.max(real, Math.min(MIN_WORK_PX, space));
     const room = roomName(p.work.roomId);
     const accession = accessionOf(p.work.roomId, p.work.toExamId);
-    const parts = [room, accession, `turnover ${clockOf(p.work.start)}–${clockOf(p.work.end)}`];
+    const showRoom = width >= ROOM_PX;
+    // A block stacked in a clash has one line: the room takes its part of the width first.
+    const shown = workAccession(accession, rowsOf[i]! > 1 && showRoom ? width - ROOM_PX : width);
+    // The words in view come first and in order (WCAG 2.5.3: a voice command names what it sees);
+    // a cut accession is followed by the whole one.
+    const parts = [room, shown && shown !== accession ? `${shown} (${accession})` : accession, `turnover ${clockOf(p.work.start)}–${clockOf(p.work.end)}`];
     if (gap) parts.push(verdictWords(gap));
     const label = parts.join(', ') + (clashesWith[i]!.length ? `; ${clashesWith[i]!.join('; ')}` : '');
     return {
       toExamId: p.work.toExamId,
       roomId: p.work.roomId,
       room,
-      // A block stacked in a clash has one line: the room takes its part of the width first.
-      accession: workAccession(accession, rowsOf[i]! > 1 && width >= ROOM_PX ? width - ROOM_PX : width),
-      showRoom: width >= ROOM_PX,
+      accession: shown,
+      showRoom,
       left,
       width,
       row: rowOf[i]!,
