@@ -18,7 +18,7 @@ const REACHES: readonly Reach[] = [
   { neighbours: 3, shiftMinutes: 180, roomsPerBlock: 4, maxFree: 10 },
 ];
 
-/** Longest one solve may take (a small cluster that needs longer is rarely worth it). */
+/** Longest one solve of a neighbourhood may take (a small cluster that needs longer is rarely worth it). */
 const MAX_SOLVE_SECONDS = 2;
 
 interface SolveTally {
@@ -98,7 +98,7 @@ function solveGroup(
       const budget = (deadline - now()) / (clusters.length - index);
       const clusterSeeds = items.filter((it) => seeds.has(it.fe.exam.id)).map((it) => it.fe.exam.id);
       if (now() >= deadline) return;
-      const solved = solveLevels(model(items), mip, tally, now() + Math.max(100, budget), now);
+      const solved = solveLevels(model(items), mip, tally, now() + Math.max(100, budget), now, MAX_SOLVE_SECONDS);
       const last = tier === REACHES.length - 1;
       if (!solved || (solved.gapsLeft > 0 && !last) || (solved.gapsLeft > 0 && !better(day, group, result.places, solved.solution))) {
         if (!last) for (const id of clusterSeeds) unresolved.add(id);
@@ -127,6 +127,7 @@ function solveLevels(
   tally: SolveTally,
   deadline: number,
   now: () => number,
+  capSeconds = Infinity,
 ): { solution: ClusterSolution; gapsLeft: number } | null {
   const bounds: ReturnType<typeof lpRow>[] = [];
   let best: ReadonlyMap<string, number> | null = null;
@@ -134,7 +135,7 @@ function solveLevels(
   const levels = m.levels.map((terms, index) => ({ terms, index }));
   const run = (terms: readonly Term[], extra: ReturnType<typeof lpRow>[], share: number): MipResult => {
     // One hard cluster may not eat the day's budget: a solve stops at its cap with its best point.
-    const seconds = Math.min(MAX_SOLVE_SECONDS, Math.max(0.05, ((deadline - now()) / 1000) * share));
+    const seconds = Math.min(capSeconds, Math.max(0.05, ((deadline - now()) / 1000) * share));
     const answer = mip(m.lp.text(terms, extra), seconds);
     tally.solves++;
     if (answer.status === 'time-limit' || (answer.values && answer.status !== 'optimal')) tally.timeLimited = true;
