@@ -68,4 +68,10 @@ describe('FitPanel', () => {
     const { text } = await render({ ...PROPOSAL, solver: { ...PROPOSAL.solver, status: 'time-limit', mipGap: 0.12, scope: 'neighbourhood' } });
     expect(text()).toContain('Best found within the time limit (around each problem gap); optimality gap 12 %.');
   });
+
+  it('does not call a neighbourhood answer the best for the whole day', async () => {
+    const { text } = await render({ ...PROPOSAL, solver: { ...PROPOSAL.solver, scope: 'neighbourhood' } });
+    expect(text()).toContain('Best within reach of each problem gap (a day this size is not searched whole)');
+    expect(text()).not.toContain('Best possible');
+  });
 });

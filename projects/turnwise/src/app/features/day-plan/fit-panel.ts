@@ -100,7 +100,9 @@ export class FitPanel {
     const { solver } = this.proposal();
     if (solver.status === 'nothing-to-do') return 'Nothing to solve.';
     const scope = solver.scope === 'whole' ? 'whole day' : 'around each problem gap';
-    if (solver.status === 'optimal') return `Best possible (${scope}); found in ${(solver.milliseconds / 1000).toFixed(1)} s.`;
+    const took = `found in ${(solver.milliseconds / 1000).toFixed(1)} s`;
+    if (solver.status === 'optimal' && solver.scope === 'whole') return `Best possible (whole day); ${took}.`;
+    if (solver.status === 'optimal') return `Best within reach of each problem gap (a day this size is not searched whole); ${took}.`;
     const gap = solver.mipGap >= 1 ? 'not known' : `${(solver.mipGap * 100).toFixed(0)} %`;
     return `Best found within the time limit (${scope}); optimality gap ${gap}.`;
   });
