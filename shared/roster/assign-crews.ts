@@ -22,10 +22,10 @@ export interface CrewAssignment {
 export interface AssignCrewsOptions {
   /**
    * Work one cluster's search may do (crews tried and lower bounds taken, each a unit) before it
-   * stops. Default 60,000.
+   * stops. Default 40,000.
    */
   clusterWorkBudget?: number;
-  /** Work the whole day's searches may do; clusters after that keep their greedy schedule. Default 240,000. */
+  /** Work the whole day's searches may do; clusters after that keep their greedy schedule. Default 120,000. */
   dayWorkBudget?: number;
 }
 
@@ -50,8 +50,8 @@ export interface AssignCrewsOptions {
  * choices[0].crew; // [1]: person 1 turns the first room over
  */
 export function assignCrews(problem: CrewProblem, options: AssignCrewsOptions = {}): CrewAssignment {
-  const clusterBudget = options.clusterWorkBudget ?? 60_000;
-  let dayBudget = options.dayWorkBudget ?? 240_000;
+  const clusterBudget = options.clusterWorkBudget ?? 40_000;
+  let dayBudget = options.dayWorkBudget ?? 120_000;
   const choices: CrewChoice[] = new Array(problem.jobs.length);
   const kinds = personKinds(problem);
   let provenOptimal = true;
@@ -92,6 +92,9 @@ class ClusterSearch {
   private aborted = false;
   private readonly jobs: CrewJob[];
   private readonly eligible: number[][];
+  /** Each open job's bound on its required minutes, filled by `promising`. */
+  private readonly boundRequired: number[];
+  private readonly bound: JobOutcome = { unstaffed: 0, problem: 0, shortBy: 0, required: 0 };
 
   constructor(
     private readonly problem: CrewProblem,
@@ -101,6 +104,7 @@ class ClusterSearch {
   ) {
     this.jobs = cluster.map((j) => problem.jobs[j]!);
     this.eligible = this.jobs.map((job) => eligiblePeople(problem, job));
+    this.boundRequired = new Array<number>(this.jobs.length).fill(0);
   }
 
   run(): { choices: CrewChoice[]; proven: boolean } {
@@ -149,25 +153,32 @@ class ClusterSearch {
    */
   private promising(i: number, states: readonly PersonState[], chosen: readonly CrewChoice[], sums: Sums): boolean {
     if (this.aborted) return false;
-    const bounds: JobOutcome[] = [];
-    const total = { ...sums };
+    // Plain numbers and one reused array: this runs at every node, and garbage is what costs here.
+    let unstaffed = sums.unstaffed;
+    let problems = sums.problems;
+    let shortBy = sums.shortBy;
+    let requiredSum = sums.requiredSum;
     for (let q = i; q < this.jobs.length; q++) {
       const o = this.lowerBound(q, states);
-      bounds.push(o);
-      total.unstaffed += o.unstaffed;
-      total.problems += o.problem;
-      total.shortBy += o.shortBy;
-      total.requiredSum += o.required;
+      this.boundRequired[q] = o.required;
+      unstaffed += o.unstaffed;
+      problems += o.problem;
+      shortBy += o.shortBy;
+      requiredSum += o.required;
     }
     if (this.work > this.budget) {
       this.aborted = true;
       return false;
     }
     const best = this.best!.key;
-    const order = total.unstaffed - best.unstaffed || total.problems - best.problems || total.shortBy - best.shortBy || total.requiredSum - best.requiredSum;
+    const order = unstaffed - best.unstaffed || problems - best.problems || shortBy - best.shortBy || requiredSum - best.requiredSum;
     if (order !== 0) return order < 0;
-    const required = [...chosen.map((c) => c.outcome.required), ...bounds.map((o) => o.required)];
-    return compareKeys({ ...total, required }, best) < 0;
+    // A tie so far: ready-at gap by gap decides, the chosen jobs' then the bounds'.
+    for (let q = 0; q < this.jobs.length; q++) {
+      const mine = q < i ? chosen[q]!.outcome.required : this.boundRequired[q]!;
+      if (mine !== best.required[q]) return mine < best.required[q]!;
+    }
+    return false;
   }
 
   /** Every crew for job i from where people stand, best for the job first; one per interchangeable crew. */
@@ -234,7 +245,12 @@ class ClusterSearch {
     }
     if (start === Infinity) return unstaffedOutcome(job);
     const required = Math.ceil((start - job.fromMs) / MINUTE - 1e-9) + fewest;
-    return { unstaffed: 0, problem: required > job.availableMinutes ? 1 : 0, shortBy: Math.max(0, required - job.availableMinutes), required };
+    const o = this.bound;
+    o.unstaffed = 0;
+    o.problem = required > job.availableMinutes ? 1 : 0;
+    o.shortBy = Math.max(0, required - job.availableMinutes);
+    o.required = required;
+    return o;
   }
 }
 
