@@ -54,8 +54,12 @@ export function proposeDayFit(input: DayPlanInput, solve: MipSolve, options: Day
   const places = new Map<number, { roomId: number; start: number }>();
   const helpers: ClusterSolution['helpers'] = new Map();
   const groups = day.groups.filter((g) => g.exams.some((fe) => problemInto.has(fe.exam.id)));
-  groups.forEach((group, index) => {
-    const budgetMs = (deadline - now()) / (groups.length - index);
+  // Each group's share of the time left follows its share of the problem gaps left to solve.
+  const problemsOf = (group: FitGroup) => group.exams.filter((fe) => problemInto.has(fe.exam.id)).length;
+  let problemsLeft = groups.reduce((n, g) => n + problemsOf(g), 0);
+  groups.forEach((group) => {
+    const budgetMs = ((deadline - now()) * problemsOf(group)) / Math.max(1, problemsLeft);
+    problemsLeft -= problemsOf(group);
     const solution = solveGroup(day, group, problemInto, slots, options, tally, now() + Math.max(200, budgetMs), solve);
     for (const [id, place] of solution.places) places.set(id, place);
     for (const [id, slot] of solution.helpers) helpers.set(id, slot);

@@ -37,6 +37,9 @@ function solveWith(highs: Highs, lp: string, timeLimitSeconds: number): MipResul
       time_limit: Math.max(0.01, timeLimitSeconds),
       mip_rel_gap: 0,
       mip_abs_gap: 0.5,
+      // Symmetry detection costs tens of milliseconds on every solve, even a tiny one; our
+      // clusters are small and many, and their symmetric rooms rarely pay that back.
+      mip_detect_symmetry: false,
     });
     model.readModel({ format: 'lp', data: lp });
     model.run();
