@@ -224,7 +224,7 @@ function proposal(
     const slotsAfter = judgedAfter.judged(move.to.roomId).slots;
     if (exam.precaution !== 'none' && slotsAfter[slotsAfter.length - 1]?.exam.id === exam.id && !lastBefore.has(exam.id)) move.kind = 'isolation-last';
   }
-  const remaining = remainingGaps(day, judgedAfter, tally.timeLimited);
+  const remaining = remainingGaps(day, judgedAfter, tally.timeLimited, tally.neighbourhood);
   const ends = input.rooms.map((r) => judgedAfter.judged(r.id)).filter((r) => r.slots.length > 0).map((r) => r.endsMs);
   return {
     date: input.date,

@@ -18,7 +18,7 @@ const FIXED_WORDS: Readonly<Record<string, string>> = {
  * @example
  * remainingGaps(day, fixDay(after), false)[0].reason; // 'CT 2 cannot fit 14 exams between 07:00 and 19:00 …'
  */
-export function remainingGaps(day: FitDay, after: FixDay, timeLimited: boolean): FitRemainingGap[] {
+export function remainingGaps(day: FitDay, after: FixDay, timeLimited: boolean, neighbourhood = false): FitRemainingGap[] {
   const { input } = day;
   const stays = new Map<number, string>();
   const modelled = new Set<number>();
@@ -54,6 +54,7 @@ export function remainingGaps(day: FitDay, after: FixDay, timeLimited: boolean):
           ? `neither exam may move: ${from.accession} ${FIXED_WORDS[stays.get(from.id)!]}, ${to.accession} ${FIXED_WORDS[stays.get(to.id)!]}`
           : `${to.accession} ${FIXED_WORDS[stays.get(to.id)!]} and starts too soon after the room opens`;
       } else if (timeLimited) reason = 'the solver’s time ran out before it found a way to clear this gap';
+      else if (neighbourhood) reason = `not cleared by moving exams near it (up to 3 on either side, 180 min, among ${room.name}’s block of four rooms); a day this size is not searched whole`;
       else reason = `no place in the open ${room.modality} rooms’ hours clears this gap without moving an exam that may not move`;
       out.push({ fromExamId: gap.fromExamId, toExamId: gap.toExamId, accession: to.accession, roomId: room.id, verdict: gap.verdict, shortByMinutes: gap.shortByMinutes, reason });
     }
