@@ -20,11 +20,13 @@ async function showPeople(plan = rosterPlan()) {
 describe('Day plan people view', () => {
   afterEach(() => TestBed.inject(HttpTestingController).verify());
 
-  it('offers Rooms / People only when the day has a roster', async () => {
-    const without = await renderDay();
-    expect(without.page.querySelector('.view')).toBeNull();
-    TestBed.inject(HttpTestingController).verify();
-    TestBed.resetTestingModule();
+  it('offers no Rooms / People switch on a day without a roster', async () => {
+    const { page } = await renderDay();
+    expect(page.querySelector('tw-day-timeline')).not.toBeNull();
+    expect(page.querySelector('.view')).toBeNull();
+  });
+
+  it('offers Rooms / People on a day with a roster, showing the rooms first', async () => {
     const { page } = await renderDay({ plan: rosterPlan() });
     expect(page.querySelector('.view')!.getAttribute('aria-label')).toBe('View');
     expect(viewToggle(page, 'Rooms').closest('mat-button-toggle')!.classList).toContain('mat-button-toggle-checked');
