@@ -1,7 +1,7 @@
 import { DateTime } from 'luxon';
 import type { PlanChange } from '../api/changes';
 import type { PlanSummary } from '../api/plan';
-import { computeDaySummary } from '../turnover/day-plan';
+import { computeDayPlan, computeDaySummary } from '../turnover/day-plan';
 import { turnoverCaches } from '../turnover/day-plan-cache';
 import type { DayPlanExam, DayPlanInput, DayPlanRoom } from '../turnover/day-plan-input';
 import { DEFAULT_SNUG_MARGIN_MINUTES } from '../turnover/verdict';
@@ -39,7 +39,9 @@ export interface FixDay {
  * day.judged(1).gaps.filter((g) => g.verdict === 'short').length; // 2
  */
 export function fixDay(input: DayPlanInput): FixDay {
-  const summary = computeDaySummary(input);
+  // A roster day weighs each fix on a whole day's plan: a small crew search each, and the day's
+  // own summary with the same search, so before and after are judged alike.
+  const summary = computeDaySummary(input, input.roster ? { crewSearch: FIX_CREW_SEARCH } : {});
   const wallTimes = new Map<string, number>();
   const starts = new Map<DayPlanExam, number>();
   const judge: RoomJudge = {
@@ -61,9 +63,18 @@ export function fixDay(input: DayPlanInput): FixDay {
   const roomById = new Map(input.rooms.map((room) => [room.id, room]));
   const judgedRooms = new Map<number, JudgedRoom>();
   const gapsByExam = new Map<number, JudgedGap>();
+  // With a roster, people are shared between rooms: every room is judged from the whole day's plan.
+  const withRoster = input.roster ? judgeWholeDay(judge, roomById) : null;
   const judged = (roomId: number): JudgedRoom => {
     let room = judgedRooms.get(roomId);
     if (!room) {
+      if (withRoster) {
+        for (const [id, whole] of withRoster(input)) {
+          judgedRooms.set(id, whole);
+          for (const gap of whole.gaps) gapsByExam.set(gap.toExamId, gap);
+        }
+        return judgedRooms.get(roomId)!;
+      }
       room = judgeRoom(judge, roomById.get(roomId)!, examsByRoom.get(roomId)!);
       judgedRooms.set(roomId, room);
       for (const gap of room.gaps) gapsByExam.set(gap.toExamId, gap);
@@ -87,6 +98,8 @@ export function fixDay(input: DayPlanInput): FixDay {
       return gapsByExam.get(toExamId);
     },
     judgeWith(roomIds, changes) {
+      // With a roster a change can reach any room through its people: every room, judged anew.
+      if (withRoster) return withRoster(withChanges(input, changes));
       // Only the touched rooms' exams go through withChanges and the judge: the rest of the day is as it was.
       const rooms = input.rooms.filter((room) => roomIds.has(room.id));
       const exams = rooms.flatMap((room) => examsByRoom.get(room.id)!);
@@ -111,6 +124,36 @@ export function summaryWith(day: FixDay, after: ReadonlyMap<number, JudgedRoom>)
     addToSummary(summary, room, 1);
   }
   return summary;
+}
+
+/**
+ * The crew search a fix is weighed with on a roster day: each candidate costs a whole day's plan,
+ * so a page of fixes stays around a second; the plan itself searches further (its answer after a
+ * fix may be better still, never worse than the greedy crews this starts from).
+ */
+const FIX_CREW_SEARCH = { clusterWorkBudget: 500, dayWorkBudget: 1_000 } as const;
+
+/**
+ * A roster day's rooms judged as the day plan judges them: each room's slots from `judgeRoom`,
+ * its gaps' verdicts from the whole day's plan (crews shared across rooms, shared/roster).
+ */
+function judgeWholeDay(judge: RoomJudge, roomById: ReadonlyMap<number, DayPlanRoom>): (day: DayPlanInput) => Map<number, JudgedRoom> {
+  return (day) => {
+    const plan = computeDayPlan(day, { crewSearch: FIX_CREW_SEARCH });
+    const byRoom = groupByRoom(day.rooms, day.exams);
+    const dayJudge: RoomJudge = { ...judge, input: day };
+    const out = new Map<number, JudgedRoom>();
+    for (const planned of plan.rooms) {
+      const room = judgeRoom(dayJudge, roomById.get(planned.id)!, byRoom.get(planned.id)!);
+      const byExam = new Map(planned.gaps.map((gap) => [gap.toExamId, gap]));
+      room.gaps = room.gaps.map((gap) => {
+        const p = byExam.get(gap.toExamId);
+        return p ? { ...gap, availableMinutes: p.availableMinutes, requiredMinutes: p.requiredMinutes, verdict: p.verdict, shortByMinutes: p.shortByMinutes, staff: p.staff } : gap;
+      });
+      out.set(planned.id, room);
+    }
+    return out;
+  };
 }
 
 function groupByRoom(rooms: readonly DayPlanRoom[], exams: readonly DayPlanExam[]): Map<number, DayPlanExam[]> {

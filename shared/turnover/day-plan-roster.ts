@@ -3,6 +3,7 @@
  * the plan is built, and, once every room has, the crews (shared/roster) and the gaps judged with
  * them. A day without a roster never comes here, so its plan is exactly what it was before rosters.
  */
+import type { AssignCrewsOptions } from '../roster/assign-crews';
 import { staffGaps, type RosterGapInput } from '../roster/staff-gaps';
 import type { DayPlanInput, DayPlanRoom } from './day-plan-input';
 import type { PlanGap, PlanPeople, PlanSummary } from './day-plan-types';
@@ -67,7 +68,7 @@ export function rosterContext(input: DayPlanInput): RosterContext | null {
  * @example
  * const people = staffRosterGaps(ctx.roster, ctx); // people.provenOptimal === true on a usual day
  */
-export function staffRosterGaps(roster: RosterContext, ctx: RosterPlanContext): PlanPeople {
+export function staffRosterGaps(roster: RosterContext, ctx: RosterPlanContext, search?: AssignCrewsOptions): PlanPeople {
   const { input, format } = ctx;
   const roomOrder = new Map(input.rooms.map((room, i) => [room.id, i]));
   const inputs: RosterGapInput[] = roster.pending.map((gap) => ({
@@ -80,7 +81,7 @@ export function staffRosterGaps(roster: RosterContext, ctx: RosterPlanContext): 
     wanted: gap.wanted,
     turnover: (k) => turnoverFor(gap.cache, { input, room: gap.room, protocol: gap.protocol, leaving: gap.previous?.exam ?? null, arriving: gap.slot.exam, staff: k }),
   }));
-  const staffed = staffGaps(inputs, roster.roster.people, roster.roster.walkingMinutes, ctx.wallTime);
+  const staffed = staffGaps(inputs, roster.roster.people, roster.roster.walkingMinutes, ctx.wallTime, search);
   const snugMarginMinutes = input.snugMarginMinutes ?? DEFAULT_SNUG_MARGIN_MINUTES;
   roster.pending.forEach((gap, i) => {
     const result = staffed.gaps[i]!;

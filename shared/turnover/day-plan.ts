@@ -9,6 +9,7 @@ import { protocolFor } from './protocols';
 import { DEFAULT_SNUG_MARGIN_MINUTES, gapVerdict } from './verdict';
 import { instantOf, wallTimeToMillis, zonedFormatter, type ZonedFormatter } from './zoned-time';
 import { rosterContext, staffRosterGaps, type RosterContext } from './day-plan-roster';
+import type { AssignCrewsOptions } from '../roster/assign-crews';
 
 const MINUTE = 60_000;
 
@@ -25,8 +26,8 @@ const MINUTE = 60_000;
  * const plan = computeDayPlan({ date: '2027-03-15', timezone: 'America/Chicago', rooms, exams });
  * plan.summary; // { fits: 9, snug: 2, short: 1, overlap: 0, minutesShort: 4 }
  */
-export function computeDayPlan(input: DayPlanInput): DayPlan {
-  const { summary, rooms, people } = planDay(input, true);
+export function computeDayPlan(input: DayPlanInput, options: DayPlanOptions = {}): DayPlan {
+  const { summary, rooms, people } = planDay(input, true, options);
   return people ? { date: input.date, timezone: input.timezone, rooms, summary, people } : { date: input.date, timezone: input.timezone, rooms, summary };
 }
 
@@ -40,8 +41,13 @@ export function computeDayPlan(input: DayPlanInput): DayPlan {
  * computeDaySummary({ date: '2027-03-15', timezone: 'America/Chicago', rooms, exams });
  * // { fits: 9, snug: 2, short: 1, overlap: 0, minutesShort: 4 }
  */
-export function computeDaySummary(input: DayPlanInput): PlanSummary {
-  return planDay(input, false).summary;
+export function computeDaySummary(input: DayPlanInput, options: DayPlanOptions = {}): PlanSummary {
+  return planDay(input, false, options).summary;
+}
+
+/** How hard a day with a roster searches for its crews (shared/roster `assignCrews`); the defaults serve the plan. */
+export interface DayPlanOptions {
+  crewSearch?: AssignCrewsOptions;
 }
 
 interface RoomContext {
@@ -57,7 +63,7 @@ interface RoomContext {
   roster: RosterContext | null;
 }
 
-function planDay(input: DayPlanInput, detailed: boolean): { summary: PlanSummary; rooms: PlanRoom[]; people?: DayPlan['people'] } {
+function planDay(input: DayPlanInput, detailed: boolean, options: DayPlanOptions): { summary: PlanSummary; rooms: PlanRoom[]; people?: DayPlan['people'] } {
   const { date, timezone } = input;
   if (!/^\d{4}-\d{2}-\d{2}$/.test(date) || !DateTime.fromISO(date).isValid) {
     throw new RangeError(`date must be YYYY-MM-DD, got "${date}"`);
@@ -96,7 +102,7 @@ function planDay(input: DayPlanInput, detailed: boolean): { summary: PlanSummary
     if (planned) rooms.push(planned);
   }
   // The roster's gaps are judged once every room has handed them over: they compete for people.
-  const people = ctx.roster ? staffRosterGaps(ctx.roster, ctx) : undefined;
+  const people = ctx.roster ? staffRosterGaps(ctx.roster, ctx, options.crewSearch) : undefined;
   return people ? { summary, rooms, people } : { summary, rooms };
 }
 
