@@ -19,12 +19,12 @@ import { SetupApi } from './setup-api';
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <form [formGroup]="form" (ngSubmit)="save()" novalidate aria-label="Site">
-      <mat-form-field>
+      <mat-form-field subscriptSizing="dynamic">
         <mat-label>Site name</mat-label>
         <input matInput formControlName="siteName" required maxlength="80" />
         <mat-error>{{ message('siteName') }}</mat-error>
       </mat-form-field>
-      <mat-form-field>
+      <mat-form-field subscriptSizing="dynamic">
         <mat-label>Time zone</mat-label>
         <input matInput formControlName="timezone" required list="tw-zones" autocomplete="off" />
         <datalist id="tw-zones">
@@ -35,25 +35,25 @@ import { SetupApi } from './setup-api';
         <mat-hint>IANA name, e.g. America/Chicago: every day, time and day-list import follows it</mat-hint>
         <mat-error>{{ message('timezone') }}</mat-error>
       </mat-form-field>
-      <mat-form-field>
+      <mat-form-field subscriptSizing="dynamic">
         <mat-label>Snug margin (minutes)</mat-label>
         <input matInput type="number" formControlName="snugMarginMinutes" [min]="snugMargin.min" [max]="snugMargin.max" step="1" required />
         <mat-hint>A gap that fits with less than this to spare is marked snug</mat-hint>
         <mat-error>{{ message('snugMarginMinutes') }}</mat-error>
       </mat-form-field>
-      <mat-form-field>
+      <mat-form-field subscriptSizing="dynamic">
         <mat-label>Walking time between rooms (minutes)</mat-label>
         <input matInput type="number" formControlName="walkingMinutes" [min]="walking.min" [max]="walking.max" step="1" required />
         <mat-hint>Roster: room to room; 3 is common practice (no source)</mat-hint>
         <mat-error>{{ message('walkingMinutes') }}</mat-error>
       </mat-form-field>
-      <mat-form-field>
+      <mat-form-field subscriptSizing="dynamic">
         <mat-label>Notices e-mail sender</mat-label>
         <input matInput type="email" formControlName="noticesSender" maxlength="254" />
         <mat-hint>The From address of notices Turnwise e-mails; leave empty until your mail team gives one</mat-hint>
         <mat-error>{{ message('noticesSender') }}</mat-error>
       </mat-form-field>
-      <mat-form-field>
+      <mat-form-field subscriptSizing="dynamic">
         <mat-label>Day-before notice at</mat-label>
         <input matInput type="time" formControlName="dayBeforeNoticeAt" required />
         <mat-hint>Site time the charge technologists get tomorrow's problem gaps and isolation cases</mat-hint>
@@ -71,7 +71,7 @@ import { SetupApi } from './setup-api';
   `,
   styles: `
     :host { display: block; padding-top: 16px; }
-    form { display: flex; flex-direction: column; gap: 8px; max-width: 520px; }
+    form { display: flex; flex-direction: column; gap: 12px; max-width: 520px; }
     .form-error { color: var(--mat-sys-error); }
   `,
 })
