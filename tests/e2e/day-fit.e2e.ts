@@ -2,34 +2,30 @@
 import assert from 'node:assert/strict';
 import { after, before, describe, test } from 'node:test';
 import type { Browser } from 'playwright-core';
-import { EXAM_LIST_HEADER, toCsv } from '../fixtures/exam-lists';
-import { TABLET, launchBrowser, openPage, screenshot, signIn } from './support/browser';
+import { EXAM_LIST_HEADER, plainExamRow, toCsv } from '../fixtures/exam-lists';
+import { TABLET, openPage, screenshot, signIn } from './support/browser';
 import { importDayList } from './support/day-api';
-import { startTestServer, type TestServer } from './support/server';
+import { serverAndBrowser, stopServerAndBrowser } from './support/imported-day';
+import type { TestServer } from './support/server';
 import { examBlock } from './support/timeline';
 
 const WIDE = { width: 1440, height: 900 };
-const row = (acc: string, room: string, start: string, dur: number) => [acc, room, start, String(dur), 'MR knee without contrast', 'knee', 'none', 'ambulatory', 'no', ''];
 
 /**
  * Invented lists: in MR 1 the second exam starts 10 min after the first ends (short, a turnover
  * needs 20 with one person) and the third is back to back with it; MR 2 has room.
  */
 const listFor = (p: string) =>
-  toCsv([EXAM_LIST_HEADER, row(`${p}-1`, 'MR 1', '08:00', 30), row(`${p}-2`, 'MR 1', '08:40', 30), row(`${p}-3`, 'MR 1', '09:20', 30), row(`${p}-4`, 'MR 2', '08:00', 30)]);
+  toCsv([EXAM_LIST_HEADER, plainExamRow(`${p}-1`, 'MR 1', '08:00', 30), plainExamRow(`${p}-2`, 'MR 1', '08:40', 30), plainExamRow(`${p}-3`, 'MR 1', '09:20', 30), plainExamRow(`${p}-4`, 'MR 2', '08:00', 30)]);
 
 let server: TestServer;
 let browser: Browser;
 
 describe('make the day fit: proposal, preview, apply and undo', { timeout: 240_000 }, () => {
   before(async () => {
-    server = await startTestServer({ seedDay: false });
-    browser = await launchBrowser();
+    ({ server, browser } = await serverAndBrowser());
   });
-  after(async () => {
-    await browser?.close();
-    await server?.close();
-  });
+  after(() => stopServerAndBrowser({ server, browser }));
 
   for (const [name, viewport, day, prefix] of [['1440', WIDE, '2027-03-10', 'FA'], ['768', TABLET, '2027-03-11', 'FB']] as const) {
     test(`at ${name} px: a charge technologist previews the proposal, applies it and undoes it`, { timeout: 120_000 }, async () => {

@@ -2,18 +2,18 @@
 import assert from 'node:assert/strict';
 import { after, before, describe, test } from 'node:test';
 import type { Browser, Locator, Page } from 'playwright-core';
-import { EXAM_LIST_HEADER, toCsv } from '../fixtures/exam-lists';
-import { TABLET, launchBrowser, openPage, screenshot, signIn } from './support/browser';
+import { EXAM_LIST_HEADER, plainExamRow, toCsv } from '../fixtures/exam-lists';
+import { TABLET, openPage, screenshot, signIn } from './support/browser';
 import { importDayList } from './support/day-api';
-import { startTestServer, type TestServer } from './support/server';
+import { serverAndBrowser, stopServerAndBrowser } from './support/imported-day';
+import type { TestServer } from './support/server';
 import { examBlock } from './support/timeline';
 
 const WIDE = { width: 1440, height: 900 };
-const row = (acc: string, room: string, start: string, dur: number) => [acc, room, start, String(dur), 'MR knee without contrast', 'knee', 'none', 'ambulatory', 'no', ''];
 
 /** Invented lists, one day per screen width: ED-1 is the first exam of MR 1, reachable only from its block. */
 const listFor = (prefix: string) =>
-  toCsv([EXAM_LIST_HEADER, row(`${prefix}-1`, 'MR 1', '08:00', 30), row(`${prefix}-2`, 'MR 1', '09:00', 30), row(`${prefix}-3`, 'MR 2', '08:00', 30)]);
+  toCsv([EXAM_LIST_HEADER, plainExamRow(`${prefix}-1`, 'MR 1', '08:00', 30), plainExamRow(`${prefix}-2`, 'MR 1', '09:00', 30), plainExamRow(`${prefix}-3`, 'MR 2', '08:00', 30)]);
 
 let server: TestServer;
 let browser: Browser;
@@ -24,13 +24,9 @@ const stored = (day: string, accession: string) => server.db('exams').where({ da
 
 describe('the exam dialog: add, edit and cancel from the timeline', { timeout: 180_000 }, () => {
   before(async () => {
-    server = await startTestServer({ seedDay: false });
-    browser = await launchBrowser();
+    ({ server, browser } = await serverAndBrowser());
   });
-  after(async () => {
-    await browser?.close();
-    await server?.close();
-  });
+  after(() => stopServerAndBrowser({ server, browser }));
 
   for (const [name, viewport, day, prefix] of [['1440', WIDE, '2027-03-10', 'ED'], ['768', TABLET, '2027-03-11', 'EE']] as const) {
     test(`at ${name} px: a scheduler adds an exam (a 422 under its field first), edits the lane's first exam from its block, cancels one by keyboard`, { timeout: 90_000 }, async () => {

@@ -1,16 +1,15 @@
 import assert from 'node:assert/strict';
 import { after, before, describe, test } from 'node:test';
 import type { Browser, Page } from 'playwright-core';
-import { EXAM_LIST_HEADER, toCsv } from '../fixtures/exam-lists';
+import { EXAM_LIST_HEADER, plainExamRow, toCsv } from '../fixtures/exam-lists';
 import { axeViolations, describeViolation, installAxe } from './support/axe';
-import { launchBrowser, openPage, screenshot, signIn } from './support/browser';
-import { importDayList, xsrfHeader } from './support/day-api';
-import { startTestServer, type TestServer } from './support/server';
+import { openPage, screenshot, signIn } from './support/browser';
+import { xsrfHeader } from './support/day-api';
+import { importedDay, stopServerAndBrowser } from './support/imported-day';
+import type { TestServer } from './support/server';
 import { examBlock } from './support/timeline';
 
 const DAY = '2027-03-10';
-const row = (acc: string, room: string, start: string, dur: number) =>
-  [acc, room, start, String(dur), 'MR knee without contrast', 'knee', 'none', 'ambulatory', 'no', ''];
 
 /**
  * An invented day and roster. One aide covers MR 1 and MR 2 (07:00–15:00, break 11:40–12:10), with
@@ -21,13 +20,13 @@ const row = (acc: string, room: string, start: string, dur: number) =>
  */
 const DAY_LIST = toCsv([
   EXAM_LIST_HEADER,
-  row('PV-1', 'MR 1', '09:00', 60),
-  row('PV-2', 'MR 1', '10:29', 30),
-  row('PV-3', 'MR 2', '09:00', 52),
-  row('PV-4', 'MR 2', '10:20', 30),
-  row('PV-5', 'MR 2', '11:30', 30),
-  row('PV-6', 'MR 2', '12:30', 30),
-  row('PV-7', 'CT 1', '09:00', 15),
+  plainExamRow('PV-1', 'MR 1', '09:00', 60),
+  plainExamRow('PV-2', 'MR 1', '10:29', 30),
+  plainExamRow('PV-3', 'MR 2', '09:00', 52),
+  plainExamRow('PV-4', 'MR 2', '10:20', 30),
+  plainExamRow('PV-5', 'MR 2', '11:30', 30),
+  plainExamRow('PV-6', 'MR 2', '12:30', 30),
+  plainExamRow('PV-7', 'CT 1', '09:00', 15),
 ]);
 
 let server: TestServer;
@@ -49,25 +48,15 @@ async function assertAxeClean(page: Page, where: string): Promise<void> {
 
 describe('people view in the browser', { timeout: 120_000 }, () => {
   before(async () => {
-    server = await startTestServer({ seedDay: false });
-    browser = await launchBrowser();
-    const { context, page } = await openPage(browser);
-    try {
-      await signIn(page, server.baseUrl, 'charge');
-      await importDayList(context, server.baseUrl, DAY, DAY_LIST);
-      const rooms: { id: number; name: string }[] = await server.db('rooms').select('id', 'name');
+    ({ server, browser } = await importedDay('charge', DAY, DAY_LIST, async (context, started) => {
+      const rooms: { id: number; name: string }[] = await started.db('rooms').select('id', 'name');
       const id = (name: string) => rooms.find((room) => room.name === name)!.id;
       const rows = [{ name: null, role: 'aide', count: 1, start: '07:00', end: '15:00', breaks: [{ start: '11:40', end: '12:10' }], roomIds: [id('MR 1'), id('MR 2')] }];
-      const response = await context.request.put(`${server.baseUrl}/api/days/${DAY}/roster`, { headers: await xsrfHeader(context), data: { rows } });
+      const response = await context.request.put(`${started.baseUrl}/api/days/${DAY}/roster`, { headers: await xsrfHeader(context), data: { rows } });
       if (!response.ok()) throw new Error(`roster answered ${response.status()}: ${await response.text()}`);
-    } finally {
-      await context.close();
-    }
+    }));
   }, { timeout: 60_000 });
-  after(async () => {
-    await browser?.close();
-    await server?.close();
-  }, { timeout: 30_000 });
+  after(() => stopServerAndBrowser({ server, browser }), { timeout: 30_000 });
 
   for (const viewport of [{ width: 1440, height: 900 }, { width: 768, height: 1024 }]) {
     test(`a charge technologist sees the aide's day and why PV-2 is short (${viewport.width} px)`, { timeout: 60_000 }, async () => {

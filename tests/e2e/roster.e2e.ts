@@ -2,22 +2,22 @@
 import assert from 'node:assert/strict';
 import { after, before, describe, test } from 'node:test';
 import type { Browser, Locator, Page } from 'playwright-core';
-import { EXAM_LIST_HEADER, toCsv } from '../fixtures/exam-lists';
+import { EXAM_LIST_HEADER, plainExamRow, toCsv } from '../fixtures/exam-lists';
 import { axeViolations, describeViolation, installAxe } from './support/axe';
-import { TABLET, launchBrowser, openPage, screenshot, signIn } from './support/browser';
+import { TABLET, openPage, screenshot, signIn } from './support/browser';
 import { importDayList } from './support/day-api';
-import { startTestServer, type TestServer } from './support/server';
+import { serverAndBrowser, stopServerAndBrowser } from './support/imported-day';
+import type { TestServer } from './support/server';
 import { gapMarker } from './support/timeline';
 
 const WIDE = { width: 1440, height: 900 };
-const row = (acc: string, room: string, start: string, dur: number) => [acc, room, start, String(dur), 'MR knee without contrast', 'knee', 'none', 'ambulatory', 'no', ''];
 
 /**
  * Invented lists: MR 2's patient leaves at 09:52, MR 1's at 10:00, MR 1's next is booked at 10:29.
  * With one aide for both rooms (3 minutes' walk) MR 1's turnover is short by 6 minutes.
  */
 const listFor = (prefix: string) =>
-  toCsv([EXAM_LIST_HEADER, row(`${prefix}-1`, 'MR 1', '09:00', 60), row(`${prefix}-2`, 'MR 1', '10:29', 30), row(`${prefix}-3`, 'MR 2', '09:00', 52), row(`${prefix}-4`, 'MR 2', '10:20', 30)]);
+  toCsv([EXAM_LIST_HEADER, plainExamRow(`${prefix}-1`, 'MR 1', '09:00', 60), plainExamRow(`${prefix}-2`, 'MR 1', '10:29', 30), plainExamRow(`${prefix}-3`, 'MR 2', '09:00', 52), plainExamRow(`${prefix}-4`, 'MR 2', '10:20', 30)]);
 
 let server: TestServer;
 let browser: Browser;
@@ -27,13 +27,9 @@ const rosterRow = (page: Page, n: number): Locator => dialog(page).locator('li.r
 
 describe('the roster: a charge technologist says who is on shift and sees the clash between rooms', { timeout: 240_000 }, () => {
   before(async () => {
-    server = await startTestServer({ seedDay: false });
-    browser = await launchBrowser();
+    ({ server, browser } = await serverAndBrowser());
   });
-  after(async () => {
-    await browser?.close();
-    await server?.close();
-  });
+  after(() => stopServerAndBrowser({ server, browser }));
 
   for (const [name, viewport, day, prefix] of [['1440', WIDE, '2027-03-16', 'RS'], ['768', TABLET, '2027-03-17', 'RT']] as const) {
     test(`at ${name} px: a 422 under its field, then one aide for MR 1 and MR 2 makes MR 1 short, and the gap says why`, { timeout: 120_000 }, async () => {

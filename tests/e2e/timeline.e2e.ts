@@ -1,18 +1,17 @@
 import assert from 'node:assert/strict';
 import { after, before, describe, test } from 'node:test';
 import type { Browser, Page, Response } from 'playwright-core';
-import { EXAM_LIST_HEADER, toCsv } from '../fixtures/exam-lists';
-import { DESKTOP, TABLET, launchBrowser, openPage, screenshot, signIn } from './support/browser';
-import { dayHistory, importDayList } from './support/day-api';
-import { startTestServer, type TestServer } from './support/server';
+import { EXAM_LIST_HEADER, plainExamRow, toCsv } from '../fixtures/exam-lists';
+import { DESKTOP, TABLET, screenshot } from './support/browser';
+import { dayHistory } from './support/day-api';
+import { importedDay, stopServerAndBrowser } from './support/imported-day';
+import type { TestServer } from './support/server';
 import { withSessions as withSessionsIn, type Session } from './support/sessions';
 import { dragBy, examBlock, gapMarker, pxPerMinute, twoFrames } from './support/timeline';
 
 const DAY = '2027-03-10';
 /** The demo site's zone is America/Chicago: UTC−6 on 2027-03-10, before US daylight time starts on the second Sunday of March, the 14th (15 U.S.C. § 260a). */
 const at = (hhmm: string) => Date.parse(`${DAY}T${hhmm}:00-06:00`);
-const row = (acc: string, room: string, start: string, dur: number) =>
-  [acc, room, start, String(dur), 'MR knee without contrast', 'knee', 'none', 'ambulatory', 'no', ''];
 
 /**
  * An invented day. With the default MR protocol a plain turnover needs 20 min (product brief), so:
@@ -22,14 +21,14 @@ const row = (acc: string, room: string, start: string, dur: number) =>
  */
 const DAY_LIST = toCsv([
   EXAM_LIST_HEADER,
-  row('TL-1', 'MR 1', '08:00', 30),
-  row('TL-2', 'MR 1', '08:40', 30),
-  row('TL-3', 'MR 1', '10:30', 30),
-  row('TL-4', 'MR 2', '08:00', 45),
-  row('TL-5', 'MR 2', '10:00', 30),
-  row('TL-6', 'MR 3', '08:00', 30),
-  row('TL-7', 'MR 3', '08:35', 30),
-  row('TL-8', 'CT 1', '08:00', 15),
+  plainExamRow('TL-1', 'MR 1', '08:00', 30),
+  plainExamRow('TL-2', 'MR 1', '08:40', 30),
+  plainExamRow('TL-3', 'MR 1', '10:30', 30),
+  plainExamRow('TL-4', 'MR 2', '08:00', 45),
+  plainExamRow('TL-5', 'MR 2', '10:00', 30),
+  plainExamRow('TL-6', 'MR 3', '08:00', 30),
+  plainExamRow('TL-7', 'MR 3', '08:35', 30),
+  plainExamRow('TL-8', 'CT 1', '08:00', 15),
 ]);
 
 let server: TestServer;
@@ -51,20 +50,9 @@ const stored = (accession: string) => server.db('exams').where({ day: DAY, acces
 
 describe('day timeline in the browser', { timeout: 120_000 }, () => {
   before(async () => {
-    server = await startTestServer({ seedDay: false });
-    browser = await launchBrowser();
-    const { context, page } = await openPage(browser);
-    try {
-      await signIn(page, server.baseUrl, 'charge');
-      await importDayList(context, server.baseUrl, DAY, DAY_LIST);
-    } finally {
-      await context.close();
-    }
+    ({ server, browser } = await importedDay('charge', DAY, DAY_LIST));
   });
-  after(async () => {
-    await browser?.close();
-    await server?.close();
-  });
+  after(() => stopServerAndBrowser({ server, browser }));
 
   test('a mouse drag fixes a short gap, is saved and logged, and the front desk sees it live', { timeout: 45_000 }, async () => {
     await withSessions([['charge', DESKTOP], ['frontdesk', DESKTOP]], async (charge, desk) => {
