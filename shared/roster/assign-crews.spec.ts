@@ -12,6 +12,21 @@ import { gapVerdict } from '../turnover/verdict';
 const MIN = 60_000;
 const at = (hh: number, mm = 0) => (hh * 60 + mm) * MIN;
 
+/**
+ * Invented example. MR 1 and MR 2 both free at 10:00; the next patients at 10:20 and 10:30.
+ * One aide covers both; 20 minutes of work alone (all hands-on); walking 3 minutes (common practice, no source).
+ */
+function oneAideTwoRooms(): CrewProblem {
+  return {
+    walkMs: 3 * MIN,
+    people: [{ startMs: at(7), endMs: at(15), breaks: [], roomIds: [1, 2] }],
+    jobs: [
+      { fromMs: at(10), toMs: at(10, 20), roomId: 1, availableMinutes: 20, wanted: 1, requiredMinutes: [0, 20], busyMinutes: [0, 20] },
+      { fromMs: at(10), toMs: at(10, 30), roomId: 2, availableMinutes: 30, wanted: 1, requiredMinutes: [0, 20], busyMinutes: [0, 20] },
+    ],
+  };
+}
+
 function keyVector(problem: CrewProblem): number[] {
   const { key } = assignCrews(problem);
   return [key.unstaffed, key.problems, key.shortBy, key.requiredSum, ...key.required];
@@ -19,16 +34,7 @@ function keyVector(problem: CrewProblem): number[] {
 
 describe('assignCrews', () => {
   describe('invented example: one aide for two MR rooms whose patients leave at the same minute', () => {
-    // Invented example. MR 1 and MR 2 both free at 10:00; the next patients at 10:20 and 10:30.
-    // One aide covers both; 20 minutes of work alone (all hands-on); walking 3 minutes (common practice, no source).
-    const problem: CrewProblem = {
-      walkMs: 3 * MIN,
-      people: [{ startMs: at(7), endMs: at(15), breaks: [], roomIds: [1, 2] }],
-      jobs: [
-        { fromMs: at(10), toMs: at(10, 20), roomId: 1, availableMinutes: 20, wanted: 1, requiredMinutes: [0, 20], busyMinutes: [0, 20] },
-        { fromMs: at(10), toMs: at(10, 30), roomId: 2, availableMinutes: 30, wanted: 1, requiredMinutes: [0, 20], busyMinutes: [0, 20] },
-      ],
-    };
+    const problem = oneAideTwoRooms();
 
     it('turns MR 1 over first and sends the aide on to MR 2, which is then short by 13 min', () => {
       const { choices, key, provenOptimal } = assignCrews(problem);
@@ -154,14 +160,7 @@ describe('assignCrews', () => {
 
   describe('checker (the properties above would notice)', () => {
     it('reports a person in two rooms at once', () => {
-      const problem: CrewProblem = {
-        walkMs: 3 * MIN,
-        people: [{ startMs: at(7), endMs: at(15), breaks: [], roomIds: [1, 2] }],
-        jobs: [
-          { fromMs: at(10), toMs: at(10, 20), roomId: 1, availableMinutes: 20, wanted: 1, requiredMinutes: [0, 20], busyMinutes: [0, 20] },
-          { fromMs: at(10), toMs: at(10, 30), roomId: 2, availableMinutes: 30, wanted: 1, requiredMinutes: [0, 20], busyMinutes: [0, 20] },
-        ],
-      };
+      const problem = oneAideTwoRooms();
       const result = assignCrews(problem);
       result.choices[1]!.startMs = at(10, 21);
       expect(crewProblems(problem, result)).toEqual(['person 0: job 1 starts before job 0 ends and they walk over']);
