@@ -1,10 +1,10 @@
 import http from 'node:http';
-import { createDb, migrateToLatest } from '../../server/db';
-import { seedDemo, seedReferenceData } from '../../server/seeding';
-import { DEMO_PASSWORD } from '../../seeds/support/demo-accounts';
+import { createDb } from '../../server/db';
 import { databaseUrl, testDatabaseUrl } from '../api/pg-databases';
-import { EXAM_LIST_HEADER, toCsv } from '../fixtures/exam-lists';
+import { EXAM_LIST_HEADER } from '../fixtures/exam-lists';
 import { startServerProcess, type ServerProcess } from '../support/server-process';
+import { hhmm, importDayList, seedDemoCentre, signIn, type Session } from './support/http-session';
+import { percentile } from './support/stats';
 
 const DAY = '2027-03-10';
 const ROOMS = ['MR 1', 'MR 2', 'MR 3', 'CT 1'];
@@ -13,10 +13,6 @@ const LATENCY_MOVES = 200;
 const THROUGHPUT_MOVES = 400;
 const AT_ONCE = 8;
 
-interface Session {
-  cookie: string;
-  token: string;
-}
 interface PlanExam {
   id: number;
   start: string;
@@ -43,14 +39,7 @@ export async function benchPgProcesses(): Promise<string[]> {
   let stream: http.ClientRequest | undefined;
   try {
     await admin.raw(`create database ${name} template template0 encoding 'UTF8' lc_collate 'C' lc_ctype 'C'`);
-    const db = createDb(url);
-    try {
-      await migrateToLatest(db);
-      await seedReferenceData(db);
-      await seedDemo(db, new Date(), { day: false });
-    } finally {
-      await db.destroy();
-    }
+    await seedDemoCentre(url);
     servers.push(...(await Promise.all(['bench-a', 'bench-b'].map((appName) => startServerProcess({ databaseUrl: url, appName, sessionSecret: 'bench' })))));
     const [a, b] = servers as [ServerProcess, ServerProcess];
     const session = await signIn(a.url);
@@ -80,8 +69,7 @@ export async function benchPgProcesses(): Promise<string[]> {
       await event;
       times.push(performance.now() - t0);
     }
-    times.sort((x, y) => x - y);
-    const at = (q: number) => times[Math.min(times.length - 1, Math.ceil(q * times.length) - 1)]!.toFixed(1);
+    const at = (p: number) => percentile(times, p).toFixed(1);
 
     // the stream is closed first: throughput is the moves alone
     stream?.destroy();
@@ -101,7 +89,7 @@ export async function benchPgProcesses(): Promise<string[]> {
     const seconds = (performance.now() - started) / 1000;
     return [
       `pg two processes: ${sent} slot moves (${AT_ONCE} at a time, to A and B in turn, ${exams.length}-exam day) in ${seconds.toFixed(2)} s: ${(sent / seconds).toFixed(0)} moves/s (${refused} refused)`,
-      `pg two processes: move sent to A → its event on B's stream: p50 ${at(0.5)} ms, p99 ${at(0.99)} ms (${LATENCY_MOVES} moves one after another, request included)`,
+      `pg two processes: move sent to A → its event on B's stream: p50 ${at(50)} ms, p99 ${at(99)} ms (${LATENCY_MOVES} moves one after another, request included)`,
     ];
   } finally {
     stream?.destroy();
@@ -111,41 +99,15 @@ export async function benchPgProcesses(): Promise<string[]> {
   }
 }
 
-async function signIn(base: string): Promise<Session> {
-  const jar = new Map<string, string>();
-  const keep = (res: Response) => {
-    for (const c of res.headers.getSetCookie()) {
-      const [pair] = c.split(';');
-      const at = pair!.indexOf('=');
-      jar.set(pair!.slice(0, at), pair!.slice(at + 1));
-    }
-  };
-  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
-  keep(await fetch(`${base}/api/health`));
-  const login = await fetch(`${base}/api/auth/login`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json', Cookie: cookie(), 'X-XSRF-TOKEN': decodeURIComponent(jar.get('XSRF-TOKEN') ?? '') },
-    body: JSON.stringify({ username: 'charge', password: DEMO_PASSWORD }),
-  });
-  if (login.status !== 200) throw new Error(`bench sign-in failed: ${login.status}`);
-  keep(login);
-  return { cookie: cookie(), token: decodeURIComponent(jar.get('XSRF-TOKEN') ?? '') };
-}
-
 /** An invented day: the four demo rooms, 16 exams each, 30 minutes apart. Answers its exams. */
 async function importDay(base: string, session: Session): Promise<BenchExam[]> {
   const table = [EXAM_LIST_HEADER];
   ROOMS.forEach((room, r) => {
     for (let i = 0; i < EXAMS_PER_ROOM; i++) {
-      const minute = 7 * 60 + i * 30;
-      const hhmm = `${String(Math.floor(minute / 60)).padStart(2, '0')}:${String(minute % 60).padStart(2, '0')}`;
-      table.push([`PGB-${r}-${i}`, room, hhmm, '20', 'Invented procedure', 'knee', 'none', 'ambulatory', 'no', '']);
+      table.push([`PGB-${r}-${i}`, room, hhmm(7 * 60 + i * 30), '20', 'Invented procedure', 'knee', 'none', 'ambulatory', 'no', '']);
     }
   });
-  const form = new FormData();
-  form.append('file', new Blob([toCsv(table)], { type: 'text/csv' }), 'bench.csv');
-  const res = await fetch(`${base}/api/days/${DAY}/exams/import`, { method: 'POST', headers: { Cookie: session.cookie, 'X-XSRF-TOKEN': session.token }, body: form });
-  if (res.status !== 200) throw new Error(`bench import failed: ${res.status} ${await res.text()}`);
+  await importDayList(base, session, DAY, table);
   const plan = await fetch(`${base}/api/days/${DAY}/plan`, { headers: { Cookie: session.cookie } });
   return ((await plan.json()) as { rooms: { exams: PlanExam[] }[] }).rooms.flatMap((room) => room.exams.map(({ id, start, version }) => ({ id, start, version, moves: 0 })));
 }

@@ -3,12 +3,10 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import autocannon from 'autocannon';
-import { createDb, migrateToLatest } from '../../server/db';
-import { seedDemo, seedReferenceData } from '../../server/seeding';
-import { DEMO_PASSWORD } from '../../seeds/support/demo-accounts';
+import { createDb } from '../../server/db';
 import { databaseUrl, testDatabaseUrl } from '../api/pg-databases';
-import { EXAM_LIST_HEADER, toCsv } from '../fixtures/exam-lists';
 import { startServerProcess, type ServerProcess } from '../support/server-process';
+import { busyDayTable, importDayList, seedDemoCentre, signIn, type Session } from './support/http-session';
 
 const DAY = '2027-03-10';
 const PLAN = `/api/days/${DAY}/plan`;
@@ -16,14 +14,6 @@ const PLAN = `/api/days/${DAY}/plan`;
 const WARM_UP_SECONDS = 4;
 const MEASURED_SECONDS = 8;
 const CONNECTIONS = [20, 100];
-// the invented busy day of plan.bench.ts: 40 exams, a plan body of about 85 kB, a full demo day
-const ROOMS = ['MR 1', 'MR 2', 'MR 3', 'CT 1'];
-const EXAMS_PER_ROOM = 10;
-
-interface Session {
-  cookie: string;
-  token: string;
-}
 interface Row {
   setup: string;
   connections: number;
@@ -50,7 +40,7 @@ export async function benchPlanDatabases(): Promise<string[]> {
   let sqlite: ServerProcess | undefined;
   try {
     const file = path.join(dir, 'bench.sqlite');
-    await seed(file);
+    await seedDemoCentre(file);
     sqlite = await startServerProcess({ databaseUrl: '', appName: 'bench-sqlite', sessionSecret: 'bench', env: { DATABASE_FILE: file } });
     const session = await signIn(sqlite.url);
     body = await importDay(sqlite.url, session);
@@ -70,7 +60,7 @@ export async function benchPlanDatabases(): Promise<string[]> {
     const proxies: Proxy[] = [];
     try {
       await admin.raw(`create database ${name} template template0 encoding 'UTF8' lc_collate 'C' lc_ctype 'C'`);
-      await seed(url);
+      await seedDemoCentre(url);
       // both start now; B idles (no requests) through the one-process rows
       servers.push(...(await Promise.all(['bench-plan-a', 'bench-plan-b'].map((appName) => startServerProcess({ databaseUrl: url, appName, sessionSecret: 'bench' })))));
       const [a, b] = servers as [ServerProcess, ServerProcess];
@@ -122,53 +112,9 @@ function run(base: string, connections: number, duration: number, session: Sessi
   return autocannon({ url: `${base}${PLAN}`, connections, duration, headers: { Cookie: session.cookie } });
 }
 
-/** Migrates and seeds a database (an SQLite file or a postgres:// URL) as the other benches do: the demo centre, no demo day. */
-async function seed(target: string): Promise<void> {
-  const db = createDb(target);
-  try {
-    await migrateToLatest(db);
-    await seedReferenceData(db);
-    await seedDemo(db, new Date(), { day: false });
-  } finally {
-    await db.destroy();
-  }
-}
-
-async function signIn(base: string): Promise<Session> {
-  const jar = new Map<string, string>();
-  const keep = (res: Response) => {
-    for (const c of res.headers.getSetCookie()) {
-      const [pair] = c.split(';');
-      const at = pair!.indexOf('=');
-      jar.set(pair!.slice(0, at), pair!.slice(at + 1));
-    }
-  };
-  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
-  keep(await fetch(`${base}/api/health`));
-  const login = await fetch(`${base}/api/auth/login`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json', Cookie: cookie(), 'X-XSRF-TOKEN': decodeURIComponent(jar.get('XSRF-TOKEN') ?? '') },
-    body: JSON.stringify({ username: 'charge', password: DEMO_PASSWORD }),
-  });
-  if (login.status !== 200) throw new Error(`bench sign-in failed: ${login.status}`);
-  keep(login);
-  return { cookie: cookie(), token: decodeURIComponent(jar.get('XSRF-TOKEN') ?? '') };
-}
-
-/** Imports the invented busy day (the four demo rooms, ten exams each, some gaps tight); answers its plan's body. */
+/** Imports the invented busy day of plan.bench.ts (40 exams, a plan body of about 85 kB, a full demo day); answers its plan's body. */
 async function importDay(base: string, session: Session): Promise<string> {
-  const table = [EXAM_LIST_HEADER];
-  ROOMS.forEach((room, r) => {
-    for (let i = 0; i < EXAMS_PER_ROOM; i++) {
-      const minute = 7 * 60 + i * (room === 'CT 1' ? 20 : 28) + (i % 3);
-      const hhmm = `${String(Math.floor(minute / 60)).padStart(2, '0')}:${String(minute % 60).padStart(2, '0')}`;
-      table.push([`BENCH-${r}-${i}`, room, hhmm, room === 'CT 1' ? '10' : '20', 'Invented procedure', 'knee', i === 7 ? 'contact' : 'none', 'ambulatory', 'no', '']);
-    }
-  });
-  const form = new FormData();
-  form.append('file', new Blob([toCsv(table)], { type: 'text/csv' }), 'bench.csv');
-  const res = await fetch(`${base}/api/days/${DAY}/exams/import`, { method: 'POST', headers: { Cookie: session.cookie, 'X-XSRF-TOKEN': session.token }, body: form });
-  if (res.status !== 200) throw new Error(`bench import failed: ${res.status} ${await res.text()}`);
+  await importDayList(base, session, DAY, busyDayTable());
   const plan = await fetch(`${base}${PLAN}`, { headers: { Cookie: session.cookie } });
   if (plan.status !== 200) throw new Error(`bench plan failed: ${plan.status}`);
   return plan.text();

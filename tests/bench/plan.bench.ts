@@ -4,15 +4,12 @@ import http from 'node:http';
 import os from 'node:os';
 import path from 'node:path';
 import autocannon from 'autocannon';
-import { DEMO_PASSWORD } from '../../seeds/support/demo-accounts';
-import { EXAM_LIST_HEADER, toCsv } from '../fixtures/exam-lists';
+import { busyDayTable, importDayList, signIn, type Session } from './support/http-session';
 
 const DAY = '2027-03-10';
 const SECONDS = 5;
 const STREAMS = 200;
 const MOVES = 5;
-// 40 exams give a plan body of about 85 kB, the size of a full demo day.
-const EXAMS_PER_ROOM = 10;
 
 /**
  * The day plan served by Turnwise against a bare Express 5 app serving the same body, side by
@@ -26,7 +23,7 @@ export async function benchPlan(): Promise<string[]> {
   const bodyFile = path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'turnwise-bench-body-')), 'plan.json');
   try {
     const session = await signIn(turnwise.base);
-    await importBusyDay(turnwise.base, session);
+    await importDayList(turnwise.base, session, DAY, busyDayTable());
     const plan = await get(turnwise.base, `/api/days/${DAY}/plan`, session.cookie);
     fs.writeFileSync(bodyFile, plan.body);
     lines.push(`plan: ${(plan.body.length / 1024).toFixed(1)} kB body, ${JSON.parse(plan.body).rooms.reduce((n: number, r: { exams: unknown[] }) => n + r.exams.length, 0)} exams`);
@@ -78,50 +75,6 @@ function startChild(args: string[]): Promise<Child> {
       });
     });
   });
-}
-
-interface Session {
-  cookie: string;
-  token: string;
-}
-
-async function signIn(base: string): Promise<Session> {
-  const first = await fetch(`${base}/api/health`);
-  const jar = new Map<string, string>();
-  const keep = (res: Response) => {
-    for (const c of res.headers.getSetCookie()) {
-      const [pair] = c.split(';');
-      const [name, value] = pair!.split('=');
-      jar.set(name!, value!);
-    }
-  };
-  keep(first);
-  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
-  const login = await fetch(`${base}/api/auth/login`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json', Cookie: cookie(), 'X-XSRF-TOKEN': decodeURIComponent(jar.get('XSRF-TOKEN') ?? '') },
-    body: JSON.stringify({ username: 'charge', password: DEMO_PASSWORD }),
-  });
-  if (login.status !== 200) throw new Error(`bench sign-in failed: ${login.status}`);
-  keep(login);
-  return { cookie: cookie(), token: decodeURIComponent(jar.get('XSRF-TOKEN') ?? '') };
-}
-
-/** An invented busy day: the four demo rooms, ten exams each, some gaps tight. */
-async function importBusyDay(base: string, session: Session): Promise<void> {
-  const rooms = ['MR 1', 'MR 2', 'MR 3', 'CT 1'];
-  const table = [EXAM_LIST_HEADER];
-  rooms.forEach((room, r) => {
-    for (let i = 0; i < EXAMS_PER_ROOM; i++) {
-      const minute = 7 * 60 + i * (room === 'CT 1' ? 20 : 28) + (i % 3);
-      const hhmm = `${String(Math.floor(minute / 60)).padStart(2, '0')}:${String(minute % 60).padStart(2, '0')}`;
-      table.push([`BENCH-${r}-${i}`, room, hhmm, room === 'CT 1' ? '10' : '20', 'Invented procedure', 'knee', i === 7 ? 'contact' : 'none', 'ambulatory', 'no', '']);
-    }
-  });
-  const form = new FormData();
-  form.append('file', new Blob([toCsv(table)], { type: 'text/csv' }), 'bench.csv');
-  const res = await fetch(`${base}/api/days/${DAY}/exams/import`, { method: 'POST', headers: { Cookie: session.cookie, 'X-XSRF-TOKEN': session.token }, body: form });
-  if (res.status !== 200) throw new Error(`bench import failed: ${res.status} ${await res.text()}`);
 }
 
 async function get(base: string, url: string, cookie: string): Promise<{ body: string; etag: string }> {

@@ -9,6 +9,7 @@ import { importDayList } from '../e2e/support/day-api';
 import { CLIENT_DIR, startTestServer } from '../e2e/support/server';
 import { examBlock, measures, twoFrames } from '../e2e/support/timeline';
 import { DEMO_ROOM_NAMES, EXAM_LIST_HEADER, toCsv } from '../fixtures/exam-lists';
+import { percentile } from './support/stats';
 
 const DAY = '2027-03-10';
 const EXTRA_ROOMS = 36;
@@ -56,8 +57,6 @@ const median = (values: number[]) => {
   const s = sorted(values);
   return s.length % 2 ? s[(s.length - 1) / 2]! : (s[s.length / 2 - 1]! + s[s.length / 2]!) / 2;
 };
-/** Nearest-rank percentile. */
-const percentile = (values: number[], p: number) => sorted(values)[Math.max(0, Math.ceil((p / 100) * values.length) - 1)]!;
 const ms = (value: number) => `${value.toFixed(1)} ms`;
 
 /** Loads the day and answers its first `tw-plan-render` measure (plan arrived → lanes drawn). */
