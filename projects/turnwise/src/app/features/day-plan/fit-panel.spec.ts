@@ -26,11 +26,12 @@ const PROPOSAL: DayFitAnswer = {
   fixed: [{ examId: 8, accession: 'FX-8', reason: 'arrived' }, { examId: 9, accession: 'FX-9', reason: 'pinned' }],
 };
 
-async function render(proposal = PROPOSAL) {
+async function render(proposal = PROPOSAL, roster = false) {
   TestBed.configureTestingModule({ imports: [FitPanel], providers: [provideIcons()] });
   const fixture = TestBed.createComponent(FitPanel);
   fixture.componentRef.setInput('proposal', proposal);
   fixture.componentRef.setInput('rooms', [{ id: 1, name: 'MR 1' }, { id: 2, name: 'MR 2' }, { id: 3, name: 'MR 3' }]);
+  fixture.componentRef.setInput('roster', roster);
   await fixture.whenStable();
   const host = fixture.nativeElement as HTMLElement;
   return { fixture, host, text: () => host.textContent!.replace(/\s+/g, ' ') };
@@ -73,5 +74,13 @@ describe('FitPanel', () => {
     const { text } = await render({ ...PROPOSAL, solver: { ...PROPOSAL.solver, scope: 'neighbourhood' } });
     expect(text()).toContain('Best within reach of each problem gap (a day this size is not searched whole)');
     expect(text()).not.toContain('Best possible');
+  });
+
+  it('on a day with a roster, says the proposal plans rooms with their own staff and points to the People view', async () => {
+    expect((await render()).text()).not.toContain('People view');
+    TestBed.resetTestingModule();
+    const { text } = await render(PROPOSAL, true);
+    expect(text()).toContain('Each room is planned here with its own staff');
+    expect(text()).toContain('check the People view');
   });
 });

@@ -24,6 +24,12 @@ const clock = (iso: string) => iso.slice(11, 16);
     </header>
     <p class="summary" role="status">{{ summary() }}</p>
     <p class="solver">{{ solverWords() }}</p>
+    @if (roster()) {
+      <p class="roster-note">
+        Each room is planned here with its own staff, plus people the roster leaves free as helpers. A gap
+        short because someone is busy in another room can remain after Apply: check the People view.
+      </p>
+    }
     @if (p.calls.length > 0) {
       <h3>Patients to call <span class="count">{{ p.calls.length }}</span></h3>
       <ul class="calls">
@@ -71,6 +77,7 @@ const clock = (iso: string) => iso.slice(11, 16);
     h3 { margin: 4px 0 0; font: var(--mat-sys-title-small); display: flex; gap: 8px; align-items: baseline; }
     .count { font: var(--mat-sys-label-large); color: var(--mat-sys-on-surface-variant); }
     p { margin: 0; font: var(--mat-sys-body-medium); }
+    .roster-note { font: var(--mat-sys-body-small); padding: 8px; border-radius: 4px; background: var(--mat-sys-surface-container-high); }
     .solver, .fixed { color: var(--mat-sys-on-surface-variant); font: var(--mat-sys-body-small); }
     ul { margin: 0; padding: 0 0 0 18px; font: var(--mat-sys-body-medium); font-variant-numeric: tabular-nums; display: grid; gap: 2px; }
     .accession { font-weight: 500; }
@@ -81,6 +88,8 @@ export class FitPanel {
   readonly proposal = input.required<DayFitAnswer>();
   readonly rooms = input.required<readonly { id: number; name: string }[]>();
   readonly busy = input(false);
+  /** The day has a roster: its crews across rooms are not part of the proposal (said in the panel). */
+  readonly roster = input(false);
   readonly applied = output<void>();
   readonly discarded = output<void>();
 
