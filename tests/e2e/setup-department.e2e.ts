@@ -29,9 +29,11 @@ const LIST = toCsv([EXAM_LIST_HEADER, row('NEW-1', '08:00', 15), row('NEW-2', '0
 let server: TestServer;
 let browser: Browser;
 
+/** Picks an option and waits until its panel has gone, so the next click cannot land on the closing panel. */
 async function choose(page: Page, within: Locator, label: string, option: string): Promise<void> {
   await within.getByRole('combobox', { name: label }).click();
   await page.getByRole('option', { name: option, exact: true }).click();
+  await page.getByRole('listbox').waitFor({ state: 'detached' });
 }
 
 async function signInAs(page: Page, username: string, password: string): Promise<void> {
@@ -48,9 +50,15 @@ async function addUser(page: Page, username: string, name: string, role: string,
   await dialog.getByLabel('Display name').fill(name);
   await dialog.getByLabel('E-mail').fill(`${username}@example.org`);
   await choose(page, dialog, 'Role', role);
+  await dialog.getByRole('combobox', { name: 'Role' }).filter({ hasText: role }).waitFor();
   await dialog.getByLabel('First password').fill(password);
   await dialog.getByRole('button', { name: 'Add user' }).click();
-  await dialog.waitFor({ state: 'detached' });
+  try {
+    await dialog.waitFor({ state: 'detached' });
+  } catch (error) {
+    // say what kept the dialog open (a refusal, a field's error) rather than only that it stayed
+    throw new Error(`the Add user dialog stayed open: ${(await dialog.innerText()).replace(/\s+/g, ' ')}`, { cause: error });
+  }
 }
 
 describe('a new department from nothing', { timeout: 240_000 }, () => {
