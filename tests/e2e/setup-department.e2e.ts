@@ -4,6 +4,7 @@ import type { Browser, Locator, Page } from 'playwright-core';
 import type { DayPlan } from '../../shared/turnover/day-plan-types';
 import { EXAM_LIST_HEADER, toCsv } from '../fixtures/exam-lists';
 import { axeViolations, describeViolation, installAxe } from './support/axe';
+import { choose, chosen, submitDialog } from './support/forms';
 import { launchBrowser, openPage, screenshot, signOut, STEP_TIMEOUT_MS } from './support/browser';
 import { startTestServer, type TestServer } from './support/server';
 import { recordConsoleErrors } from './support/watch';
@@ -29,13 +30,6 @@ const LIST = toCsv([EXAM_LIST_HEADER, row('NEW-1', '08:00', 15), row('NEW-2', '0
 let server: TestServer;
 let browser: Browser;
 
-/** Picks an option and waits until its panel has gone, so the next click cannot land on the closing panel. */
-async function choose(page: Page, within: Locator, label: string, option: string): Promise<void> {
-  await within.getByRole('combobox', { name: label }).click();
-  await page.getByRole('option', { name: option, exact: true }).click();
-  await page.getByRole('listbox').waitFor({ state: 'detached' });
-}
-
 async function signInAs(page: Page, username: string, password: string): Promise<void> {
   await page.goto(`${server.baseUrl}/sign-in`);
   await page.getByLabel('Username').fill(username);
@@ -50,15 +44,9 @@ async function addUser(page: Page, username: string, name: string, role: string,
   await dialog.getByLabel('Display name').fill(name);
   await dialog.getByLabel('E-mail').fill(`${username}@example.org`);
   await choose(page, dialog, 'Role', role);
-  await dialog.getByRole('combobox', { name: 'Role' }).filter({ hasText: role }).waitFor();
+  await chosen(dialog, 'Role', role);
   await dialog.getByLabel('First password').fill(password);
-  await dialog.getByRole('button', { name: 'Add user' }).click();
-  try {
-    await dialog.waitFor({ state: 'detached' });
-  } catch (error) {
-    // say what kept the dialog open (a refusal, a field's error) rather than only that it stayed
-    throw new Error(`the Add user dialog stayed open: ${(await dialog.innerText()).replace(/\s+/g, ' ')}`, { cause: error });
-  }
+  await submitDialog(dialog, 'Add user');
 }
 
 describe('a new department from nothing', { timeout: 240_000 }, () => {

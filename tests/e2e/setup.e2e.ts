@@ -1,6 +1,7 @@
 import assert from 'node:assert/strict';
 import { after, before, describe, test } from 'node:test';
 import type { Browser, Page } from 'playwright-core';
+import { choose, chosen, submitDialog } from './support/forms';
 import { axeViolations, describeViolation, installAxe } from './support/axe';
 import { launchBrowser, openPage, screenshot, signIn, signOut } from './support/browser';
 import { startTestServer, type TestServer } from './support/server';
@@ -24,12 +25,6 @@ after(async () => {
   await server?.close();
 });
 
-/** Fills a Material select by its label. */
-async function choose(page: Page, label: string, option: string): Promise<void> {
-  await page.getByRole('combobox', { name: label }).click();
-  await page.getByRole('option', { name: option, exact: true }).click();
-}
-
 describe('Setup', () => {
   test('an admin makes a CT room and a technologist; the technologist must change the password, then sees the room on Rooms now', async () => {
     const { context, page } = await openPage(browser, WIDE);
@@ -43,10 +38,10 @@ describe('Setup', () => {
       await page.getByRole('button', { name: 'Add a room' }).click();
       const roomDialog = page.getByRole('dialog');
       await roomDialog.getByLabel('Name').fill('CT 7');
-      await choose(page, 'Modality', 'CT');
+      await choose(page, roomDialog, 'Modality', 'CT');
+      await chosen(roomDialog, 'Modality', 'CT');
       await roomDialog.getByLabel('Air changes per hour').fill('15');
-      await roomDialog.getByRole('button', { name: 'Add room' }).click();
-      await roomDialog.waitFor({ state: 'detached' });
+      await submitDialog(roomDialog, 'Add room');
       await page.getByRole('table', { name: 'Rooms' }).getByRole('cell', { name: 'CT 7', exact: true }).waitFor();
 
       await page.getByRole('tab', { name: 'Users' }).click();
@@ -55,10 +50,10 @@ describe('Setup', () => {
       await userDialog.getByLabel('Username').fill('ava');
       await userDialog.getByLabel('Display name').fill('Ava Lindqvist');
       await userDialog.getByLabel('E-mail').fill('ava@example.org');
-      await choose(page, 'Role', 'Technologist');
+      await choose(page, userDialog, 'Role', 'Technologist');
+      await chosen(userDialog, 'Role', 'Technologist');
       await userDialog.getByLabel('First password').fill(FIRST_PASSWORD);
-      await userDialog.getByRole('button', { name: 'Add user' }).click();
-      await userDialog.waitFor({ state: 'detached' });
+      await submitDialog(userDialog, 'Add user');
       await page.getByRole('table', { name: 'Users' }).getByRole('cell', { name: 'ava', exact: true }).waitFor();
       await signOut(page, server.baseUrl);
 
@@ -122,9 +117,9 @@ describe('Setup', () => {
 
         await page.getByRole('button', { name: 'Add shift task' }).click();
         const dialog = page.getByRole('dialog');
-        await choose(page, 'Room', 'MR 1');
+        await choose(page, dialog, 'Room', 'MR 1');
         await dialog.getByLabel('Task', { exact: true }).fill(`Coil cart wipe-down ${viewport.width}`);
-        await choose(page, 'Repeats', 'Weekly');
+        await choose(page, dialog, 'Repeats', 'Weekly');
         await dialog.getByRole('spinbutton', { name: 'Every' }).fill('2');
         await dialog.getByRole('checkbox', { name: 'Monday' }).check();
         await dialog.getByRole('checkbox', { name: 'Friday' }).check();
@@ -134,8 +129,7 @@ describe('Setup', () => {
         for (const when of next) assert.match(when, /^(Mon|Fri) \d{1,2} [A-Z][a-z]{2} \d{4}, 07:00$/);
         await sweep('shift task dialog');
         await screenshot(page, `setup-shift-task-dialog-${viewport.width}`);
-        await dialog.getByRole('button', { name: 'Add task' }).click();
-        await dialog.waitFor({ state: 'detached' });
+        await submitDialog(dialog, 'Add task');
         await page.getByRole('cell', { name: `Coil cart wipe-down ${viewport.width}`, exact: true }).waitFor();
         await page.getByRole('row', { name: new RegExp(`Coil cart wipe-down ${viewport.width}`) }).getByText('Every 2 weeks on Monday and Friday at 07:00').waitFor();
         await screenshot(page, `setup-shift-tasks-added-${viewport.width}`);
