@@ -43,7 +43,7 @@ describe('FitPanel', () => {
     expect(text()).toContain('Leaves 1 gap short or overlapping: 2 exams moved, 10 min in all, the day ends at 18:40.');
     expect(text()).toContain('FX-2 08:40 → 08:50');
     expect(text()).toContain('FX-5 MR 1 → MR 2');
-    expect(text()).toContain('FX-9 in MR 3: short, short by 4 min — neither exam may move: FX-8 has arrived, FX-9 is pinned');
+    expect(text()).toContain('FX-9 in MR 3: short by 4 min — neither exam may move: FX-8 has arrived, FX-9 is pinned');
     expect(text()).toContain('May not move: FX-8 arrived; FX-9 pinned.');
     expect(text()).toContain('Best possible (whole day)');
   });

@@ -4,6 +4,8 @@ import { MatIconModule } from '@angular/material/icon';
 
 import type { DayFitAnswer } from '@shared/api/day-fit';
 
+import { verdictWords } from './gap-view';
+
 /** `HH:MM` of an ISO time written with the site's offset (as the server writes every time). */
 const clock = (iso: string) => iso.slice(11, 16);
 
@@ -58,7 +60,7 @@ const clock = (iso: string) => iso.slice(11, 16);
       <h3 class="unsolved">Still short or overlapping <span class="count">{{ p.remaining.length }}</span></h3>
       <ul class="remaining">
         @for (gap of p.remaining; track gap.toExamId) {
-          <li><span class="accession">{{ gap.accession }}</span> in {{ roomName(gap.roomId) }}: {{ gap.verdict }}{{ gap.shortByMinutes ? ', short by ' + gap.shortByMinutes + ' min' : '' }} — {{ gap.reason }}</li>
+          <li><span class="accession">{{ gap.accession }}</span> in {{ roomName(gap.roomId) }}: {{ verdictWords(gap) }} — {{ gap.reason }}</li>
         }
       </ul>
     }
@@ -125,6 +127,8 @@ export class FitPanel {
       .join('; ');
   });
   protected readonly fixedList = computed(() => this.proposal().fixed.map((f) => `${f.accession} (${f.reason})`).join(', '));
+
+  protected readonly verdictWords = verdictWords;
 
   protected roomName(id: number): string {
     return this.rooms().find((r) => r.id === id)?.name ?? `room ${id}`;

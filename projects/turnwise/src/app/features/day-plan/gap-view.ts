@@ -97,6 +97,18 @@ export function gapView(gap: PlanGap, toAccession: string, fromIso: string, scal
 function badgeText(gap: PlanGap, ppm: number): string {
   if (ppm < BADGE_WORDS_PX_PER_MIN) return `−${gap.shortByMinutes}`;
   // The product's own words, as in the panel and the marker's label.
+  return verdictWords(gap);
+}
+
+/**
+ * A gap's verdict in the product's words, with the minutes it is short by when it is late.
+ *
+ * @example
+ * verdictWords({ verdict: 'overlap', shortByMinutes: 18 }); // 'overlap, short by 18 min'
+ * verdictWords({ verdict: 'snug', shortByMinutes: 0 }); // 'snug'
+ */
+export function verdictWords(gap: Pick<PlanGap, 'verdict' | 'shortByMinutes'>): string {
+  if (gap.verdict !== 'short' && gap.verdict !== 'overlap') return gap.verdict;
   return `${gap.verdict === 'overlap' ? 'overlap, ' : ''}short by ${gap.shortByMinutes} min`;
 }
 
@@ -117,8 +129,7 @@ function bandOf(gap: PlanGap, fromIso: string, left: number, ppm: number): GapVi
 /** "Turnover before ACC-123: short by 4 min, needs 24, has 20" */
 export function gapLabel(gap: PlanGap, toAccession: string): string {
   const kind = gap.fromExamId === null ? 'Opening' : 'Turnover';
-  const late = gap.verdict === 'short' || gap.verdict === 'overlap';
-  const verdict = late ? `${gap.verdict === 'overlap' ? 'overlap, ' : ''}short by ${gap.shortByMinutes} min` : gap.verdict;
+  const verdict = verdictWords(gap);
   const has = gap.availableMinutes < 0 ? `overlaps by ${-gap.availableMinutes}` : `has ${gap.availableMinutes}`;
   const air = gap.airHoldMinutes > 0 ? `, air hold ${gap.airHoldMinutes} min` : '';
   return `${kind} before ${toAccession}: ${verdict}, needs ${gap.requiredMinutes}, ${has}${air}`;

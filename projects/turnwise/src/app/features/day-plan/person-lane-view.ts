@@ -1,7 +1,8 @@
-import type { DayPlan, PlanGap, PlanPerson, PlanRoom, Verdict } from '@shared/api/plan';
+import type { DayPlan, PlanPerson, PlanRoom, Verdict } from '@shared/api/plan';
 import { ROSTER_ROLE_LABEL } from '@shared/api/roster';
 import { DateTime } from 'luxon';
 
+import { verdictWords } from './gap-view';
 import { blockAccession, clockOf } from './lane-view';
 import { TimelineScale, xOf } from './timeline-scale';
 
@@ -271,11 +272,6 @@ export function workAccession(accession: string, width: number): string {
   if (accession.length <= chars) return accession;
   // The room timeline's cut (whole parts of the accession), for as many characters as fit here.
   return chars >= 4 ? blockAccession(accession, chars * 8 + 16) : '';
-}
-
-/** "short by 6 min", "fits". */
-function verdictWords(gap: PlanGap): string {
-  return gap.shortByMinutes > 0 ? `${gap.verdict === 'overlap' ? 'overlap, ' : ''}short by ${gap.shortByMinutes} min` : gap.verdict;
 }
 
 /** Rooms nobody on the roster covers, by name. */

@@ -1,7 +1,8 @@
 import type { MoveReason } from '@shared/api/limits';
-import type { PlanExam, PlanGap, PlanRoom } from '@shared/api/plan';
+import type { PlanExam, PlanRoom } from '@shared/api/plan';
 
 import { siteClock } from '../../shared/ui/site-time';
+import { verdictWords } from './gap-view';
 
 /** A slot being moved and not yet saved: by pointer (`drag`) or arrow keys (`keyboard`). */
 export interface PendingMove {
@@ -50,11 +51,6 @@ export function moveStatus(move: PendingMove, room: PlanRoom | undefined): strin
   if (before) parts.push(`gap before: ${verdictWords(before)}`);
   if (after) parts.push(`gap after: ${verdictWords(after)}`);
   return parts.join(' — ');
-}
-
-function verdictWords(gap: PlanGap): string {
-  if (gap.verdict === 'short') return `short by ${gap.shortByMinutes} min`;
-  return gap.verdict === 'overlap' ? `overlap, short by ${gap.shortByMinutes} min` : gap.verdict;
 }
 
 /** Keeps a slot inside the drawn day, whole 5-minute steps included. */
