@@ -5,6 +5,9 @@ import { createThreadPool, poolFailure } from './thread-pool';
 
 const RECENT_ANSWERS = 8;
 
+/** The solver's budget for one proposal unless the pool is told otherwise. */
+export const DAY_FIT_SOLVE_MS = 8_000;
+
 export interface DayFitPoolOptions {
   /** Threads at most; default 1, leaving the other core of a small server to the event loop. */
   maxThreads?: number;
@@ -41,7 +44,7 @@ export function createDayFitPool(options: DayFitPoolOptions = {}): DayFitPool {
     maxHeapMb: 512,
     idleTimeoutMs: 60_000,
   });
-  const solveMs = options.solveMs ?? 8_000;
+  const solveMs = options.solveMs ?? DAY_FIT_SOLVE_MS;
   const running = new Map<string, Promise<DayFitProposal>>();
   // The last few answers: the same day at the same versions gets the same proposal again at once.
   const recent = new Map<string, DayFitProposal>();

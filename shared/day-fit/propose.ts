@@ -13,6 +13,7 @@ import { remainingGaps } from './remaining';
 
 /** Larger neighbourhoods tried in turn for a group too large to solve whole. */
 const REACHES: readonly Reach[] = [
+  { neighbours: 0, shiftMinutes: 30, roomsPerBlock: 1, maxFree: 6 },
   { neighbours: 0, shiftMinutes: 30, roomsPerBlock: 4, maxFree: 6 },
   { neighbours: 1, shiftMinutes: 90, roomsPerBlock: 4, maxFree: 8 },
   { neighbours: 3, shiftMinutes: 180, roomsPerBlock: 4, maxFree: 10 },
