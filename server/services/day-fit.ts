@@ -33,15 +33,16 @@ export async function fixedExams(db: Knex, day: string): Promise<Map<number, Fix
 }
 
 /**
- * The whole-day proposal, solved in the day-fit worker on the day as stored now. The roster's
- * crews are not part of the model yet: each room plans with its own staff (and set helpers), as
- * suggested fixes do. With a roster, the people it leaves idle in the current plan are offered
- * as helpers (`spareHelpers`), with the site's walking time between two of their turnovers.
+ * The whole-day proposal, solved in the day-fit worker on the day as stored now. With a roster,
+ * the day is planned with the roster's crews (`proposeWithRoster`: each turnover the roster
+ * staffs short is planned with the crew it gets, and the proposal is judged by the roster), and
+ * the people it leaves idle in the current plan are offered as helpers (`spareHelpers`), with
+ * the site's walking time between two of their turnovers.
  */
 export async function proposeFit(db: Knex, pool: DayFitPool, day: string): Promise<DayFitAnswer> {
   const versions = await planVersions(db, day);
   const version = versions.day;
-  const [{ roster: _roster, ...input }, fixed, plan] = await Promise.all([loadDayPlanInput(db, day), fixedExams(db, day), loadDayPlan(db, day)]);
+  const [input, fixed, plan] = await Promise.all([loadDayPlanInput(db, day), fixedExams(db, day), loadDayPlan(db, day)]);
   const options = {
     fixed: Object.fromEntries(fixed),
     helpers: plan.people ? spareHelpers(plan.people) : [],

@@ -45,7 +45,8 @@ export interface ClusterSolution {
  * pair (in that room, with or without a helper). Requiring it of every earlier exam, not only
  * the one just before, is what makes pairs enough; it equals the consecutive-gap rule whenever
  * required(i,j) ≤ required(i,k) + duration(k) + required(k,j), which the protocols satisfy
- * (tested). Opening steps likewise bound every exam of a room. `u` (gap left) relaxes the rows
+ * (tested). Opening steps likewise bound every exam of a room, and a ready-no-earlier time
+ * (a roster's late crew) bounds an exam that stays in its room. `u` (gap left) relaxes the rows
  * into an exam, so the model is always feasible and level 0 counts the gaps nothing can clear.
  *
  * @example
@@ -57,7 +58,7 @@ export function clusterModel(
   rooms: readonly FitRoom[],
   items: readonly ClusterItem[],
   slots: readonly HelperSlot[],
-  options: { grid: number; walkingMinutes: number },
+  options: { grid: number; walkingMinutes: number; readyNoEarlier?: ReadonlyMap<number, number> },
 ): ClusterModel {
   const lp = new LpWriter();
   const n = items.length;
@@ -213,6 +214,18 @@ export function clusterModel(
         }
       }
     }
+  }
+
+  // A crew that comes late: in its own room the exam starts no earlier than the room can be ready.
+  for (let k = 0; k < n; k++) {
+    const it = items[k]!;
+    const ready = options.readyNoEarlier?.get(it.fe.exam.id);
+    const own = it.rooms.find((r) => r.room.id === it.fe.roomId);
+    if (ready === undefined || !it.free || !own) continue;
+    const R = ready - it.lo;
+    if (R <= 0) continue; // never binding
+    const Y = inRoom(k, own);
+    lp.row([[1, s(k)], [R, u(k)], ...Y.terms.map(([c, x]) => [-R * c, x] as const)], '>=', ready - R + R * Y.constant);
   }
 
   // Opening steps bound every exam of the room.

@@ -52,6 +52,15 @@ export interface DayFitOptions {
   gridMinutes?: number;
   /** A modality group with at most this many exams is solved whole (exact); larger ones by neighbourhoods. Default 12. */
   wholeGroupLimit?: number;
+  /**
+   * The earliest start of an exam in its own room, by its id, as an instant with the site's
+   * offset: its turnover's crew starts late (a person busy in another room, on a break, not yet
+   * on shift), so the room is not ready before then whatever goes before it. Set by
+   * `proposeWithRoster`; none by default.
+   */
+  readyNoEarlier?: Readonly<Record<number, string>>;
+  /** Exams whose gap before them counts as a problem to clear although the engine alone finds it fits (a roster's judgement). */
+  problems?: readonly number[];
   /** Clock for the budget; default Date.now. */
   now?: () => number;
 }
@@ -114,6 +123,8 @@ export interface FitSolverReport {
   solves: number;
   clusters: number;
   milliseconds: number;
+  /** On a day with a roster: rounds of planning with the roster's crews (see `proposeWithRoster`). */
+  rosterRounds?: number;
 }
 
 export interface DayFitProposal {

@@ -10,6 +10,7 @@ import { fitDay, type FitDay, type FitExam, type FitGroup } from './instance';
 import { lpRow, type Term } from './lp-writer';
 import type { DayFitOptions, DayFitProposal, FitCall, FitExamMove, FitHelperUse, MipResult, MipSolve } from './model';
 import { remainingGaps } from './remaining';
+import { proposeWithRoster } from './roster-fit';
 
 /** Larger neighbourhoods tried in turn for a group too large to solve whole. */
 const REACHES: readonly Reach[] = [
@@ -36,6 +37,7 @@ interface SolveTally {
  * no `short` or `overlap` gap, minimising lexicographically the gaps left, exams moved, minutes
  * patients are moved, the day's end and helpers added — solved in turn (the last three as one
  * safely weighted objective), each optimum kept as a bound for the next. Fixed exams never move.
+ * A day with a roster is planned with the roster's crews (`proposeWithRoster`).
  *
  * @throws RangeError on a bad date, zone or start (as the day plan does)
  * @example
@@ -43,6 +45,11 @@ interface SolveTally {
  * proposal.calls; // [{ accession: 'A-7', fromStart: '…T10:05…', toStart: '…T10:20…', … }]
  */
 export function proposeDayFit(input: DayPlanInput, solve: MipSolve, options: DayFitOptions = {}): DayFitProposal {
+  return input.roster ? proposeWithRoster(input, solve, options, proposeWithStaff) : proposeWithStaff(input, solve, options);
+}
+
+/** The proposal with each turnover planned by its room's staff (or the day's override): no roster. */
+function proposeWithStaff(input: DayPlanInput, solve: MipSolve, options: DayFitOptions): DayFitProposal {
   const now = options.now ?? Date.now;
   const started = now();
   const deadline = started + (options.timeLimitMs ?? 8_000);
@@ -50,6 +57,7 @@ export function proposeDayFit(input: DayPlanInput, solve: MipSolve, options: Day
   const judgedBefore = fixDay(input);
   const problemInto = new Set<number>();
   for (const room of input.rooms) for (const gap of judgedBefore.judged(room.id).gaps) if (isProblemVerdict(gap.verdict)) problemInto.add(gap.toExamId);
+  for (const id of options.problems ?? []) problemInto.add(id);
   const slots = helperSlots(input, options);
   const tally: SolveTally = { solves: 0, clusters: 0, mipGap: 0, timeLimited: false, neighbourhood: false };
   const places = new Map<number, { roomId: number; start: number }>();
@@ -80,7 +88,8 @@ function solveGroup(
 ): ClusterSolution {
   const now = options.now ?? Date.now;
   const result: ClusterSolution = { places: new Map(), helpers: new Map() };
-  const model = (items: ClusterItem[]) => clusterModel(day, group.rooms, items, slots, { grid: options.gridMinutes ?? 1, walkingMinutes: options.walkingMinutes ?? 0 });
+  const readyNoEarlier = new Map(Object.entries(options.readyNoEarlier ?? {}).map(([id, iso]) => [Number(id), day.minuteOf(iso)]));
+  const model = (items: ClusterItem[]) => clusterModel(day, group.rooms, items, slots, { grid: options.gridMinutes ?? 1, walkingMinutes: options.walkingMinutes ?? 0, readyNoEarlier });
   if (group.exams.length <= (options.wholeGroupLimit ?? 12)) {
     const [items] = wholeGroup(group);
     tally.clusters++;

@@ -76,11 +76,13 @@ describe('FitPanel', () => {
     expect(text()).not.toContain('Best possible');
   });
 
-  it('on a day with a roster, says the proposal plans rooms with their own staff and points to the People view', async () => {
+  it('on a day with a roster, says the proposal is planned with its crews, not proven the best, and points to the People view', async () => {
     expect((await render()).text()).not.toContain('People view');
     TestBed.resetTestingModule();
-    const { text } = await render(PROPOSAL, true);
-    expect(text()).toContain('Each room is planned here with its own staff');
+    const { text } = await render({ ...PROPOSAL, solver: { ...PROPOSAL.solver, rosterRounds: 2 } }, true);
+    expect(text()).toContain("Planned with the roster's people");
     expect(text()).toContain('check the People view');
+    expect(text()).toContain("Best found in 2 rounds with the roster's crews (not proven the best possible)");
+    expect(text()).not.toContain('Best possible (whole day)');
   });
 });

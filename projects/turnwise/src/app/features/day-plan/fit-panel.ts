@@ -28,8 +28,9 @@ const clock = (iso: string) => iso.slice(11, 16);
     <p class="solver">{{ solverWords() }}</p>
     @if (roster()) {
       <p class="roster-note">
-        Each room is planned here with its own staff, plus people the roster leaves free as helpers. A gap
-        short because someone is busy in another room can remain after Apply: check the People view.
+        Planned with the roster's people: a turnover gets the crew the roster gives it and waits for
+        someone busy in another room, and people the roster leaves free can help. Who works which
+        turnover is settled after the moves, so a gap can still depend on people: check the People view.
       </p>
     }
     @if (p.calls.length > 0) {
@@ -90,7 +91,7 @@ export class FitPanel {
   readonly proposal = input.required<DayFitAnswer>();
   readonly rooms = input.required<readonly { id: number; name: string }[]>();
   readonly busy = input(false);
-  /** The day has a roster: its crews across rooms are not part of the proposal (said in the panel). */
+  /** The day has a roster: the proposal is planned with its crews, in rounds (said in the panel). */
   readonly roster = input(false);
   readonly applied = output<void>();
   readonly discarded = output<void>();
@@ -112,6 +113,9 @@ export class FitPanel {
     if (solver.status === 'nothing-to-do') return 'Nothing to solve.';
     const scope = solver.scope === 'whole' ? 'whole day' : 'around each problem gap';
     const took = `found in ${(solver.milliseconds / 1000).toFixed(1)} s`;
+    if (solver.rosterRounds !== undefined && solver.status === 'optimal') {
+      return `Best found in ${solver.rosterRounds} round${solver.rosterRounds === 1 ? '' : 's'} with the roster's crews (not proven the best possible); ${took}.`;
+    }
     if (solver.status === 'optimal' && solver.scope === 'whole') return `Best possible (whole day); ${took}.`;
     if (solver.status === 'optimal') return `Best within reach of each problem gap (a day this size is not searched whole); ${took}.`;
     const gap = solver.mipGap >= 1 ? 'not known' : `${(solver.mipGap * 100).toFixed(0)} %`;

@@ -15,7 +15,7 @@ export interface FitGhost {
 
 /** The day as the proposal would leave it, for the timeline. */
 export interface FitPreview {
-  /** Rooms recomputed with the proposal applied (same engine, same input as the plan). */
+  /** Rooms recomputed with the proposal applied (same engine, same input as the plan); every room with a roster. */
   rooms: ReadonlyMap<number, PlanRoom>;
   /** Old places by room. */
   ghosts: ReadonlyMap<number, readonly FitGhost[]>;
@@ -24,7 +24,8 @@ export interface FitPreview {
 }
 
 /**
- * The proposal on the plan's own input: the touched rooms recomputed in the browser, each moved
+ * The proposal on the plan's own input: the touched rooms (every room, on a day with a roster)
+ * recomputed in the browser, each moved
  * exam's old place kept as a ghost. Null when the engine refuses the input.
  *
  * @example
@@ -49,7 +50,11 @@ export function fitPreview(day: PlannedDay, proposal: DayFitAnswer): FitPreview 
   }
   const after = withChanges(day.input, proposal.changes);
   try {
-    const plan = computeDayPlan({ ...after, rooms: after.rooms.filter((r) => touched.has(r.id)), exams: after.exams.filter((e) => touched.has(e.roomId)) });
+    // With a roster people are shared between rooms: the whole day is computed (as the server
+    // judged the proposal) and every room taken from it, since a move can change another room's crew.
+    const plan = after.roster
+      ? computeDayPlan(after)
+      : computeDayPlan({ ...after, rooms: after.rooms.filter((r) => touched.has(r.id)), exams: after.exams.filter((e) => touched.has(e.roomId)) });
     return { rooms: new Map(plan.rooms.map((room) => [room.id, room])), ghosts, proposed };
   } catch {
     return null;

@@ -1,0 +1,146 @@
+import type { PlanChange } from '../api/changes';
+import { withChanges } from '../fixes/apply-changes';
+import { computeDayPlan } from '../turnover/day-plan';
+import type { DayPlanInput } from '../turnover/day-plan-input';
+import type { DayPlan } from '../turnover/day-plan-types';
+import { peopleReasonWords } from '../turnover/people-words';
+import type { DayFitOptions, DayFitProposal, FitRemainingGap, MipSolve } from './model';
+
+/** Rounds of planning with the roster's crews at most (each a whole proposal, then the roster's judgement). */
+const ROSTER_ROUNDS = 3;
+
+/** The first round's share of the time: it does most of the work; later rounds only follow crews. */
+const FIRST_ROUND_SHARE = 0.6;
+
+type Propose = (input: DayPlanInput, solve: MipSolve, options: DayFitOptions) => DayFitProposal;
+
+/**
+ * "Make the day fit" on a day with a roster. The MIP plans each turnover with a number of people
+ * (`proposeWithStaff`); the roster decides who actually comes and when. So the day is planned in
+ * rounds: each turnover the roster staffs with fewer people than its room's is planned with the
+ * crew it gets (a staff cap, only lowered), and one whose crew starts late (a person busy in
+ * another room, on a break, not yet on shift) keeps its next exam from starting before the room
+ * is ready then (a clock time, only raised); the
+ * gaps the roster finds short are the problems to clear; the proposal is judged with the roster's
+ * crews and the caps and ready times follow that judgement, until they stop changing (at most 3
+ * rounds). The round with the fewest gaps left by the roster's judgement (then fewest exams
+ * moved, then minutes) is the proposal; its before, after and gaps left are the roster's, and a
+ * gap left for people says why in the gap panel's words ("Short by 6 min: Aide 1 is in MR 2
+ * until 10:12"). This is a heuristic around the exact MIP: the crews are not variables of the
+ * model, so a roster day's proposal is not proven optimal.
+ *
+ * @example
+ * const proposal = proposeWithRoster(input, highsSolve, {}, proposeWithStaff);
+ * proposal.remaining[0]?.reason; // 'Short by 4 min: Aide 1 is in MR 2 until 10:12'
+ */
+export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options: DayFitOptions, proposeWithStaff: Propose): DayFitProposal {
+  const now = options.now ?? Date.now;
+  const started = now();
+  const deadline = started + (options.timeLimitMs ?? 8_000);
+  const { roster: _roster, ...ownStaff } = input;
+  const beforePlan = computeDayPlan(input);
+  const caps = new Map<number, number>();
+  const ready = new Map<number, string>();
+  followCrews(caps, ready, beforePlan);
+  let best: { proposal: DayFitProposal; plan: DayPlan; score: number[] } | null = null;
+  const tally = { solves: 0, clusters: 0, mipGap: 0, timeLimited: false, neighbourhood: false, rounds: 0 };
+  for (let round = 0; round < ROSTER_ROUNDS; round++) {
+    const left = deadline - now();
+    if (round > 0 && left <= 100) break;
+    const share = round === 0 ? FIRST_ROUND_SHARE : 1 / (ROSTER_ROUNDS - round);
+    const capped = { ...ownStaff, staffOverrides: { ...input.staffOverrides, ...Object.fromEntries(caps) } };
+    const proposal = proposeWithStaff(capped, solve, {
+      ...options,
+      readyNoEarlier: Object.fromEntries(ready),
+      problems: problemsOf(round === 0 ? beforePlan : best!.plan),
+      timeLimitMs: Math.max(100, left * share),
+    });
+    tally.rounds++;
+    tally.solves += proposal.solver.solves;
+    tally.clusters += proposal.solver.clusters;
+    tally.mipGap = Math.max(tally.mipGap, proposal.solver.mipGap);
+    tally.timeLimited ||= proposal.solver.status === 'time-limit';
+    tally.neighbourhood ||= proposal.solver.scope === 'neighbourhood';
+    // A helper's staffing change starts from the day's own override, not from a cap.
+    const changes = proposal.changes.map((change): PlanChange => (change.type === 'staffing' ? { ...change, from: input.staffOverrides?.[change.toExamId] ?? null } : change));
+    const plan = computeDayPlan(withChanges(input, changes));
+    const score = [plan.summary.short + plan.summary.overlap, proposal.objective.examsMoved, proposal.objective.minutesMoved];
+    if (!best || lexicallyLess(score, best.score)) best = { proposal: { ...proposal, changes }, plan, score };
+    if (score[0] === 0 || !followCrews(caps, ready, plan)) break;
+  }
+  const { proposal, plan } = best!;
+  const remaining = remainingWithPeople(plan, proposal.remaining, tally.rounds);
+  const nothingToDo = beforePlan.summary.short + beforePlan.summary.overlap === 0;
+  return {
+    ...proposal,
+    remaining,
+    objective: { ...proposal.objective, gapsLeft: remaining.length },
+    before: beforePlan.summary,
+    after: plan.summary,
+    solver: {
+      status: nothingToDo ? 'nothing-to-do' : tally.timeLimited ? 'time-limit' : 'optimal',
+      mipGap: tally.mipGap,
+      scope: tally.neighbourhood ? 'neighbourhood' : 'whole',
+      solves: tally.solves,
+      clusters: tally.clusters,
+      milliseconds: now() - started,
+      rosterRounds: tally.rounds,
+    },
+  };
+}
+
+/**
+ * What the roster's crews do to each turnover, carried into the next round: one staffed with
+ * fewer people than it wanted (at least one) is capped at the people it got, and after one whose
+ * crew started late the next exam starts no earlier than the room was ready (the crew's start is
+ * a clock time: moving the exam before it earlier does not bring the person sooner). Caps only
+ * go down and ready times only later, so the rounds end; answers whether anything changed.
+ */
+function followCrews(caps: Map<number, number>, ready: Map<number, string>, plan: DayPlan): boolean {
+  let changed = false;
+  for (const room of plan.rooms) {
+    for (const gap of room.gaps) {
+      const why = gap.people;
+      if (!why) continue;
+      if (why.got >= 1 && why.got < why.wanted && why.got < (caps.get(gap.toExamId) ?? Infinity)) {
+        caps.set(gap.toExamId, why.got);
+        changed = true;
+      }
+      const before = ready.get(gap.toExamId);
+      if (why.waitedMinutes > 0 && (before === undefined || Date.parse(gap.readyAt) > Date.parse(before))) {
+        ready.set(gap.toExamId, gap.readyAt);
+        changed = true;
+      }
+    }
+  }
+  return changed;
+}
+
+/** The exams after a `short` or `overlap` gap in a plan. */
+function problemsOf(plan: DayPlan): number[] {
+  return plan.rooms.flatMap((room) => room.gaps.filter((gap) => gap.verdict === 'short' || gap.verdict === 'overlap').map((gap) => gap.toExamId));
+}
+
+/** The gaps the roster's judgement leaves short or overlapping, each with why. */
+function remainingWithPeople(plan: DayPlan, solverLeft: readonly FitRemainingGap[], rounds: number): FitRemainingGap[] {
+  const solverReason = new Map(solverLeft.map((gap) => [gap.toExamId, gap.reason]));
+  const people = new Map((plan.people?.people ?? []).map((person) => [person.id, person.label]));
+  const names = { roomName: (id: number) => plan.rooms.find((r) => r.id === id)?.name, personLabel: (id: string) => people.get(id) };
+  const out: FitRemainingGap[] = [];
+  for (const room of plan.rooms) {
+    for (const gap of room.gaps) {
+      if (gap.verdict !== 'short' && gap.verdict !== 'overlap') continue;
+      const reason =
+        (gap.people ? peopleReasonWords(gap, gap.people, room.id, names) : null) ??
+        solverReason.get(gap.toExamId) ??
+        `short with the roster’s crews; ${rounds} round${rounds === 1 ? '' : 's'} of planning with them did not clear it`;
+      out.push({ fromExamId: gap.fromExamId, toExamId: gap.toExamId, accession: room.exams.find((e) => e.id === gap.toExamId)?.accession ?? String(gap.toExamId), roomId: room.id, verdict: gap.verdict, shortByMinutes: gap.shortByMinutes, reason });
+    }
+  }
+  return out;
+}
+
+function lexicallyLess(a: readonly number[], b: readonly number[]): boolean {
+  for (let k = 0; k < a.length; k++) if (a[k] !== b[k]) return a[k]! < b[k]!;
+  return false;
+}
