@@ -271,11 +271,33 @@ export function clusterModel(
         if (sign === -1) terms.push([Mp, o!]); // first = j when o = 0
         lp.row(terms, '>=', rhs);
       };
+      // The order the rows assume is the order the plan sees: by start, then id. Never relaxed
+      // by a gap left, so an exam whose gap is left stays where the order puts it and the gaps
+      // the engine counts are the gaps the model counts.
+      const order = (first: number, second: number, sign: 1 | -1 | 0) => {
+        const F = items[first]!;
+        const S = items[second]!;
+        const tie = F.fe.exam.id > S.fe.exam.id ? 1 : 0;
+        const Mo = F.hi - S.lo + tie;
+        if (Mo <= 0) return;
+        const terms: Term[] = [[1, s(second)], [-1, s(first)], ...[...Yi.terms, ...Yj.terms].map(([c, x]) => [-Mo * c, x] as const)];
+        let rhs = tie + Mo * (Yi.constant + Yj.constant) - 2 * Mo;
+        if (sign === 1) { terms.push([-Mo, o!]); rhs -= Mo; }
+        if (sign === -1) terms.push([Mo, o!]);
+        lp.row(terms, '>=', rhs);
+      };
       if (ij && ji) {
         write(a, b, 1);
         write(b, a, -1);
-      } else if (ij) write(a, b, 0);
-      else write(b, a, 0);
+        order(a, b, 1);
+        order(b, a, -1);
+      } else if (ij) {
+        write(a, b, 0);
+        order(a, b, 0);
+      } else {
+        write(b, a, 0);
+        order(b, a, 0);
+      }
     }
   }
 

@@ -27,8 +27,15 @@ describe('proposeDayFit against exhaustive enumeration', () => {
       expect(proposal.solver.status === 'optimal' || proposal.solver.status === 'nothing-to-do').toBe(true);
       if (proposal.solver.status === 'nothing-to-do') expect(best.score[1]).toBe(0);
       else if (best.score[0] === 0) expect(scoreOf(input, proposal)).toEqual(best.score);
-      // No combination clears every gap: the proposal says so and leaves no fewer than the best.
-      else expect(proposal.remaining.length).toBeGreaterThanOrEqual(best.score[0]);
+      else {
+        // No combination clears every gap: the same gaps left, exams moved and minutes as the
+        // best. The day's end may be later: after a gap left, the model still makes every earlier
+        // exam's turnover (an air hold too) bound the exams after it, where the plan judges only
+        // neighbours (invented day 17: 08:30 instead of 08:15).
+        const score = scoreOf(input, proposal);
+        expect(score.slice(0, 3)).toEqual(best.score.slice(0, 3));
+        expect(score[3]).toBeGreaterThanOrEqual(best.score[3]);
+      }
     }, 120_000);
   }
 });
