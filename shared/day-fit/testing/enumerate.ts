@@ -1,9 +1,10 @@
 import type { DayPlanInput } from '../../turnover/day-plan-input';
-import { fitDay } from '../instance';
-import type { FixedReason } from '../model';
+import type { HelperSlot } from '../cluster-model';
+import { fitDay, type FitDay, type FitExam, type FitGroup, type FitRoom } from '../instance';
+import type { FitHelper, FixedReason } from '../model';
 
-/** The lexicographic objective: gaps left, exams moved, minutes moved, day's end (minutes after midnight). */
-export type FitScore = [number, number, number, number];
+/** The lexicographic objective: gaps left, exams moved, minutes moved, day's end (minutes after midnight), helpers added. */
+export type FitScore = [number, number, number, number, number];
 
 /**
  * The best proposal by brute force, for small days: every free exam tries staying, then every
@@ -15,8 +16,13 @@ export type FitScore = [number, number, number, number];
  * @example
  * bestByEnumeration(input, { grid: 15 }).score; // [0, 1, 15, 600]
  */
-export function bestByEnumeration(input: DayPlanInput, options: { grid: number; fixed?: Record<number, FixedReason> }): { score: FitScore; combos: number } {
+export function bestByEnumeration(
+  input: DayPlanInput,
+  options: { grid: number; fixed?: Record<number, FixedReason>; helpers?: readonly FitHelper[]; walkingMinutes?: number },
+): { score: FitScore; combos: number } {
   const day = fitDay(input, { fixed: options.fixed });
+  const slots = helperSlots(day, options.helpers ?? []);
+  const walking = options.walkingMinutes ?? 0;
   const free = day.groups.flatMap((g) => g.exams.filter((fe) => fe.stays === null).map((fe) => ({ fe, rooms: g.rooms })));
   const options_ = free.map(({ fe, rooms }) => {
     const list: { roomId: number; start: number }[] = [{ roomId: fe.roomId, start: fe.start }];
@@ -27,7 +33,7 @@ export function bestByEnumeration(input: DayPlanInput, options: { grid: number; 
     }
     return list;
   });
-  let best: FitScore = [Infinity, Infinity, Infinity, Infinity];
+  let best: FitScore = [Infinity, Infinity, Infinity, Infinity, Infinity];
   let combos = 0;
   const chosen: { roomId: number; start: number }[] = [];
   // The plan's rule, gap by gap: exams in start order, each gap from the previous end (or the opening).
@@ -46,6 +52,8 @@ export function bestByEnumeration(input: DayPlanInput, options: { grid: number; 
       if (roomId !== fe.roomId || start !== fe.start) moved++;
       minutes += Math.abs(start - fe.start);
     }
+    // Gaps short with the room's staff, and whether one more person (a helper) would clear each.
+    const problems: { start: number; roomId: number; busy: number; cleared: boolean }[] = [];
     for (const group of day.groups) {
       for (const r of group.rooms) {
         const inRoom = placed.filter((p) => p.roomId === r.room.id).sort((a, b) => a.start - b.start || a.fe.exam.id - b.fe.exam.id);
@@ -53,14 +61,36 @@ export function bestByEnumeration(input: DayPlanInput, options: { grid: number; 
         for (const p of inRoom) {
           const from = previous ? previous.start + previous.fe.duration : r.open;
           const required = day.required(r.room, previous?.fe.exam ?? null, p.fe.exam, day.baseStaff(r.room, p.fe.exam));
-          if (p.start - from < required) gaps++;
+          if (p.start - from < required) {
+            gaps++;
+            const helper = day.helperStaff(r.room, p.fe.exam);
+            const cleared = helper !== null && p.start - from >= day.required(r.room, previous?.fe.exam ?? null, p.fe.exam, helper);
+            if (cleared && slots.length > 0) problems.push({ start: p.start, roomId: r.room.id, busy: busyOf(p.fe, group), cleared });
+          }
           end = Math.max(end, p.start + p.fe.duration);
           previous = p;
         }
       }
     }
-    const score: FitScore = [gaps, moved, minutes, end];
+    const [cleared, helpers] = bestHelpers(problems, slots, walking);
+    const score: FitScore = [gaps - cleared, moved, minutes, end, helpers];
     if (less(score, best)) best = score;
+  };
+  // The model books a helper for the longest turnover (with the helper) that could come before
+  // the exam in that room, from any exam of its group that could be there or the opening.
+  const busyCache = new Map<number, number>();
+  const busyOf = (fe: FitExam, group: FitGroup): number => {
+    let busy = busyCache.get(fe.exam.id);
+    if (busy !== undefined) return busy;
+    busy = 0;
+    const canBeIn = (other: FitExam, r: FitRoom) => (other.stays === null ? r.open <= r.close - other.duration && fitsHours(other, r) : other.roomId === r.room.id);
+    for (const r of group.rooms) {
+      const helper = day.helperStaff(r.room, fe.exam);
+      if (helper === null || !canBeIn(fe, r)) continue;
+      for (const other of [null, ...group.exams.filter((x) => x !== fe && canBeIn(x, r))]) busy = Math.max(busy, day.required(r.room, other?.exam ?? null, fe.exam, helper));
+    }
+    busyCache.set(fe.exam.id, busy);
+    return busy;
   };
   const walk = (k: number, moved: number, minutes: number) => {
     if (best[0] === 0 && (moved > best[1] || (moved === best[1] && minutes > best[2]))) return;
@@ -74,6 +104,46 @@ export function bestByEnumeration(input: DayPlanInput, options: { grid: number; 
   };
   walk(0, 0, 0);
   return { score: best, combos };
+}
+
+/** A free exam may be placed in a room when it fits the room's hours (as the model's rooms for it). */
+function fitsHours(fe: FitExam, r: FitRoom): boolean {
+  return r.open + fe.duration <= r.close;
+}
+
+function helperSlots(day: FitDay, helpers: readonly FitHelper[]): HelperSlot[] {
+  const minute = (hhmm: string) => day.minuteOf(`${day.input.date}T${hhmm}:00${day.toIso(0).slice(19)}`);
+  return helpers.flatMap((helper) => helper.free.map((f) => ({ helper, from: minute(f.start), to: minute(f.end) })));
+}
+
+/**
+ * The most gaps helpers can clear, then the fewest helpers, by trying every slot (or none) on
+ * every gap one more person would clear: a helper is booked for `busy` minutes ending at the
+ * exam's start, within its free slot and its rooms, one turnover at a time plus walking.
+ */
+function bestHelpers(problems: readonly { start: number; roomId: number; busy: number }[], slots: readonly HelperSlot[], walking: number): [number, number] {
+  let best: [number, number] = [0, 0];
+  const taken: { slot: number; from: number; to: number }[] = [];
+  const walk = (k: number) => {
+    if (k === problems.length) {
+      if (taken.length > best[0]) best = [taken.length, taken.length];
+      return;
+    }
+    if (taken.length + (problems.length - k) <= best[0]) return;
+    walk(k + 1);
+    const p = problems[k]!;
+    slots.forEach((slot, index) => {
+      if (slot.helper.roomIds !== null && !slot.helper.roomIds.includes(p.roomId)) return;
+      const from = p.start - p.busy;
+      if (from < slot.from || p.start > slot.to) return;
+      if (taken.some((t) => t.slot === index && !(p.start + walking <= t.from || t.to + walking <= from))) return;
+      taken.push({ slot: index, from, to: p.start });
+      walk(k + 1);
+      taken.pop();
+    });
+  };
+  walk(0);
+  return best;
 }
 
 export function less(a: FitScore, b: FitScore): boolean {
