@@ -11,6 +11,7 @@ import { lpRow, type Term } from './lp-writer';
 import type { DayFitOptions, DayFitProposal, FitCall, FitExamMove, FitHelperUse, MipResult, MipSolve } from './model';
 import { remainingGaps } from './remaining';
 import { proposeWithRoster } from './roster-fit';
+import { solverReport, type SolveTally } from './solver-report';
 
 /** Larger neighbourhoods tried in turn for a group too large to solve whole. */
 const REACHES: readonly Reach[] = [
@@ -23,13 +24,6 @@ const REACHES: readonly Reach[] = [
 /** Longest one solve of a neighbourhood may take (a small cluster that needs longer is rarely worth it). */
 const MAX_SOLVE_SECONDS = 2;
 
-interface SolveTally {
-  solves: number;
-  clusters: number;
-  mipGap: number;
-  timeLimited: boolean;
-  neighbourhood: boolean;
-}
 
 /**
  * The whole-day proposal: changes (start shifts within hours, moves to another open room of the
@@ -252,14 +246,7 @@ function proposal(
     },
     before,
     after: judgedAfter.summary,
-    solver: {
-      status: nothingToDo ? 'nothing-to-do' : tally.timeLimited ? 'time-limit' : 'optimal',
-      mipGap: tally.mipGap,
-      scope: tally.neighbourhood ? 'neighbourhood' : 'whole',
-      solves: tally.solves,
-      clusters: tally.clusters,
-      milliseconds,
-    },
+    solver: solverReport(tally, nothingToDo, milliseconds),
   };
 }
 

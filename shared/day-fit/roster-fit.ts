@@ -5,6 +5,7 @@ import type { DayPlanInput } from '../turnover/day-plan-input';
 import type { DayPlan } from '../turnover/day-plan-types';
 import { peopleReasonWords } from '../turnover/people-words';
 import type { DayFitOptions, DayFitProposal, FitRemainingGap, MipSolve } from './model';
+import { solverReport, type SolveTally } from './solver-report';
 
 /** Rounds of planning with the roster's crews at most (each a whole proposal, then the roster's judgement). */
 const ROSTER_ROUNDS = 3;
@@ -43,7 +44,8 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
   const ready = new Map<number, string>();
   followCrews(caps, ready, beforePlan);
   let best: { proposal: DayFitProposal; plan: DayPlan; score: number[] } | null = null;
-  const tally = { solves: 0, clusters: 0, mipGap: 0, timeLimited: false, neighbourhood: false, rounds: 0 };
+  const tally: SolveTally = { solves: 0, clusters: 0, mipGap: 0, timeLimited: false, neighbourhood: false };
+  let rounds = 0;
   for (let round = 0; round < ROSTER_ROUNDS; round++) {
     const left = deadline - now();
     if (round > 0 && left <= 100) break;
@@ -55,7 +57,7 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
       problems: problemsOf(round === 0 ? beforePlan : best!.plan),
       timeLimitMs: Math.max(100, left * share),
     });
-    tally.rounds++;
+    rounds++;
     tally.solves += proposal.solver.solves;
     tally.clusters += proposal.solver.clusters;
     tally.mipGap = Math.max(tally.mipGap, proposal.solver.mipGap);
@@ -69,7 +71,7 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
     if (score[0] === 0 || !followCrews(caps, ready, plan)) break;
   }
   const { proposal, plan } = best!;
-  const remaining = remainingWithPeople(plan, proposal.remaining, tally.rounds);
+  const remaining = remainingWithPeople(plan, proposal.remaining, rounds);
   const nothingToDo = beforePlan.summary.short + beforePlan.summary.overlap === 0;
   return {
     ...proposal,
@@ -77,15 +79,7 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
     objective: { ...proposal.objective, gapsLeft: remaining.length },
     before: beforePlan.summary,
     after: plan.summary,
-    solver: {
-      status: nothingToDo ? 'nothing-to-do' : tally.timeLimited ? 'time-limit' : 'optimal',
-      mipGap: tally.mipGap,
-      scope: tally.neighbourhood ? 'neighbourhood' : 'whole',
-      solves: tally.solves,
-      clusters: tally.clusters,
-      milliseconds: now() - started,
-      rosterRounds: tally.rounds,
-    },
+    solver: { ...solverReport(tally, nothingToDo, now() - started), rosterRounds: rounds },
   };
 }
 
