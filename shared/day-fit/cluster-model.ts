@@ -58,7 +58,7 @@ export function clusterModel(
   rooms: readonly FitRoom[],
   items: readonly ClusterItem[],
   slots: readonly HelperSlot[],
-  options: { grid: number; walkingMinutes: number; readyNoEarlier?: ReadonlyMap<number, number> },
+  options: { grid: number; walkingMinutes: number; readyNoEarlier?: ReadonlyMap<number, number>; helpersFor?: ReadonlySet<number> },
 ): ClusterModel {
   const lp = new LpWriter();
   const n = items.length;
@@ -164,6 +164,7 @@ export function clusterModel(
   if (slots.length > 0) {
     for (let k = 0; k < n; k++) {
       const it = items[k]!;
+      if (options.helpersFor && !options.helpersFor.has(it.fe.exam.id)) continue;
       const withHelper = it.rooms.filter((r) => day.helperStaff(r.room, it.fe.exam) !== null);
       if (withHelper.length === 0) continue;
       // The person is booked for the longest turnover that could precede the exam, ending at its start.

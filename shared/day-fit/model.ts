@@ -61,6 +61,8 @@ export interface DayFitOptions {
   readyNoEarlier?: Readonly<Record<number, string>>;
   /** Exams whose gap before them counts as a problem to clear although the engine alone finds it fits (a roster's judgement). */
   problems?: readonly number[];
+  /** A large group's neighbourhoods: how many of the widening reaches to try (default all four). */
+  reaches?: number;
   /** Clock for the budget; default Date.now. */
   now?: () => number;
 }

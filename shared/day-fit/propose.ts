@@ -83,7 +83,8 @@ function solveGroup(
   const now = options.now ?? Date.now;
   const result: ClusterSolution = { places: new Map(), helpers: new Map() };
   const readyNoEarlier = new Map(Object.entries(options.readyNoEarlier ?? {}).map(([id, iso]) => [Number(id), day.minuteOf(iso)]));
-  const model = (items: ClusterItem[]) => clusterModel(day, group.rooms, items, slots, { grid: options.gridMinutes ?? 1, walkingMinutes: options.walkingMinutes ?? 0, readyNoEarlier });
+  const model = (items: ClusterItem[], helpersFor?: ReadonlySet<number>) =>
+    clusterModel(day, group.rooms, items, slots, { grid: options.gridMinutes ?? 1, walkingMinutes: options.walkingMinutes ?? 0, readyNoEarlier, helpersFor });
   if (group.exams.length <= (options.wholeGroupLimit ?? 12)) {
     const [items] = wholeGroup(group);
     tally.clusters++;
@@ -93,8 +94,9 @@ function solveGroup(
   tally.neighbourhood = true;
   let seeds = new Set([...group.exams].filter((fe) => problemInto.has(fe.exam.id)).map((fe) => fe.exam.id));
   let view: FitGroup = group;
-  for (let tier = 0; tier < REACHES.length && seeds.size > 0; tier++) {
-    const clusters = neighbourhoods(day, view, seeds, REACHES[tier]!);
+  const reaches = REACHES.slice(0, options.reaches ?? REACHES.length);
+  for (let tier = 0; tier < reaches.length && seeds.size > 0; tier++) {
+    const clusters = neighbourhoods(day, view, seeds, reaches[tier]!);
     const unresolved = new Set<number>();
     clusters.forEach((clusterItems, index) => {
       tally.clusters++;
@@ -106,8 +108,10 @@ function solveGroup(
       const budget = (deadline - now()) / (clusters.length - index);
       const clusterSeeds = items.filter((it) => seeds.has(it.fe.exam.id)).map((it) => it.fe.exam.id);
       if (now() >= deadline) return;
-      const solved = solveLevels(model(items), mip, tally, now() + Math.max(100, budget), now, MAX_SOLVE_SECONDS);
-      const last = tier === REACHES.length - 1;
+      // A neighbourhood offers helpers only on its problem gaps: a binary per spare slot on every
+      // exam made a roster day's solves several times slower for little gain.
+      const solved = solveLevels(model(items, new Set(clusterSeeds)), mip, tally, now() + Math.max(100, budget), now, MAX_SOLVE_SECONDS);
+      const last = tier === reaches.length - 1;
       if (!solved || (solved.gapsLeft > 0 && !last) || (solved.gapsLeft > 0 && !better(day, group, result.places, solved.solution))) {
         if (!last) for (const id of clusterSeeds) unresolved.add(id);
         return;

@@ -13,6 +13,9 @@ const ROSTER_ROUNDS = 3;
 /** The first round's share of the time: it does most of the work; later rounds only follow crews. */
 const FIRST_ROUND_SHARE = 0.6;
 
+/** Neighbourhood reaches a later round tries (the own room, then a block of rooms, 30 min). */
+const LATER_ROUND_REACHES = 2;
+
 type Propose = (input: DayPlanInput, solve: MipSolve, options: DayFitOptions) => DayFitProposal;
 
 /**
@@ -56,6 +59,8 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
       readyNoEarlier: Object.fromEntries(ready),
       problems: problemsOf(round === 0 ? beforePlan : best!.plan),
       timeLimitMs: Math.max(100, left * share),
+      // Later rounds follow the crews with the two nearer reaches; the wide ones are tried once.
+      reaches: round === 0 ? options.reaches : Math.min(options.reaches ?? LATER_ROUND_REACHES, LATER_ROUND_REACHES),
     });
     rounds++;
     tally.solves += proposal.solver.solves;

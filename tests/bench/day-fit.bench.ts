@@ -1,4 +1,6 @@
 import { proposeDayFit } from '../../shared/day-fit';
+import { spareHelpers } from '../../shared/day-fit/roster-helpers';
+import { computeDayPlan } from '../../shared/turnover/day-plan';
 import { fitWorkDay } from '../../shared/day-fit/testing/fit-days';
 import { highsSolver } from '../../server/services/day-fit/highs-solve';
 import { createDayFitPool, DAY_FIT_SOLVE_MS } from '../../server/workers/day-fit-pool';
@@ -7,12 +9,16 @@ import { createDayFitPool, DAY_FIT_SOLVE_MS } from '../../server/workers/day-fit
  * "Make the day fit" on invented working days (shared/day-fit/testing/fit-days.ts): 4 rooms and
  * 80 exams (target < 1 s), 40 rooms and 1,200 exams (target < 10 s), each with the time limit the
  * server gives a proposal (what a charge technologist waits for), with the solver's status,
- * optimality gap, scope and what stays unsolved; then the small day once more through the
+ * optimality gap, scope and what stays unsolved; both again with an invented roster (planned with
+ * its crews, the spare people as helpers, as the server does); then the small day once more through the
  * worker pool (HiGHS loading in a fresh thread included). Printed, never asserted.
  *
  * @example
  * for (const line of await benchDayFit()) console.log(line);
  */
+/** Aides on the invented roster for each block of four rooms (which want seven people at once). */
+const PEOPLE_PER_BLOCK = 5;
+
 export async function benchDayFit(): Promise<string[]> {
   const solve = await highsSolver();
   const lines: string[] = [];
@@ -28,6 +34,31 @@ export async function benchDayFit(): Promise<string[]> {
       `day fit, ${name} (${input.exams.length} exams, ${p.before.short + p.before.overlap} problem gaps): ${ms.toFixed(0)} ms (target < ${target} ms) — ` +
         `${p.solver.status}, optimality gap ${p.solver.mipGap >= 1 ? 'unknown' : `${(p.solver.mipGap * 100).toFixed(1)} %`}, ${p.solver.scope}, ${p.solver.clusters} clusters, ${p.solver.solves} solves; ` +
         `${p.objective.examsMoved} moved, ${p.objective.minutesMoved} min, ${p.remaining.length} gaps left`,
+    );
+  }
+  // The same days with an invented roster, as the server asks: five aides for each block of four
+  // rooms (three MR rooms of two people, a CT room of one; every other aide with a half-hour break
+  // at noon or half past), the people it leaves idle offered as helpers, 3 min walking.
+  for (const [name, size, target] of [
+    ['4 rooms / 80 exams with a roster', { rooms: 4, examsPerRoom: 20 }, 1_000],
+    ['40 rooms / 1,200 exams with a roster', { rooms: 40, examsPerRoom: 30 }, 10_000],
+  ] as const) {
+    const { input: plain, fixed } = fitWorkDay(1, size);
+    const people = Array.from({ length: Math.ceil(size.rooms / 4) }, (_, block) => {
+      const roomIds = plain.rooms.slice(block * 4, block * 4 + 4).map((r) => r.id);
+      return Array.from({ length: PEOPLE_PER_BLOCK }, (_, k) => ({
+        id: `p${block}-${k}`, name: null, label: `Aide ${block * PEOPLE_PER_BLOCK + k + 1}`, role: 'aide' as const, start: '07:00', end: '19:00',
+        breaks: k % 2 === 0 ? [{ start: k % 4 === 0 ? '12:00' : '12:30', end: k % 4 === 0 ? '12:30' : '13:00' }] : [], roomIds,
+      }));
+    }).flat();
+    const input = { ...plain, roster: { source: 'day' as const, walkingMinutes: 3, people } };
+    const t0 = performance.now();
+    const plan = computeDayPlan(input);
+    const p = proposeDayFit(input, solve, { fixed, helpers: spareHelpers(plan.people!), walkingMinutes: 3, timeLimitMs: DAY_FIT_SOLVE_MS });
+    const ms = performance.now() - t0;
+    lines.push(
+      `day fit, ${name} (${people.length} people, ${p.before.short + p.before.overlap} problem gaps with the roster): ${ms.toFixed(0)} ms (target < ${target} ms) — ` +
+        `${p.solver.status}, ${p.solver.rosterRounds} rounds, ${p.solver.solves} solves; ${p.objective.examsMoved} moved, ${p.objective.minutesMoved} min, ${p.remaining.length} gaps left (not proven optimal with a roster)`,
     );
   }
   const pool = createDayFitPool();
