@@ -45,8 +45,9 @@ export interface ClusterSolution {
  * pair (in that room, with or without a helper). Requiring it of every earlier exam, not only
  * the one just before, is what makes pairs enough; it equals the consecutive-gap rule whenever
  * required(i,j) ≤ required(i,k) + duration(k) + required(k,j), which the protocols satisfy
- * (tested). Opening steps likewise bound every exam of a room, and a ready-no-earlier time
- * (a roster's late crew) bounds an exam that stays in its room. `u` (gap left) relaxes the rows
+ * (tested). Opening steps likewise bound every exam of a room. A crew that can start only from
+ * a clock time (a roster's person busy elsewhere) bounds every turnover into the exam in that
+ * room: from that time instead of the earlier exam's end. `u` (gap left) relaxes the rows
  * into an exam, so the model is always feasible and level 0 counts the gaps nothing can clear.
  *
  * @example
@@ -58,7 +59,7 @@ export function clusterModel(
   rooms: readonly FitRoom[],
   items: readonly ClusterItem[],
   slots: readonly HelperSlot[],
-  options: { grid: number; walkingMinutes: number; readyNoEarlier?: ReadonlyMap<number, number>; helpersFor?: ReadonlySet<number> },
+  options: { grid: number; walkingMinutes: number; crewFrom?: ReadonlyMap<number, ReadonlyMap<number, number>>; helpersFor?: ReadonlySet<number> },
 ): ClusterModel {
   const lp = new LpWriter();
   const n = items.length;
@@ -217,18 +218,6 @@ export function clusterModel(
     }
   }
 
-  // A crew that comes late: in its own room the exam starts no earlier than the room can be ready.
-  for (let k = 0; k < n; k++) {
-    const it = items[k]!;
-    const ready = options.readyNoEarlier?.get(it.fe.exam.id);
-    const own = it.rooms.find((r) => r.room.id === it.fe.roomId);
-    if (ready === undefined || !it.free || !own) continue;
-    const R = ready - it.lo;
-    if (R <= 0) continue; // never binding
-    const Y = inRoom(k, own);
-    lp.row([[1, s(k)], [R, u(k)], ...Y.terms.map(([c, x]) => [-R * c, x] as const)], '>=', ready - R + R * Y.constant);
-  }
-
   // Opening steps bound every exam of the room.
   for (let k = 0; k < n; k++) {
     const it = items[k]!;
@@ -240,6 +229,18 @@ export function clusterModel(
       const terms: Term[] = [[1, s(k)], [Mk, u(k)], ...Y.terms.map(([c, x]) => [-Mk * c, x] as const)];
       if (r1 !== null) for (const [, h] of helperOf.get(k) ?? []) terms.push([r0 - r1, h]);
       lp.row(terms, '>=', r.open + r0 - Mk + Mk * Y.constant);
+    }
+    // Its crew from a clock time in a room: the opening steps there wait for them too.
+    for (const r of it.rooms) {
+      const from = options.crewFrom?.get(it.fe.exam.id)?.get(r.room.id);
+      if (from === undefined) continue;
+      const { r0, r1 } = req(r, null, it.fe.exam);
+      const Y = inRoom(k, r);
+      const Mc = from + r0 - it.lo;
+      if (Mc <= 0) continue;
+      const terms: Term[] = [[1, s(k)], [Mc, u(k)], ...Y.terms.map(([c, x]) => [-Mc * c, x] as const)];
+      if (r1 !== null) for (const [, h] of helperOf.get(k) ?? []) terms.push([r0 - r1, h]);
+      lp.row(terms, '>=', from + r0 - Mc + Mc * Y.constant);
     }
   }
 
@@ -271,6 +272,17 @@ export function clusterModel(
         if (sign === 1) { terms.push([-Mp, o!]); rhs -= Mp; } // first = i when o = 1
         if (sign === -1) terms.push([Mp, o!]); // first = j when o = 0
         lp.row(terms, '>=', rhs);
+        // The second's crew from a clock time in this room: the turnover starts then at the earliest.
+        const from = options.crewFrom?.get(S.fe.exam.id)?.get(r.room.id);
+        if (from === undefined) return;
+        const Mc = from + r0 - S.lo;
+        if (Mc <= 0) return;
+        const late: Term[] = [[1, s(second)], [Mc, u(second)], ...[...Yi.terms, ...Yj.terms].map(([c, x]) => [-Mc * c, x] as const)];
+        if (r1 !== null) for (const [, h] of helperOf.get(second) ?? []) late.push([r0 - r1, h]);
+        let lateRhs = from + r0 + Mc * (Yi.constant + Yj.constant) - 2 * Mc;
+        if (sign === 1) { late.push([-Mc, o!]); lateRhs -= Mc; }
+        if (sign === -1) late.push([Mc, o!]);
+        lp.row(late, '>=', lateRhs);
       };
       // The order the rows assume is the order the plan sees: by start, then id. Never relaxed
       // by a gap left, so an exam whose gap is left stays where the order puts it and the gaps

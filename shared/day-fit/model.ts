@@ -53,12 +53,12 @@ export interface DayFitOptions {
   /** A modality group with at most this many exams is solved whole (exact); larger ones by neighbourhoods. Default 12. */
   wholeGroupLimit?: number;
   /**
-   * The earliest start of an exam in its own room, by its id, as an instant with the site's
-   * offset: its turnover's crew starts late (a person busy in another room, on a break, not yet
-   * on shift), so the room is not ready before then whatever goes before it. Set by
-   * `proposeWithRoster`; none by default.
+   * When the crew of the turnover into an exam can start at the earliest, by the exam's id and
+   * the room's, in ms since the epoch: a person busy in another room, on a break or not yet on
+   * shift. Every turnover into the exam in that room starts no earlier, whatever goes before it.
+   * Set by `proposeWithRoster`; none by default.
    */
-  readyNoEarlier?: Readonly<Record<number, string>>;
+  crewFrom?: Readonly<Record<number, Readonly<Record<number, number>>>>;
   /** Exams whose gap before them counts as a problem to clear although the engine alone finds it fits (a roster's judgement). */
   problems?: readonly number[];
   /** A large group's neighbourhoods: how many of the widening reaches to try (default all four). */

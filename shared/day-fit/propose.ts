@@ -82,9 +82,11 @@ function solveGroup(
 ): ClusterSolution {
   const now = options.now ?? Date.now;
   const result: ClusterSolution = { places: new Map(), helpers: new Map() };
-  const readyNoEarlier = new Map(Object.entries(options.readyNoEarlier ?? {}).map(([id, iso]) => [Number(id), day.minuteOf(iso)]));
+  const crewFrom = new Map(
+    Object.entries(options.crewFrom ?? {}).map(([id, rooms]) => [Number(id), new Map(Object.entries(rooms).map(([roomId, ms]) => [Number(roomId), Math.ceil((ms - day.midnightMs) / 60_000)]))]),
+  );
   const model = (items: ClusterItem[], helpersFor?: ReadonlySet<number>) =>
-    clusterModel(day, group.rooms, items, slots, { grid: options.gridMinutes ?? 1, walkingMinutes: options.walkingMinutes ?? 0, readyNoEarlier, helpersFor });
+    clusterModel(day, group.rooms, items, slots, { grid: options.gridMinutes ?? 1, walkingMinutes: options.walkingMinutes ?? 0, crewFrom, helpersFor });
   if (group.exams.length <= (options.wholeGroupLimit ?? 12)) {
     const [items] = wholeGroup(group);
     tally.clusters++;

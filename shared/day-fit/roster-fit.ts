@@ -23,12 +23,12 @@ type Propose = (input: DayPlanInput, solve: MipSolve, options: DayFitOptions) =>
  * (`proposeWithStaff`); the roster decides who actually comes and when. So the day is planned in
  * rounds: each turnover the roster staffs with fewer people than its room's is planned with the
  * crew it gets (a staff cap, only lowered), and one whose crew starts late (a person busy in
- * another room, on a break, not yet on shift) keeps its next exam from starting before the room
- * is ready then (a clock time, only raised); the
+ * another room, on a break, not yet on shift) gets that crew only from then (a clock time, only
+ * raised: every turnover into the exam in its room starts no earlier); the
  * gaps the roster finds short are the problems to clear; the proposal is judged with the roster's
- * crews and the caps and ready times follow that judgement, until they stop changing (at most 3
+ * crews and the caps and crew times follow that judgement, until they stop changing (at most 3
  * rounds). The round with the fewest gaps left by the roster's judgement (then fewest exams
- * moved, then minutes) is the proposal; its before, after and gaps left are the roster's, and a
+ * moved, then minutes, then the earliest end) is the proposal; its before, after and gaps left are the roster's, and a
  * gap left for people says why in the gap panel's words ("Short by 6 min: Aide 1 is in MR 2
  * until 10:12"). This is a heuristic around the exact MIP: the crews are not variables of the
  * model, so a roster day's proposal is not proven optimal.
@@ -44,9 +44,11 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
   const { roster: _roster, ...ownStaff } = input;
   const beforePlan = computeDayPlan(input);
   const caps = new Map<number, number>();
-  const ready = new Map<number, string>();
-  followCrews(caps, ready, beforePlan);
+  const crewFrom = new Map<number, Map<number, number>>();
+  followCrews(caps, crewFrom, beforePlan);
   let best: { proposal: DayFitProposal; plan: DayPlan; score: number[] } | null = null;
+  // The gaps the roster finds short, before and after each round: the seeds the MIP must clear.
+  const problems = new Set(problemsOf(beforePlan));
   const tally: SolveTally = { solves: 0, clusters: 0, mipGap: 0, timeLimited: false, neighbourhood: false };
   let rounds = 0;
   for (let round = 0; round < ROSTER_ROUNDS; round++) {
@@ -56,8 +58,8 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
     const capped = { ...ownStaff, staffOverrides: { ...input.staffOverrides, ...Object.fromEntries(caps) } };
     const proposal = proposeWithStaff(capped, solve, {
       ...options,
-      readyNoEarlier: Object.fromEntries(ready),
-      problems: problemsOf(round === 0 ? beforePlan : best!.plan),
+      crewFrom: Object.fromEntries([...crewFrom].map(([id, rooms]) => [id, Object.fromEntries(rooms)])),
+      problems: [...problems],
       timeLimitMs: Math.max(100, left * share),
       // Later rounds follow the crews with the two nearer reaches; the wide ones are tried once.
       reaches: round === 0 ? options.reaches : Math.min(options.reaches ?? LATER_ROUND_REACHES, LATER_ROUND_REACHES),
@@ -71,9 +73,10 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
     // A helper's staffing change starts from the day's own override, not from a cap.
     const changes = proposal.changes.map((change): PlanChange => (change.type === 'staffing' ? { ...change, from: input.staffOverrides?.[change.toExamId] ?? null } : change));
     const plan = computeDayPlan(withChanges(input, changes));
-    const score = [plan.summary.short + plan.summary.overlap, proposal.objective.examsMoved, proposal.objective.minutesMoved];
+    for (const id of problemsOf(plan)) problems.add(id);
+    const score = [plan.summary.short + plan.summary.overlap, proposal.objective.examsMoved, proposal.objective.minutesMoved, dayEnd(plan)];
     if (!best || lexicallyLess(score, best.score)) best = { proposal: { ...proposal, changes }, plan, score };
-    if (score[0] === 0 || !followCrews(caps, ready, plan)) break;
+    if (score[0] === 0 || !followCrews(caps, crewFrom, plan)) break;
   }
   const { proposal, plan } = best!;
   const remaining = remainingWithPeople(plan, proposal.remaining, rounds);
@@ -90,12 +93,12 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
 
 /**
  * What the roster's crews do to each turnover, carried into the next round: one staffed with
- * fewer people than it wanted (at least one) is capped at the people it got, and after one whose
- * crew started late the next exam starts no earlier than the room was ready (the crew's start is
- * a clock time: moving the exam before it earlier does not bring the person sooner). Caps only
- * go down and ready times only later, so the rounds end; answers whether anything changed.
+ * fewer people than it wanted (at least one) is capped at the people it got, and one whose crew
+ * started late has its crew, in that room, from that clock time (the room's free time plus the wait): moving
+ * the exam before it earlier does not bring the person sooner. Caps only go down and crew times
+ * only later, so the rounds end; answers whether anything changed.
  */
-function followCrews(caps: Map<number, number>, ready: Map<number, string>, plan: DayPlan): boolean {
+function followCrews(caps: Map<number, number>, crewFrom: Map<number, Map<number, number>>, plan: DayPlan): boolean {
   let changed = false;
   for (const room of plan.rooms) {
     for (const gap of room.gaps) {
@@ -105,9 +108,12 @@ function followCrews(caps: Map<number, number>, ready: Map<number, string>, plan
         caps.set(gap.toExamId, why.got);
         changed = true;
       }
-      const before = ready.get(gap.toExamId);
-      if (why.waitedMinutes > 0 && (before === undefined || Date.parse(gap.readyAt) > Date.parse(before))) {
-        ready.set(gap.toExamId, gap.readyAt);
+      if (why.waitedMinutes <= 0) continue;
+      const from = Date.parse(gap.readyAt) - (gap.requiredMinutes - why.waitedMinutes) * 60_000;
+      let rooms = crewFrom.get(gap.toExamId);
+      if (!rooms) crewFrom.set(gap.toExamId, (rooms = new Map()));
+      if (from > (rooms.get(room.id) ?? -Infinity)) {
+        rooms.set(room.id, from);
         changed = true;
       }
     }
@@ -137,6 +143,11 @@ function remainingWithPeople(plan: DayPlan, solverLeft: readonly FitRemainingGap
     }
   }
   return out;
+}
+
+/** The day's last exam end, in ms (0 for an empty day). */
+function dayEnd(plan: DayPlan): number {
+  return Math.max(0, ...plan.rooms.flatMap((room) => room.exams.map((exam) => Date.parse(exam.end))));
 }
 
 function lexicallyLess(a: readonly number[], b: readonly number[]): boolean {

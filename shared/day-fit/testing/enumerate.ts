@@ -1,3 +1,6 @@
+import type { PlanChange } from '../../api/changes';
+import { withChanges } from '../../fixes/apply-changes';
+import { computeDayPlan } from '../../turnover/day-plan';
 import type { DayPlanInput } from '../../turnover/day-plan-input';
 import type { HelperSlot } from '../cluster-model';
 import { fitDay, type FitDay, type FitExam, type FitGroup, type FitRoom } from '../instance';
@@ -23,16 +26,7 @@ export function bestByEnumeration(
   const day = fitDay(input, { fixed: options.fixed });
   const slots = helperSlots(day, options.helpers ?? []);
   const walking = options.walkingMinutes ?? 0;
-  const free = day.groups.flatMap((g) => g.exams.filter((fe) => fe.stays === null).map((fe) => ({ fe, rooms: g.rooms })));
-  const options_ = free.map(({ fe, rooms }) => {
-    const list: { roomId: number; start: number }[] = [{ roomId: fe.roomId, start: fe.start }];
-    for (const r of rooms) {
-      for (let s = Math.ceil(r.open / options.grid) * options.grid; s + fe.duration <= r.close; s += options.grid) {
-        if (r.room.id !== fe.roomId || s !== fe.start) list.push({ roomId: r.room.id, start: s });
-      }
-    }
-    return list;
-  });
+  const { free, places: options_ } = placesOf(day, options.grid);
   let best: FitScore = [Infinity, Infinity, Infinity, Infinity, Infinity];
   let combos = 0;
   const chosen: { roomId: number; start: number }[] = [];
@@ -106,6 +100,21 @@ export function bestByEnumeration(
   return { score: best, combos };
 }
 
+/** Each free exam and its places: staying first, then every room of its group and every start on the grid within that room's hours. */
+function placesOf(day: FitDay, grid: number): { free: { fe: FitExam; rooms: FitRoom[] }[]; places: { roomId: number; start: number }[][] } {
+  const free = day.groups.flatMap((g) => g.exams.filter((fe) => fe.stays === null).map((fe) => ({ fe, rooms: g.rooms })));
+  const places = free.map(({ fe, rooms }) => {
+    const list: { roomId: number; start: number }[] = [{ roomId: fe.roomId, start: fe.start }];
+    for (const r of rooms) {
+      for (let s = Math.ceil(r.open / grid) * grid; s + fe.duration <= r.close; s += grid) {
+        if (r.room.id !== fe.roomId || s !== fe.start) list.push({ roomId: r.room.id, start: s });
+      }
+    }
+    return list;
+  });
+  return { free, places };
+}
+
 /** A free exam may be placed in a room when it fits the room's hours (as the model's rooms for it). */
 function fitsHours(fe: FitExam, r: FitRoom): boolean {
   return r.open + fe.duration <= r.close;
@@ -149,4 +158,46 @@ function bestHelpers(problems: readonly { start: number; roomId: number; busy: n
 export function less(a: FitScore, b: FitScore): boolean {
   for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return a[i]! < b[i]!;
   return false;
+}
+
+/**
+ * The best proposal by brute force on a day with a roster: every free exam's place as in
+ * `bestByEnumeration`, each combination judged by the day-plan engine with the roster's crews
+ * (people in one place at a time, walking, breaks, shifts). Slow (an engine pass per
+ * combination): for a handful of exams only. No helpers.
+ *
+ * @example
+ * bestByEnumerationWithRoster(rosterDay, { grid: 30 }).score; // [0, 1, 30, 535, 0]
+ */
+export function bestByEnumerationWithRoster(input: DayPlanInput, options: { grid: number; fixed?: Record<number, FixedReason> }): { score: FitScore; combos: number } {
+  const day = fitDay(input, { fixed: options.fixed });
+  const { free, places } = placesOf(day, options.grid);
+  let best: FitScore = [Infinity, Infinity, Infinity, Infinity, Infinity];
+  let combos = 0;
+  const chosen: { roomId: number; start: number }[] = [];
+  const walk = (k: number, moved: number, minutes: number) => {
+    if (best[0] === 0 && (moved > best[1] || (moved === best[1] && minutes > best[2]))) return;
+    if (k < free.length) {
+      for (const place of places[k]!) {
+        const fe = free[k]!.fe;
+        chosen[k] = place;
+        walk(k + 1, moved + (place.roomId !== fe.roomId || place.start !== fe.start ? 1 : 0), minutes + Math.abs(place.start - fe.start));
+      }
+      return;
+    }
+    combos++;
+    const changes: PlanChange[] = [];
+    free.forEach(({ fe }, i) => {
+      const to = chosen[i]!;
+      if (to.roomId !== fe.roomId || to.start !== fe.start) {
+        changes.push({ type: 'move', examId: fe.exam.id, accession: fe.exam.accession, from: { roomId: fe.roomId, start: fe.exam.start }, to: { roomId: to.roomId, start: day.toIso(to.start) } });
+      }
+    });
+    const plan = computeDayPlan(withChanges(input, changes));
+    const end = Math.max(0, ...plan.rooms.flatMap((room) => room.exams.map((exam) => day.minuteOf(exam.end))));
+    const score: FitScore = [plan.summary.short + plan.summary.overlap, moved, minutes, end, 0];
+    if (less(score, best)) best = score;
+  };
+  walk(0, 0, 0);
+  return { score: best, combos };
 }

@@ -53,3 +53,18 @@ export function smallDay(seed: number, grid: number, mostPerRoom = 3): { input: 
   }
   return { input: { date, timezone: 'America/Chicago', ...DEMO_SETUP, snugMarginMinutes: 3, rooms, exams }, fixed };
 }
+
+/**
+ * `smallDay` with an invented roster of 1–3 aides (by the seed) on 07:00–10:00: the first two
+ * cover both rooms, the third MR 1 only; 3 minutes' walk between rooms (common practice, no source).
+ *
+ * @example
+ * smallRosterDay(7, 30).input.roster!.people.length; // 2
+ */
+export function smallRosterDay(seed: number, grid: number): { input: DayPlanInput; fixed: Record<number, FixedReason> } {
+  const { input, fixed } = smallDay(seed, grid, 3);
+  const people = Array.from({ length: 1 + (seed % 3) }, (_, k) => ({
+    id: `p${k}`, name: null, label: `Aide ${k + 1}`, role: 'aide' as const, start: '07:00', end: '10:00', breaks: [], roomIds: k === 2 ? [1] : [1, 2],
+  }));
+  return { input: { ...input, roster: { source: 'day', walkingMinutes: 3, people } }, fixed };
+}
