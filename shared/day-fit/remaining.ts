@@ -1,4 +1,5 @@
 import type { FixDay } from '../fixes/fix-day';
+import type { DayPlanExam } from '../turnover/day-plan-input';
 import { isProblemVerdict } from '../fixes/room-gaps';
 import type { FitDay } from './instance';
 import type { FitRemainingGap } from './model';
@@ -49,15 +50,26 @@ export function remainingGaps(day: FitDay, after: FixDay, timeLimited: boolean, 
       let reason: string;
       if (!modelled.has(room.id)) reason = room.closed ? `${room.name} is closed on this day` : `${room.name} has no protocol for ${room.modality}`;
       else if (capacity) reason = capacity;
-      else if (stays.has(to.id) && (from === null || stays.has(from.id))) {
-        reason = from
-          ? `neither exam may move: ${from.accession} ${FIXED_WORDS[stays.get(from.id)!]}, ${to.accession} ${FIXED_WORDS[stays.get(to.id)!]}`
-          : `${to.accession} ${FIXED_WORDS[stays.get(to.id)!]} and starts too soon after the room opens`;
-      } else if (timeLimited) reason = 'the solver’s time ran out before it found a way to clear this gap';
+      else if (stays.has(to.id) && (from === null || stays.has(from.id))) reason = neitherMayMove(from, to, stays)!;
+      else if (timeLimited) reason = 'the solver’s time ran out before it found a way to clear this gap';
       else if (neighbourhood) reason = `not cleared by moving exams near it (up to 3 on either side, 180 min, among ${room.name}’s block of four rooms); a day this size is not searched whole`;
       else reason = `no place in the open ${room.modality} rooms’ hours clears this gap without moving an exam that may not move`;
       out.push({ fromExamId: gap.fromExamId, toExamId: gap.toExamId, accession: to.accession, roomId: room.id, verdict: gap.verdict, shortByMinutes: gap.shortByMinutes, reason });
     }
   }
   return out;
+}
+
+/**
+ * Why a gap stays when neither of its exams may move ("neither exam may move: A-1 has arrived,
+ * A-2 is pinned"); null when one of them may.
+ *
+ * @example
+ * neitherMayMove(a, b, new Map([[a.id, 'arrived'], [b.id, 'pinned']])); // 'neither exam may move: A-1 has arrived, A-2 is pinned'
+ */
+export function neitherMayMove(from: DayPlanExam | null, to: DayPlanExam, stays: ReadonlyMap<number, string>): string | null {
+  if (!stays.has(to.id) || (from !== null && !stays.has(from.id))) return null;
+  return from
+    ? `neither exam may move: ${from.accession} ${FIXED_WORDS[stays.get(from.id)!]}, ${to.accession} ${FIXED_WORDS[stays.get(to.id)!]}`
+    : `${to.accession} ${FIXED_WORDS[stays.get(to.id)!]} and starts too soon after the room opens`;
 }

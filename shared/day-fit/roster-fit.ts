@@ -5,6 +5,7 @@ import type { DayPlanInput } from '../turnover/day-plan-input';
 import type { DayPlan } from '../turnover/day-plan-types';
 import { peopleReasonWords } from '../turnover/people-words';
 import type { DayFitOptions, DayFitProposal, FitRemainingGap, MipSolve } from './model';
+import { neitherMayMove } from './remaining';
 import { solverReport, type SolveTally } from './solver-report';
 
 /** Rounds of planning with the roster's crews at most (each a whole proposal, then the roster's judgement). */
@@ -23,15 +24,16 @@ type Propose = (input: DayPlanInput, solve: MipSolve, options: DayFitOptions) =>
  * (`proposeWithStaff`); the roster decides who actually comes and when. So the day is planned in
  * rounds: each turnover the roster staffs with fewer people than its room's is planned with the
  * crew it gets (a staff cap, only lowered), and one whose crew starts late (a person busy in
- * another room, on a break, not yet on shift) gets that crew only from then (a clock time, only
- * raised: every turnover into the exam in its room starts no earlier); the
- * gaps the roster finds short are the problems to clear; the proposal is judged with the roster's
- * crews and the caps and crew times follow that judgement, until they stop changing (at most 3
+ * another room, on a break, not yet on shift) gets that crew only from then (a clock time in
+ * that room, only raised: every turnover into the exam there starts no earlier); the gaps the
+ * roster finds short are the problems to clear; the proposal is judged with the roster's crews
+ * and the caps and crew times follow that judgement, until they stop changing (at most 3
  * rounds). The round with the fewest gaps left by the roster's judgement (then fewest exams
- * moved, then minutes, then the earliest end) is the proposal; its before, after and gaps left are the roster's, and a
- * gap left for people says why in the gap panel's words ("Short by 6 min: Aide 1 is in MR 2
- * until 10:12"). This is a heuristic around the exact MIP: the crews are not variables of the
- * model, so a roster day's proposal is not proven optimal.
+ * moved, minutes, the earliest end) is the proposal; its before, after and gaps left are the
+ * roster's, and a gap left for people says why in the gap panel's words ("Short by 6 min:
+ * Aide 1 is in MR 2 until 10:12"), beside the solver's reason when it has one. A heuristic
+ * around the exact MIP: the crews are not variables of the model, so a roster day's proposal is
+ * not proven optimal.
  *
  * @example
  * const proposal = proposeWithRoster(input, highsSolve, {}, proposeWithStaff);
@@ -79,7 +81,8 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
     if (score[0] === 0 || !followCrews(caps, crewFrom, plan)) break;
   }
   const { proposal, plan } = best!;
-  const remaining = remainingWithPeople(plan, proposal.remaining, rounds);
+  const stays = new Map(Object.entries(options.fixed ?? {}).map(([id, why]) => [Number(id), why]));
+  const remaining = remainingWithPeople(input, plan, proposal.remaining, stays, rounds);
   const nothingToDo = beforePlan.summary.short + beforePlan.summary.overlap === 0;
   return {
     ...proposal,
@@ -94,9 +97,9 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
 /**
  * What the roster's crews do to each turnover, carried into the next round: one staffed with
  * fewer people than it wanted (at least one) is capped at the people it got, and one whose crew
- * started late has its crew, in that room, from that clock time (the room's free time plus the wait): moving
- * the exam before it earlier does not bring the person sooner. Caps only go down and crew times
- * only later, so the rounds end; answers whether anything changed.
+ * started late has its crew, in that room, from that clock time (the room's free time plus the
+ * wait): moving the exam before it earlier does not bring the person sooner. Caps only go down
+ * and crew times only later, so the rounds end; answers whether anything changed.
  */
 function followCrews(caps: Map<number, number>, crewFrom: Map<number, Map<number, number>>, plan: DayPlan): boolean {
   let changed = false;
@@ -127,18 +130,19 @@ function problemsOf(plan: DayPlan): number[] {
 }
 
 /** The gaps the roster's judgement leaves short or overlapping, each with why. */
-function remainingWithPeople(plan: DayPlan, solverLeft: readonly FitRemainingGap[], rounds: number): FitRemainingGap[] {
+function remainingWithPeople(input: DayPlanInput, plan: DayPlan, solverLeft: readonly FitRemainingGap[], stays: ReadonlyMap<number, string>, rounds: number): FitRemainingGap[] {
   const solverReason = new Map(solverLeft.map((gap) => [gap.toExamId, gap.reason]));
+  const examById = new Map(input.exams.map((exam) => [exam.id, exam]));
   const people = new Map((plan.people?.people ?? []).map((person) => [person.id, person.label]));
   const names = { roomName: (id: number) => plan.rooms.find((r) => r.id === id)?.name, personLabel: (id: string) => people.get(id) };
   const out: FitRemainingGap[] = [];
   for (const room of plan.rooms) {
     for (const gap of room.gaps) {
       if (gap.verdict !== 'short' && gap.verdict !== 'overlap') continue;
-      const reason =
-        (gap.people ? peopleReasonWords(gap, gap.people, room.id, names) : null) ??
-        solverReason.get(gap.toExamId) ??
-        `short with the roster’s crews; ${rounds} round${rounds === 1 ? '' : 's'} of planning with them did not clear it`;
+      // The people's side and the solver's both, when both have something to say.
+      const fixedWords = neitherMayMove(gap.fromExamId === null ? null : examById.get(gap.fromExamId)!, examById.get(gap.toExamId)!, stays);
+      const said = [gap.people ? peopleReasonWords(gap, gap.people, room.id, names) : null, solverReason.get(gap.toExamId) ?? fixedWords].filter((w): w is string => w !== null);
+      const reason = said.length > 0 ? said.join(' — ') : `short with the roster’s crews; ${rounds} round${rounds === 1 ? '' : 's'} of planning with them did not clear it`;
       out.push({ fromExamId: gap.fromExamId, toExamId: gap.toExamId, accession: room.exams.find((e) => e.id === gap.toExamId)?.accession ?? String(gap.toExamId), roomId: room.id, verdict: gap.verdict, shortByMinutes: gap.shortByMinutes, reason });
     }
   }

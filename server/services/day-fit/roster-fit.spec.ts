@@ -58,12 +58,12 @@ describe('make the day fit with a roster (invented examples)', () => {
     expect(proposal.solver.rosterRounds).toBeGreaterThanOrEqual(1);
   }, 60_000);
 
-  it('says a gap left for people in the gap panel’s words when the exams may not move', () => {
+  it('says a gap left for people in the gap panel’s words, and why no move clears it, when the exams may not move', () => {
     const fixed = Object.fromEntries(input.exams.map((e) => [e.id, 'pinned' as const]));
     const proposal = proposeDayFit(input, solve, { fixed, walkingMinutes: 3, timeLimitMs: 20_000 });
     expect(proposal.changes).toEqual([]);
     expect(proposal.remaining).toEqual([
-      expect.objectContaining({ toExamId: mr1b.id, roomId: 1, verdict: 'short', shortByMinutes: 6, reason: 'Short by 6 min: Aide 1 is in MR 2 until 10:12' }),
+      expect.objectContaining({ toExamId: mr1b.id, roomId: 1, verdict: 'short', shortByMinutes: 6, reason: `Short by 6 min: Aide 1 is in MR 2 until 10:12 — neither exam may move: ${mr1a.accession} is pinned, ${mr1b.accession} is pinned` }),
     ]);
   }, 60_000);
 
