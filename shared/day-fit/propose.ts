@@ -264,8 +264,9 @@ function judgedBefore(day: FitDay, roomId: number): number | null {
 
 /**
  * A cluster that cannot clear every gap is kept only when the engine counts fewer problem gaps
- * in the group's rooms with it than without it (its "gap left" relaxation says nothing of the
- * gaps it would make).
+ * in the group's rooms with it than without it, and no more minutes short in all (its "gap
+ * left" relaxation says nothing of the gaps it would make: an exam whose gap is left may sit
+ * deep in an overlap).
  */
 function better(day: FitDay, group: FitGroup, placed: ReadonlyMap<number, { roomId: number; start: number }>, solution: ClusterSolution): boolean {
   const movesOf = (places: ReadonlyMap<number, { roomId: number; start: number }>): PlanChange[] =>
@@ -277,7 +278,9 @@ function better(day: FitDay, group: FitGroup, placed: ReadonlyMap<number, { room
   const input = { ...day.input, rooms: day.input.rooms.filter((r) => roomIds.has(r.id)), exams: day.input.exams.filter((e) => roomIds.has(e.roomId)) };
   const problems = (places: ReadonlyMap<number, { roomId: number; start: number }>) => {
     const judged = fixDay(withChanges(input, movesOf(places)));
-    return input.rooms.reduce((n, r) => n + judged.judged(r.id).gaps.filter((g) => isProblemVerdict(g.verdict)).length, 0);
+    const gaps = input.rooms.flatMap((r) => judged.judged(r.id).gaps.filter((g) => isProblemVerdict(g.verdict)));
+    return { count: gaps.length, minutes: gaps.reduce((sum, g) => sum + g.shortByMinutes, 0) };
   };
-  return problems(new Map([...placed, ...solution.places])) < problems(placed);
+  const [now, next] = [problems(placed), problems(new Map([...placed, ...solution.places]))];
+  return next.count < now.count && next.minutes <= now.minutes;
 }
