@@ -264,14 +264,15 @@ export function clusterModel(
         const { r0, r1 } = req(r, F.fe.exam, S.fe.exam);
         // The most the row can be violated by: its big-M (never binding when not positive).
         const Mp = F.hi + F.fe.duration + r0 - S.lo;
-        if (Mp <= 0) return;
-        const both: Term[] = [...Yi.terms, ...Yj.terms].map(([c, x]) => [-Mp * c, x] as const);
-        const terms: Term[] = [[1, s(second)], [-1, s(first)], [Mp, u(second)], ...both];
-        if (r1 !== null) for (const [, h] of helperOf.get(second) ?? []) terms.push([r0 - r1, h]);
-        let rhs = F.fe.duration + r0 + Mp * (Yi.constant + Yj.constant) - 2 * Mp;
-        if (sign === 1) { terms.push([-Mp, o!]); rhs -= Mp; } // first = i when o = 1
-        if (sign === -1) terms.push([Mp, o!]); // first = j when o = 0
-        lp.row(terms, '>=', rhs);
+        if (Mp > 0) {
+          const both: Term[] = [...Yi.terms, ...Yj.terms].map(([c, x]) => [-Mp * c, x] as const);
+          const terms: Term[] = [[1, s(second)], [-1, s(first)], [Mp, u(second)], ...both];
+          if (r1 !== null) for (const [, h] of helperOf.get(second) ?? []) terms.push([r0 - r1, h]);
+          let rhs = F.fe.duration + r0 + Mp * (Yi.constant + Yj.constant) - 2 * Mp;
+          if (sign === 1) { terms.push([-Mp, o!]); rhs -= Mp; } // first = i when o = 1
+          if (sign === -1) terms.push([Mp, o!]); // first = j when o = 0
+          lp.row(terms, '>=', rhs);
+        }
         // The second's crew from a clock time in this room: the turnover starts then at the earliest.
         const from = options.crewFrom?.get(S.fe.exam.id)?.get(r.room.id);
         if (from === undefined) return;
