@@ -24,7 +24,6 @@ const REACHES: readonly Reach[] = [
 /** Longest one solve of a neighbourhood may take (a small cluster that needs longer is rarely worth it). */
 const MAX_SOLVE_SECONDS = 2;
 
-
 /**
  * The whole-day proposal: changes (start shifts within hours, moves to another open room of the
  * same modality, helpers from spare people, isolation cases anywhere including last) that leave
@@ -281,6 +280,6 @@ function better(day: FitDay, group: FitGroup, placed: ReadonlyMap<number, { room
     const gaps = input.rooms.flatMap((r) => judged.judged(r.id).gaps.filter((g) => isProblemVerdict(g.verdict)));
     return { count: gaps.length, minutes: gaps.reduce((sum, g) => sum + g.shortByMinutes, 0) };
   };
-  const [now, next] = [problems(placed), problems(new Map([...placed, ...solution.places]))];
-  return next.count < now.count && next.minutes <= now.minutes;
+  const [without, withIt] = [problems(placed), problems(new Map([...placed, ...solution.places]))];
+  return withIt.count < without.count && withIt.minutes <= without.minutes;
 }
