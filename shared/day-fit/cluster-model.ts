@@ -2,6 +2,7 @@ import type { DayPlanExam } from '../turnover/day-plan-input';
 import type { FitDay, FitExam, FitRoom } from './instance';
 import { LpWriter, type Term } from './lp-writer';
 import type { FitHelper } from './model';
+import { placeItems, roomOf } from './placement';
 
 /** An exam in one cluster's model: free to move within [lo, hi] in one of `rooms`, or a constant. */
 export interface ClusterItem {
@@ -63,7 +64,6 @@ export function clusterModel(
 ): ClusterModel {
   const lp = new LpWriter();
   const n = items.length;
-  const roomIndex = new Map(rooms.map((r, k) => [r.room.id, k]));
   let maxReq = 0;
   const reqs = new Map<string, { r0: number; r1: number | null }>();
   const req = (r: FitRoom, leaving: DayPlanExam | null, arriving: DayPlanExam) => {
@@ -103,61 +103,8 @@ export function clusterModel(
   const hi = Math.max(...rooms.map((r) => r.close), ...items.map((it) => it.hi + it.fe.duration));
   const M = hi - lo + maxReq + options.walkingMinutes + 1;
 
-  const s = (k: number) => `s${k}`;
-  const u = (k: number) => `u${k}`;
-  const y = (k: number, r: FitRoom) => `y${k}_${roomIndex.get(r.room.id)}`;
-  const moved: Term[] = [];
-  const minutes: Term[] = [];
-  const gapsLeft: Term[] = [];
+  const { s, u, inRoom, moved, minutes, gapsLeft } = placeItems(lp, items, rooms, options.grid, M);
   const helperTerms: Term[] = [];
-  lp.variable('z', 'continuous', 0);
-  // Y(k, r): the exam is in room r, as terms plus a constant (a single-room exam is a constant 1).
-  const inRoom = (k: number, r: FitRoom): { terms: Term[]; constant: number } => {
-    const it = items[k]!;
-    if (!it.rooms.includes(r)) return { terms: [], constant: 0 };
-    return it.rooms.length === 1 ? { terms: [], constant: 1 } : { terms: [[1, y(k, r)]], constant: 0 };
-  };
-
-  for (let k = 0; k < n; k++) {
-    const it = items[k]!;
-    const { start, duration } = it.fe;
-    lp.variable(s(k), 'integer', it.lo, it.hi);
-    lp.variable(u(k), 'binary');
-    gapsLeft.push([1, u(k)]);
-    lp.row([[1, 'z'], [-1, s(k)]], '>=', duration);
-    if (!it.free) continue;
-    if (it.rooms.length > 1) {
-      for (const r of it.rooms) lp.variable(y(k, r), 'binary');
-      lp.row(it.rooms.map((r) => [1, y(k, r)] as const), '=', 1);
-    }
-    const m = lp.variable(`m${k}`, 'binary');
-    const v = lp.variable(`v${k}`, 'continuous', 0);
-    moved.push([1, m]);
-    minutes.push([1, v]);
-    // Big-M as small as the window allows: a tight relaxation is what makes the solves fast.
-    lp.row([[1, s(k)], [-Math.max(0, it.hi - start), m]], '<=', start);
-    lp.row([[1, s(k)], [Math.max(0, start - it.lo), m]], '>=', start);
-    lp.row([[1, v], [-1, s(k)]], '>=', -start);
-    lp.row([[1, v], [1, s(k)]], '>=', start);
-    const own = it.rooms.find((r) => r.room.id === it.fe.roomId);
-    if (!own) lp.row([[1, m]], '=', 1);
-    else if (it.rooms.length > 1) lp.row([[1, y(k, own)], [1, m]], '>=', 1);
-    if (options.grid > 1) {
-      // Moved: on the grid (s = grid·g); not moved: its own start, on the grid or not.
-      const g = lp.variable(`g${k}`, 'integer', Math.ceil(it.lo / options.grid), Math.floor(it.hi / options.grid));
-      lp.row([[1, s(k)], [-options.grid, g], [M, m]], '<=', M);
-      lp.row([[1, s(k)], [-options.grid, g], [-M, m]], '>=', -M);
-    }
-    // Hours of the room it is in (hard: a proposal never leaves a room's hours).
-    for (const r of it.rooms) {
-      const Y = inRoom(k, r);
-      if (Y.constant === 1) continue; // its only room: the bounds lo..hi already keep it within the hours
-      const below = r.open - it.lo;
-      const above = it.hi - (r.close - duration);
-      if (below > 0) lp.row([[1, s(k)], ...Y.terms.map(([c, x]) => [-below * c, x] as const)], '>=', r.open - below);
-      if (above > 0) lp.row([[1, s(k)], ...Y.terms.map(([c, x]) => [above * c, x] as const)], '<=', r.close - duration + above);
-    }
-  }
 
   // Helpers: h{k}_{slot} takes a free person onto the gap before exam k.
   const helperOf = new Map<number, Term[]>();
@@ -324,7 +271,7 @@ export function clusterModel(
       items.forEach((it, k) => {
         if (!it.free) return;
         const start = Math.round(values.get(s(k)) ?? it.fe.start);
-        const room = it.rooms.length === 1 ? it.rooms[0]! : it.rooms.find((r) => (values.get(y(k, r)) ?? 0) > 0.5) ?? it.rooms[0]!;
+        const room = roomOf(values, it, k, rooms);
         places.set(it.fe.exam.id, { roomId: room.room.id, start });
       });
       for (const [k, terms] of helperOf) {
@@ -349,7 +296,7 @@ export function clusterModel(
  * helpers; so the weighted minimum is the lexicographic one. The products stay far below 2^53
  * and, with a zero relative and a 0.5 absolute MIP gap, "optimal" is exact.
  */
-function tail(minutes: Term[], helpers: Term[], T: number): Term[] {
+export function tail(minutes: Term[], helpers: Term[], T: number): Term[] {
   const H = helpers.length;
   return [
     ...minutes.map(([c, v]) => [c * (T + 1) * (H + 1), v] as const),

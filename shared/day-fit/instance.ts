@@ -39,6 +39,8 @@ export interface FitDay {
   groups: FitGroup[];
   /** Required minutes of a turnover: `leaving` null is the room's opening steps. */
   required(room: DayPlanRoom, leaving: DayPlanExam | null, arriving: DayPlanExam, staff: number): number;
+  /** Minutes the crew is hands-on in that turnover (its last step's end): what keeps a roster's people in the room. */
+  busy(room: DayPlanRoom, leaving: DayPlanExam | null, arriving: DayPlanExam, staff: number): number;
   /** People on the turnover before `exam` in `room` without a helper. */
   baseStaff(room: DayPlanRoom, exam: DayPlanExam): number;
   /** One more person, when the limit allows; null otherwise. */
@@ -92,14 +94,20 @@ export function fitDay(input: DayPlanInput, options: Pick<DayFitOptions, 'fixed'
     group.exams.push({ exam, start: Math.round(start), duration: Math.ceil(duration), roomId: exam.roomId, stays });
   }
   const overrides = input.staffOverrides;
+  const turnover = (room: DayPlanRoom, leaving: DayPlanExam | null, arriving: DayPlanExam, staff: number) => {
+    const protocol = protocolFor(room.modality, input.protocols)!;
+    return turnoverFor(caches(protocol), { input, room, protocol, leaving, arriving, staff });
+  };
   const baseStaff = (room: DayPlanRoom, exam: DayPlanExam) => overrides?.[exam.id] ?? room.staff;
   return {
     input,
     midnightMs,
     groups: [...groups.values()].filter((g) => g.exams.length > 0),
     required(room, leaving, arriving, staff) {
-      const protocol = protocolFor(room.modality, input.protocols)!;
-      return turnoverFor(caches(protocol), { input, room, protocol, leaving, arriving, staff }).requiredMinutes;
+      return turnover(room, leaving, arriving, staff).requiredMinutes;
+    },
+    busy(room, leaving, arriving, staff) {
+      return turnover(room, leaving, arriving, staff).steps.reduce((end, step) => Math.max(end, step.end), 0);
     },
     baseStaff,
     helperStaff(room, exam) {

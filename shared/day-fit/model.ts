@@ -61,6 +61,12 @@ export interface DayFitOptions {
   crewFrom?: Readonly<Record<number, Readonly<Record<number, number>>>>;
   /** Exams whose gap before them counts as a problem to clear although the engine alone finds it fits (a roster's judgement). */
   problems?: readonly number[];
+  /**
+   * On a day with a roster: a part of the day (rooms that share people) with at most this many
+   * exams is solved exactly with the roster's people in the MIP; larger ones are planned in
+   * rounds. Default `ROSTER_EXACT_LIMIT` (8); 0 always plans in rounds.
+   */
+  rosterExactLimit?: number;
   /** A large group's neighbourhoods: how many of the widening reaches to try (default all four). */
   reaches?: number;
   /** Clock for the budget; default Date.now. */
@@ -125,7 +131,13 @@ export interface FitSolverReport {
   solves: number;
   clusters: number;
   milliseconds: number;
-  /** On a day with a roster: rounds of planning with the roster's crews (see `proposeWithRoster`). */
+  /**
+   * On a day with a roster: `exact` when the day was solved with the roster's people in the MIP
+   * (a small day: proven the best when `status` is `optimal`), `rounds` when planned in rounds
+   * around it (not proven the best).
+   */
+  roster?: 'exact' | 'rounds';
+  /** On a day with a roster planned in rounds: how many (see `proposeWithRoster`). */
   rosterRounds?: number;
 }
 

@@ -1,4 +1,4 @@
-import type { ExamMove, PlanChange, StaffingChange } from '../api/changes';
+import type { PlanChange } from '../api/changes';
 import { withChanges } from '../fixes/apply-changes';
 import { fixDay } from '../fixes/fix-day';
 import { isProblemVerdict } from '../fixes/room-gaps';
@@ -6,12 +6,12 @@ import { wallTimeToMillis } from '../turnover/zoned-time';
 import type { DayPlanInput } from '../turnover/day-plan-input';
 import { clusterModel, type ClusterItem, type ClusterSolution, type HelperSlot } from './cluster-model';
 import { fixedItem, neighbourhoods, wholeGroup, type Reach } from './clusters';
+import { fitProposal } from './fit-proposal';
 import { fitDay, type FitDay, type FitExam, type FitGroup } from './instance';
-import { lpRow, type Term } from './lp-writer';
-import type { DayFitOptions, DayFitProposal, FitCall, FitExamMove, FitHelperUse, MipResult, MipSolve } from './model';
-import { remainingGaps } from './remaining';
+import type { DayFitOptions, DayFitProposal, MipSolve } from './model';
 import { proposeWithRoster } from './roster-fit';
-import { solverReport, type SolveTally } from './solver-report';
+import { solveLevels } from './solve-levels';
+import type { SolveTally } from './solver-report';
 
 /** Larger neighbourhoods tried in turn for a group too large to solve whole. */
 const REACHES: readonly Reach[] = [
@@ -66,7 +66,7 @@ function proposeWithStaff(input: DayPlanInput, solve: MipSolve, options: DayFitO
     for (const [id, place] of solution.places) places.set(id, place);
     for (const [id, slot] of solution.helpers) helpers.set(id, slot);
   });
-  return proposal(day, places, helpers, judgedBefore.summary, tally, now() - started, problemInto.size === 0);
+  return fitProposal(day, places, helpers, judgedBefore.summary, tally, now() - started, problemInto.size === 0);
 }
 
 function solveGroup(
@@ -130,135 +130,10 @@ function solveGroup(
   return result;
 }
 
-/**
- * Solves the levels in order; each level's best value bounds the next. Returns the last level's
- * point (or the best earlier one when a later solve found none) and the gaps left.
- */
-function solveLevels(
-  m: ReturnType<typeof clusterModel>,
-  mip: MipSolve,
-  tally: SolveTally,
-  deadline: number,
-  now: () => number,
-  capSeconds = Infinity,
-): { solution: ClusterSolution; gapsLeft: number } | null {
-  const bounds: ReturnType<typeof lpRow>[] = [];
-  let best: ReadonlyMap<string, number> | null = null;
-  let gapsLeft = 0;
-  const levels = m.levels.map((terms, index) => ({ terms, index }));
-  const run = (terms: readonly Term[], extra: ReturnType<typeof lpRow>[], share: number): MipResult => {
-    // One hard cluster may not eat the day's budget: a solve stops at its cap with its best point.
-    const seconds = Math.min(capSeconds, Math.max(0.05, ((deadline - now()) / 1000) * share));
-    const answer = mip(m.lp.text(terms, extra), seconds);
-    tally.solves++;
-    if (answer.status === 'time-limit' || (answer.values && answer.status !== 'optimal')) tally.timeLimited = true;
-    if (answer.values) tally.mipGap = Math.max(tally.mipGap, answer.mipGap);
-    return answer;
-  };
-  // First with every gap cleared (no gap left): the usual case, and a much tighter model.
-  let k = 1;
-  const cleared = lpRow(levels[0]!.terms, '<=', 0);
-  const first = run(levels[1]!.terms, [cleared], 1 / (levels.length - 1));
-  if (first.values) {
-    best = first.values;
-    bounds.push(cleared, lpRow(levels[1]!.terms, '<=', Math.round(valueOf(levels[1]!.terms, best)) + 1e-6));
-    k = 2;
-  } else {
-    k = 0;
-  }
-  for (; k < levels.length; k++) {
-    const { terms, index } = levels[k]!;
-    const answer = run(terms, bounds, 1 / (levels.length - k));
-    if (!answer.values) break;
-    best = answer.values;
-    const value = valueOf(terms, best);
-    if (index === 0) gapsLeft = Math.round(value);
-    // Integral levels: a tiny allowance absorbs the solver's feasibility tolerance.
-    bounds.push(lpRow(terms, '<=', Math.round(value) + 1e-6));
-  }
-  return best ? { solution: m.decode(best), gapsLeft } : null;
-}
-
-function valueOf(terms: readonly Term[], values: ReadonlyMap<string, number>): number {
-  return terms.reduce((sum, [c, v]) => sum + c * (values.get(v) ?? 0), 0);
-}
-
 function helperSlots(input: DayPlanInput, options: DayFitOptions): HelperSlot[] {
   const midnight = wallTimeToMillis(input.date, '00:00', input.timezone);
   const minute = (hhmm: string) => Math.round((wallTimeToMillis(input.date, hhmm, input.timezone) - midnight) / 60_000);
   return (options.helpers ?? []).flatMap((helper) => helper.free.map((f) => ({ helper, from: minute(f.start), to: minute(f.end) })));
-}
-
-function proposal(
-  day: FitDay,
-  places: ReadonlyMap<number, { roomId: number; start: number }>,
-  helpers: ClusterSolution['helpers'],
-  before: DayFitProposal['before'],
-  tally: SolveTally,
-  milliseconds: number,
-  nothingToDo: boolean,
-): DayFitProposal {
-  const { input } = day;
-  const examById = new Map(input.exams.map((e) => [e.id, e]));
-  const moves: FitExamMove[] = [];
-  const calls: FitCall[] = [];
-  const changes: PlanChange[] = [];
-  for (const [examId, place] of [...places].sort((a, b) => a[0] - b[0])) {
-    const exam = examById.get(examId)!;
-    const fromStart = day.minuteOf(exam.start);
-    if (place.roomId === exam.roomId && place.start === fromStart) continue;
-    const to = { roomId: place.roomId, start: day.toIso(place.start) };
-    const move: ExamMove = { type: 'move', examId, accession: exam.accession, from: { roomId: exam.roomId, start: exam.start }, to };
-    changes.push(move);
-    moves.push({ examId, accession: exam.accession, kind: place.roomId !== exam.roomId ? 'other-room' : 'shift', from: move.from, to, minutesMoved: Math.abs(place.start - fromStart) });
-    if (place.start !== fromStart) calls.push({ examId, accession: exam.accession, fromStart: exam.start, toStart: to.start, fromRoomId: exam.roomId, toRoomId: place.roomId });
-  }
-  const roomById = new Map(input.rooms.map((r) => [r.id, r]));
-  const helperUses: FitHelperUse[] = [];
-  for (const [toExamId, { slot, busyFrom, busyTo }] of [...helpers].sort((a, b) => a[0] - b[0])) {
-    const exam = examById.get(toExamId)!;
-    const room = roomById.get(places.get(toExamId)?.roomId ?? exam.roomId)!;
-    const staffFrom = day.baseStaff(room, exam);
-    const staffTo = day.helperStaff(room, exam)!;
-    const change: StaffingChange = { type: 'staffing', toExamId, accession: exam.accession, from: input.staffOverrides?.[toExamId] ?? null, to: staffTo };
-    changes.push(change);
-    helperUses.push({ toExamId, accession: exam.accession, helperId: slot.helper.id, label: slot.helper.label, staffFrom, staffTo, roomId: room.id, busyFrom: day.toIso(busyFrom), busyTo: day.toIso(busyTo) });
-  }
-  const after = withChanges(input, changes);
-  const judgedAfter = fixDay(after);
-  // Isolation cases that end last in their room, having not been last before.
-  const lastBefore = new Set(input.rooms.map((r) => judgedBefore(day, r.id)).filter((id): id is number => id !== null));
-  for (const move of moves) {
-    const exam = examById.get(move.examId)!;
-    const slotsAfter = judgedAfter.judged(move.to.roomId).slots;
-    if (exam.precaution !== 'none' && slotsAfter[slotsAfter.length - 1]?.exam.id === exam.id && !lastBefore.has(exam.id)) move.kind = 'isolation-last';
-  }
-  const remaining = remainingGaps(day, judgedAfter, tally.timeLimited, tally.neighbourhood);
-  const ends = input.rooms.map((r) => judgedAfter.judged(r.id)).filter((r) => r.slots.length > 0).map((r) => r.endsMs);
-  return {
-    date: input.date,
-    changes,
-    moves,
-    calls,
-    helpers: helperUses,
-    remaining,
-    objective: {
-      gapsLeft: remaining.length,
-      examsMoved: moves.length,
-      minutesMoved: moves.reduce((sum, m) => sum + m.minutesMoved, 0),
-      dayEndsAt: ends.length ? day.toIso(Math.round((Math.max(...ends) - day.midnightMs) / 60_000)) : null,
-      helpersAdded: helperUses.length,
-    },
-    before,
-    after: judgedAfter.summary,
-    solver: solverReport(tally, nothingToDo, milliseconds),
-  };
-}
-
-function judgedBefore(day: FitDay, roomId: number): number | null {
-  const exams = day.input.exams.filter((e) => e.roomId === roomId).map((e) => ({ id: e.id, at: day.minuteOf(e.start) }));
-  exams.sort((a, b) => a.at - b.at || a.id - b.id);
-  return exams.length ? exams[exams.length - 1]!.id : null;
 }
 
 /**

@@ -3,9 +3,9 @@ import { withChanges } from '../fixes/apply-changes';
 import { computeDayPlan } from '../turnover/day-plan';
 import type { DayPlanInput } from '../turnover/day-plan-input';
 import type { DayPlan } from '../turnover/day-plan-types';
-import { peopleReasonWords } from '../turnover/people-words';
-import type { DayFitOptions, DayFitProposal, FitRemainingGap, MipSolve } from './model';
-import { neitherMayMove } from './remaining';
+import type { DayFitOptions, DayFitProposal, MipSolve } from './model';
+import { proposeExactWithRoster } from './roster-exact';
+import { dayEnd, problemsOf, remainingWithPeople } from './roster-judge';
 import { solverReport, type SolveTally } from './solver-report';
 
 /** Rounds of planning with the roster's crews at most (each a whole proposal, then the roster's judgement). */
@@ -20,9 +20,11 @@ const LATER_ROUND_REACHES = 2;
 type Propose = (input: DayPlanInput, solve: MipSolve, options: DayFitOptions) => DayFitProposal;
 
 /**
- * "Make the day fit" on a day with a roster. The MIP plans each turnover with a number of people
- * (`proposeWithStaff`); the roster decides who actually comes and when. So the day is planned in
- * rounds: each turnover the roster staffs with fewer people than its room's is planned with the
+ * "Make the day fit" on a day with a roster. A small day (each part of it that shares people at
+ * most `rosterExactLimit` exams) is solved exactly with the roster's people in the MIP
+ * (`proposeExactWithRoster`). A larger one is planned in rounds around the MIP that plans each
+ * turnover with a number of people (`proposeWithStaff`) while the roster decides who actually
+ * comes and when: each turnover the roster staffs with fewer people than its room's is planned with the
  * crew it gets (a staff cap, only lowered), and one whose crew starts late (a person busy in
  * another room, on a break, not yet on shift) gets that crew only from then (a clock time in
  * that room, only raised: every turnover into the exam there starts no earlier); the gaps the
@@ -31,9 +33,9 @@ type Propose = (input: DayPlanInput, solve: MipSolve, options: DayFitOptions) =>
  * rounds). The round with the fewest gaps left by the roster's judgement (then fewest exams
  * moved, minutes, the earliest end) is the proposal; its before, after and gaps left are the
  * roster's, and a gap left for people says why in the gap panel's words ("Short by 6 min:
- * Aide 1 is in MR 2 until 10:12"), beside the solver's reason when it has one. A heuristic
- * around the exact MIP: the crews are not variables of the model, so a roster day's proposal is
- * not proven optimal.
+ * Aide 1 is in MR 2 until 10:12"), beside the solver's reason when it has one. The rounds are a
+ * heuristic around the exact MIP: there the crews are not variables of the model, so such a
+ * proposal is not proven optimal.
  *
  * @example
  * const proposal = proposeWithRoster(input, highsSolve, {}, proposeWithStaff);
@@ -45,6 +47,8 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
   const deadline = started + (options.timeLimitMs ?? 8_000);
   const { roster: _roster, ...ownStaff } = input;
   const beforePlan = computeDayPlan(input);
+  const exact = proposeExactWithRoster(input, solve, options, beforePlan, deadline);
+  if (exact) return exact;
   const caps = new Map<number, number>();
   const crewFrom = new Map<number, Map<number, number>>();
   followCrews(caps, crewFrom, beforePlan);
@@ -82,7 +86,7 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
   }
   const { proposal, plan } = best!;
   const stays = new Map(Object.entries(options.fixed ?? {}).map(([id, why]) => [Number(id), why]));
-  const remaining = remainingWithPeople(input, plan, proposal.remaining, stays, rounds);
+  const remaining = remainingWithPeople(input, plan, proposal.remaining, stays, `short with the roster’s crews; ${rounds} round${rounds === 1 ? '' : 's'} of planning with them did not clear it`);
   const nothingToDo = beforePlan.summary.short + beforePlan.summary.overlap === 0;
   return {
     ...proposal,
@@ -90,7 +94,7 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
     objective: { ...proposal.objective, gapsLeft: remaining.length },
     before: beforePlan.summary,
     after: plan.summary,
-    solver: { ...solverReport(tally, nothingToDo, now() - started), rosterRounds: rounds },
+    solver: { ...solverReport(tally, nothingToDo, now() - started), roster: 'rounds', rosterRounds: rounds },
   };
 }
 
@@ -122,36 +126,6 @@ function followCrews(caps: Map<number, number>, crewFrom: Map<number, Map<number
     }
   }
   return changed;
-}
-
-/** The exams after a `short` or `overlap` gap in a plan. */
-function problemsOf(plan: DayPlan): number[] {
-  return plan.rooms.flatMap((room) => room.gaps.filter((gap) => gap.verdict === 'short' || gap.verdict === 'overlap').map((gap) => gap.toExamId));
-}
-
-/** The gaps the roster's judgement leaves short or overlapping, each with why. */
-function remainingWithPeople(input: DayPlanInput, plan: DayPlan, solverLeft: readonly FitRemainingGap[], stays: ReadonlyMap<number, string>, rounds: number): FitRemainingGap[] {
-  const solverReason = new Map(solverLeft.map((gap) => [gap.toExamId, gap.reason]));
-  const examById = new Map(input.exams.map((exam) => [exam.id, exam]));
-  const people = new Map((plan.people?.people ?? []).map((person) => [person.id, person.label]));
-  const names = { roomName: (id: number) => plan.rooms.find((r) => r.id === id)?.name, personLabel: (id: string) => people.get(id) };
-  const out: FitRemainingGap[] = [];
-  for (const room of plan.rooms) {
-    for (const gap of room.gaps) {
-      if (gap.verdict !== 'short' && gap.verdict !== 'overlap') continue;
-      // The people's side and the solver's both, when both have something to say.
-      const fixedWords = neitherMayMove(gap.fromExamId === null ? null : examById.get(gap.fromExamId)!, examById.get(gap.toExamId)!, stays);
-      const said = [gap.people ? peopleReasonWords(gap, gap.people, room.id, names) : null, solverReason.get(gap.toExamId) ?? fixedWords].filter((w): w is string => w !== null);
-      const reason = said.length > 0 ? said.join(' — ') : `short with the roster’s crews; ${rounds} round${rounds === 1 ? '' : 's'} of planning with them did not clear it`;
-      out.push({ fromExamId: gap.fromExamId, toExamId: gap.toExamId, accession: room.exams.find((e) => e.id === gap.toExamId)?.accession ?? String(gap.toExamId), roomId: room.id, verdict: gap.verdict, shortByMinutes: gap.shortByMinutes, reason });
-    }
-  }
-  return out;
-}
-
-/** The day's last exam end, in ms (0 for an empty day). */
-function dayEnd(plan: DayPlan): number {
-  return Math.max(0, ...plan.rooms.flatMap((room) => room.exams.map((exam) => Date.parse(exam.end))));
 }
 
 function lexicallyLess(a: readonly number[], b: readonly number[]): boolean {

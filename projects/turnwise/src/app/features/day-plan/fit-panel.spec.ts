@@ -85,4 +85,12 @@ describe('FitPanel', () => {
     expect(text()).toContain("Best found in 2 rounds with the roster's crews (not proven the best possible)");
     expect(text()).not.toContain('Best possible (whole day)');
   });
+
+  it('on a small roster day solved with its people in the model, says it is the best possible and who works what was planned', async () => {
+    const { text } = await render({ ...PROPOSAL, solver: { ...PROPOSAL.solver, roster: 'exact' } }, true);
+    expect(text()).toContain("Best possible with the roster's people");
+    expect(text()).toContain('who works each turnover was planned with the moves');
+    expect(text()).toContain('the People view');
+    expect(text()).not.toContain('not proven');
+  });
 });

@@ -28,9 +28,15 @@ const clock = (iso: string) => iso.slice(11, 16);
     <p class="solver">{{ solverWords() }}</p>
     @if (roster()) {
       <p class="roster-note">
-        Planned with the roster's people: a turnover gets the crew the roster gives it and waits for
-        someone busy in another room, and people the roster leaves free can help. Who works which
-        turnover is settled after the moves, so a gap can still depend on people: check the People view.
+        @if (proposal().solver.roster === 'exact') {
+          Planned with the roster's people: who works each turnover was planned with the moves
+          (one place at a time, walking between rooms, breaks and shifts); the People view shows
+          each person's work.
+        } @else {
+          Planned with the roster's people: a turnover gets the crew the roster gives it and waits for
+          someone busy in another room, and people the roster leaves free can help. Who works which
+          turnover is settled after the moves, so a gap can still depend on people: check the People view.
+        }
       </p>
     }
     @if (p.calls.length > 0) {
@@ -113,6 +119,7 @@ export class FitPanel {
     if (solver.status === 'nothing-to-do') return 'Nothing to solve.';
     const scope = solver.scope === 'whole' ? 'whole day' : 'around each problem gap';
     const took = `found in ${(solver.milliseconds / 1000).toFixed(1)} s`;
+    if (solver.roster === 'exact' && solver.status === 'optimal') return `Best possible with the roster's people (whole day, who works each turnover included); ${took}.`;
     if (solver.rosterRounds !== undefined && solver.status === 'optimal') {
       return `Best found in ${solver.rosterRounds} round${solver.rosterRounds === 1 ? '' : 's'} with the roster's crews (not proven the best possible); ${took}.`;
     }
