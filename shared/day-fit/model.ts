@@ -67,6 +67,12 @@ export interface DayFitOptions {
    * rounds. Default `ROSTER_EXACT_LIMIT` (8); 0 always plans in rounds.
    */
   rosterExactLimit?: number;
+  /**
+   * On a roster day solved exactly: may a turnover get one person more than its room's staff
+   * from the roster's people (a helper, as a staffing change)? Default true. (Planned in rounds,
+   * helpers come from `helpers`.)
+   */
+  helpersFromRoster?: boolean;
   /** A large group's neighbourhoods: how many of the widening reaches to try (default all four). */
   reaches?: number;
   /** Clock for the budget; default Date.now. */

@@ -53,7 +53,7 @@ export function proposeExactWithRoster(input: DayPlanInput, solve: MipSolve, opt
       walkingMinutes: input.roster!.walkingMinutes,
       roomOrder,
       roomCount: input.rooms.length,
-      helpers: (options.helpers?.length ?? 0) > 0,
+      helpers: options.helpersFromRoster ?? true,
     });
     const solved = solveLevels(model, solve, tally, now() + (deadline - now()) / (parts.length - index), now);
     // No point in time (or every arrangement leaves a turnover its people cannot reach in their

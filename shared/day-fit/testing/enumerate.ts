@@ -162,19 +162,42 @@ export function less(a: FitScore, b: FitScore): boolean {
 
 /**
  * The best proposal by brute force on a day with a roster: every free exam's place as in
- * `bestByEnumeration`, each combination judged by the day-plan engine with the roster's crews
- * (people in one place at a time, walking, breaks, shifts). Slow (an engine pass per
- * combination): for a handful of exams only. No helpers.
+ * `bestByEnumeration`, and with `helpers` every set of turnovers that get one person more than
+ * their room's staff (a staffing change, as a proposal makes one); each combination judged by the
+ * day-plan engine with the roster's crews (people in one place at a time, walking, breaks,
+ * shifts). Slow (an engine pass per combination): for a handful of exams only.
  *
  * @example
  * bestByEnumerationWithRoster(rosterDay, { grid: 30 }).score; // [0, 1, 30, 535, 0]
  */
-export function bestByEnumerationWithRoster(input: DayPlanInput, options: { grid: number; fixed?: Record<number, FixedReason> }): { score: FitScore; combos: number } {
+export function bestByEnumerationWithRoster(input: DayPlanInput, options: { grid: number; fixed?: Record<number, FixedReason>; helpers?: boolean }): { score: FitScore; combos: number } {
   const day = fitDay(input, { fixed: options.fixed });
   const { free, places } = placesOf(day, options.grid);
+  const roomById = new Map(input.rooms.map((r) => [r.id, r]));
   let best: FitScore = [Infinity, Infinity, Infinity, Infinity, Infinity];
   let combos = 0;
   const chosen: { roomId: number; start: number }[] = [];
+  const judge = (moves: PlanChange[], moved: number, minutes: number) => {
+    // Each exam's gap with or without a helper, in the room the placement puts it in.
+    const where = new Map(input.exams.map((e) => [e.id, e.roomId]));
+    for (const move of moves) if (move.type === 'move') where.set(move.examId, move.to.roomId);
+    const helpable = options.helpers
+      ? input.exams.flatMap((e) => {
+          const staff = day.helperStaff(roomById.get(where.get(e.id)!)!, e);
+          return staff === null ? [] : [{ e, staff }];
+        })
+      : [];
+    for (let mask = 0; mask < 1 << helpable.length; mask++) {
+      const staffing: PlanChange[] = helpable
+        .filter((_, k) => mask & (1 << k))
+        .map(({ e, staff }) => ({ type: 'staffing', toExamId: e.id, accession: e.accession, from: input.staffOverrides?.[e.id] ?? null, to: staff }));
+      combos++;
+      const plan = computeDayPlan(withChanges(input, [...moves, ...staffing]));
+      const end = Math.max(0, ...plan.rooms.flatMap((room) => room.exams.map((exam) => day.minuteOf(exam.end))));
+      const score: FitScore = [plan.summary.short + plan.summary.overlap, moved, minutes, end, staffing.length];
+      if (less(score, best)) best = score;
+    }
+  };
   const walk = (k: number, moved: number, minutes: number) => {
     if (best[0] === 0 && (moved > best[1] || (moved === best[1] && minutes > best[2]))) return;
     if (k < free.length) {
@@ -185,7 +208,6 @@ export function bestByEnumerationWithRoster(input: DayPlanInput, options: { grid
       }
       return;
     }
-    combos++;
     const changes: PlanChange[] = [];
     free.forEach(({ fe }, i) => {
       const to = chosen[i]!;
@@ -193,10 +215,7 @@ export function bestByEnumerationWithRoster(input: DayPlanInput, options: { grid
         changes.push({ type: 'move', examId: fe.exam.id, accession: fe.exam.accession, from: { roomId: fe.roomId, start: fe.exam.start }, to: { roomId: to.roomId, start: day.toIso(to.start) } });
       }
     });
-    const plan = computeDayPlan(withChanges(input, changes));
-    const end = Math.max(0, ...plan.rooms.flatMap((room) => room.exams.map((exam) => day.minuteOf(exam.end))));
-    const score: FitScore = [plan.summary.short + plan.summary.overlap, moved, minutes, end, 0];
-    if (less(score, best)) best = score;
+    judge(changes, moved, minutes);
   };
   walk(0, 0, 0);
   return { score: best, combos };
