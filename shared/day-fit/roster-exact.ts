@@ -28,9 +28,10 @@ interface RosterPart {
  * finds short (modality groups joined by the people who cover rooms in both) is solved whole with
  * the roster model (`rosterModel`: crews, shifts, breaks and walking are variables and rows of
  * the MIP), so the proposal is the optimum judged with the roster's crews. Null when the day is
- * not small enough (a part over {@link ROSTER_EXACT_LIMIT} exams) or when a room of such a part
- * has no one on the roster (its turnovers would follow the room's own staff, which this model
- * does not write), or when a part's solve finds no point: the caller then plans in rounds.
+ * not small enough (a part over {@link ROSTER_EXACT_LIMIT} exams), when someone on the roster
+ * covers a room with exams the model leaves out (closed, or without a protocol), or when a part's
+ * solve finds no point: the caller then plans in rounds. A room nobody on the roster covers keeps
+ * its own staff, as in the day plan.
  *
  * @example
  * proposeExactWithRoster(input, highsSolve, {}, computeDayPlan(input), Date.now() + 8_000)?.solver.roster; // 'exact'
@@ -76,7 +77,7 @@ export function proposeExactWithRoster(input: DayPlanInput, solve: MipSolve, opt
   };
 }
 
-/** The parts of the day with a problem gap, each small and fully on the roster; null when one is not. */
+/** The parts of the day with a problem gap; null when one is too large or the roster reaches past the model. */
 function rosterParts(day: FitDay, problems: ReadonlySet<number>, limit: number): RosterPart[] | null {
   const { input } = day;
   const roster = input.roster!;
@@ -99,7 +100,6 @@ function rosterParts(day: FitDay, problems: ReadonlySet<number>, limit: number):
     if (!groups.some((g) => g.exams.some((fe) => problems.has(fe.exam.id)))) continue;
     const rooms = groups.flatMap((g) => g.rooms);
     const people = roster.people.filter((p) => rooms.some((r) => p.roomIds.includes(r.room.id)));
-    if (rooms.some((r) => !people.some((p) => p.roomIds.includes(r.room.id)))) return null;
     if (groups.reduce((n, g) => n + g.exams.length, 0) > limit) return null;
     parts.push({
       rooms,

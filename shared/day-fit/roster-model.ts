@@ -61,7 +61,9 @@ export function rosterModel(day: FitDay, rooms: readonly FitRoom[], items: reado
   const base = (r: FitRoom, k: number) => day.baseStaff(r.room, items[k]!.fe.exam);
   const most = (r: FitRoom, k: number) => (options.helpers ? day.helperStaff(r.room, items[k]!.fe.exam) ?? base(r, k) : base(r, k));
   const covers = (p: ModelPerson, r: FitRoom) => p.roomIds.includes(r.room.id);
-  const crewSizes = items.map((it, k) => Math.max(...it.rooms.map((r) => Math.min(most(r, k), people.filter((p) => covers(p, r)).length))));
+  // A room nobody on the roster covers has its own staff, as the day plan gives it: no crew, no wait.
+  const covered = (r: FitRoom) => people.some((p) => covers(p, r));
+  const crewSizes = items.map((it, k) => Math.max(0, ...it.rooms.filter(covered).map((r) => Math.min(most(r, k), people.filter((p) => covers(p, r)).length))));
 
   const minutes = new Map<string, { req: number; busy: number }>();
   const turnover = (r: FitRoom, leaving: DayPlanExam | null, arriving: DayPlanExam, size: number) => {
@@ -80,7 +82,8 @@ export function rosterModel(day: FitDay, rooms: readonly FitRoom[], items: reado
   items.forEach((it, k) => {
     for (const r of it.rooms) {
       for (const i of [null, ...inRooms[roomIndex.get(r.room.id)!]!.filter((i) => mayPrecede(i, k))]) {
-        for (let size = 1; size <= crewSizes[k]!; size++) {
+        const sizes = covered(r) ? Array.from({ length: crewSizes[k]! }, (_, q) => q + 1) : [base(r, k)];
+        for (const size of sizes) {
           const t = turnover(r, i === null ? null : items[i]!.fe.exam, it.fe.exam, size);
           maxReq = Math.max(maxReq, t.req);
           maxBusy = Math.max(maxBusy, t.busy);
@@ -147,13 +150,13 @@ export function rosterModel(day: FitDay, rooms: readonly FitRoom[], items: reado
       lp.row([[1, F(k)], [-Mf, f(k, ri)]], '>=', r.open - Mf);
     }
     lp.row([[1, c(k)], [-1, F(k)]], '>=', 0);
-    // The crew: one size, as many people who cover its room. Never nobody while someone covers
-    // it: the roster staffs every turnover it can before it counts gaps, so a crew left out to
-    // free its people for another room is not a schedule the roster would make.
+    // The crew: one size, as many people who cover its room; none in a room nobody covers. Never
+    // nobody while someone covers it: the roster staffs every turnover it can before it counts
+    // gaps, so a crew left out to free its people for another room is not a schedule it makes.
     const sizes: Term[] = [];
     for (let size = 1; size <= crewSizes[k]!; size++) sizes.push([1, lp.variable(z(k, size), 'binary')]);
-    if (sizes.length > 0) lp.row(sizes, '=', 1);
-    else lp.row([[1, u(k)]], '=', 1); // nobody on the roster covers its rooms: a gap left
+    const own = it.rooms.filter((r) => !covered(r)).map((r) => inRoom(k, r));
+    lp.row([...sizes, ...own.flatMap((Y) => Y.terms)], '=', 1 - own.reduce((sum, Y) => sum + Y.constant, 0));
     const crew: Term[] = [];
     people.forEach((p, pi) => {
       const theirs = it.rooms.filter((r) => covers(p, r));
@@ -169,6 +172,15 @@ export function rosterModel(day: FitDay, rooms: readonly FitRoom[], items: reado
     for (const r of it.rooms) {
       const ri = roomIndex.get(r.room.id)!;
       const Y = inRoom(k, r);
+      const before = [null, ...inRooms[ri]!.filter((i) => lp.has(a(i, k, ri)))];
+      if (!covered(r)) {
+        // Its own staff, from the room's free time.
+        for (const i of before) {
+          const t = turnover(r, i === null ? null : items[i]!.fe.exam, it.fe.exam, base(r, k));
+          if (t.req > 0) lp.row([[1, R(k)], [-t.req, i === null ? f(k, ri) : a(i, k, ri)]], '>=', 0);
+        }
+        continue;
+      }
       for (let size = 1; size <= crewSizes[k]!; size++) {
         // A size the room does not allow, in that room; one more than its staff is a helper.
         if (size > most(r, k)) lp.row([[1, z(k, size)], ...Y.terms], '<=', 1 - Y.constant);
@@ -178,7 +190,7 @@ export function rosterModel(day: FitDay, rooms: readonly FitRoom[], items: reado
           lp.row([[1, h], [-1, z(k, size)], ...Y.terms.map(([q, v]) => [-q, v] as const)], '>=', Y.constant - 1);
         }
         // Its ready time and hands-on minutes for the exam just before it (or the opening) and this size.
-        for (const i of [null, ...inRooms[ri]!.filter((i) => lp.has(a(i, k, ri)))]) {
+        for (const i of before) {
           const t = turnover(r, i === null ? null : items[i]!.fe.exam, it.fe.exam, size);
           const pred = i === null ? f(k, ri) : a(i, k, ri);
           if (t.req > 0) lp.row([[1, R(k)], [-t.req, pred], [-t.req, z(k, size)]], '>=', -t.req);

@@ -99,6 +99,8 @@ describe('make the day fit (API, real database)', () => {
     expect(proposal.moves).toEqual([]);
     expect(proposal.helpers).toEqual([expect.objectContaining({ accession: 'HX-2', staffFrom: 1, staffTo: 2 })]);
     expect(proposal.remaining).toEqual([]);
+    // A day this small is solved with the roster's people in the model: the best possible.
+    expect(proposal.solver).toMatchObject({ roster: 'exact', status: 'optimal' });
     const applied = await charge.post(`/api/days/${day}/fit/apply`, { dayVersion: proposal.dayVersion, changes: proposal.changes });
     expect(applied.status).toBe(200);
     expect((await charge.post(`/api/days/${day}/undo`)).status).toBe(200);

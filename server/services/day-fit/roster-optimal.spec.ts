@@ -38,10 +38,11 @@ function expectBest(input: DayPlanInput, proposal: DayFitProposal, best: FitScor
 }
 
 describe('make the day fit with a roster, exactly: equal to brute force (invented small days)', () => {
-  const cases: [string, number[], { breaks?: boolean; mostPerRoom?: number; helpers?: boolean }][] = [
+  const cases: [string, number[], { breaks?: boolean; mostPerRoom?: number; helpers?: boolean; firstRoomOnly?: boolean }][] = [
     ['up to 3 exams a room', range(21, 50), {}],
     ['up to 3 exams a room, an aide on a break', range(51, 70), { breaks: true }],
     ['up to 2 exams a room, helpers from the roster too', range(71, 90), { mostPerRoom: 2, helpers: true }],
+    ['up to 3 exams a room, the aides in MR 1 only (MR 2 keeps its own staff)', range(91, 110), { firstRoomOnly: true }],
   ];
   for (const [name, seeds, { helpers, ...day }] of cases) {
     it(`${name}: seeds ${seeds[0]}–${seeds[seeds.length - 1]}`, () => {

@@ -57,16 +57,17 @@ export function smallDay(seed: number, grid: number, mostPerRoom = 3): { input: 
 /**
  * `smallDay` with an invented roster of 1–3 aides (by the seed) on 07:00–10:00: the first two
  * cover both rooms, the third MR 1 only; 3 minutes' walk between rooms (common practice, no
- * source). With `breaks`, the first aide takes 07:40–07:55 off (invented).
+ * source). With `breaks`, the first aide takes 07:40–07:55 off (invented); with `firstRoomOnly`,
+ * every aide covers MR 1 only and MR 2 keeps its own staff.
  *
  * @example
  * smallRosterDay(7, 30).input.roster!.people.length; // 2
  */
-export function smallRosterDay(seed: number, grid: number, options: { mostPerRoom?: number; breaks?: boolean } = {}): { input: DayPlanInput; fixed: Record<number, FixedReason> } {
+export function smallRosterDay(seed: number, grid: number, options: { mostPerRoom?: number; breaks?: boolean; firstRoomOnly?: boolean } = {}): { input: DayPlanInput; fixed: Record<number, FixedReason> } {
   const { input, fixed } = smallDay(seed, grid, options.mostPerRoom ?? 3);
   const people = Array.from({ length: 1 + (seed % 3) }, (_, k) => ({
     id: `p${k}`, name: null, label: `Aide ${k + 1}`, role: 'aide' as const, start: '07:00', end: '10:00',
-    breaks: options.breaks && k === 0 ? [{ start: '07:40', end: '07:55' }] : [], roomIds: k === 2 ? [1] : [1, 2],
+    breaks: options.breaks && k === 0 ? [{ start: '07:40', end: '07:55' }] : [], roomIds: k === 2 || options.firstRoomOnly ? [1] : [1, 2],
   }));
   return { input: { ...input, roster: { source: 'day', walkingMinutes: 3, people } }, fixed };
 }
