@@ -33,8 +33,12 @@ export interface ClusterModel {
 
 export interface ClusterSolution {
   places: Map<number, { roomId: number; start: number }>;
-  /** Helper slot taken on the gap before an exam, and the minutes the person is booked (start − longest turnover, start). */
-  helpers: Map<number, { slot: HelperSlot; busyFrom: number; busyTo: number }>;
+  /**
+   * Helper slot taken on the gap before an exam, and the minutes the person is booked (start −
+   * longest turnover, start); `staffTo` the people on the turnover with it, when not the room's
+   * staff (or override) plus one.
+   */
+  helpers: Map<number, { slot: HelperSlot; busyFrom: number; busyTo: number; staffTo?: number }>;
 }
 
 

@@ -38,11 +38,11 @@ export function fitProposal(
   }
   const roomById = new Map(input.rooms.map((r) => [r.id, r]));
   const helperUses: FitHelperUse[] = [];
-  for (const [toExamId, { slot, busyFrom, busyTo }] of [...helpers].sort((a, b) => a[0] - b[0])) {
+  for (const [toExamId, { slot, busyFrom, busyTo, staffTo: to }] of [...helpers].sort((a, b) => a[0] - b[0])) {
     const exam = examById.get(toExamId)!;
     const room = roomById.get(places.get(toExamId)?.roomId ?? exam.roomId)!;
     const staffFrom = day.baseStaff(room, exam);
-    const staffTo = day.helperStaff(room, exam)!;
+    const staffTo = to ?? day.helperStaff(room, exam)!;
     const change: StaffingChange = { type: 'staffing', toExamId, accession: exam.accession, from: input.staffOverrides?.[toExamId] ?? null, to: staffTo };
     changes.push(change);
     helperUses.push({ toExamId, accession: exam.accession, helperId: slot.helper.id, label: slot.helper.label, staffFrom, staffTo, roomId: room.id, busyFrom: day.toIso(busyFrom), busyTo: day.toIso(busyTo) });

@@ -73,6 +73,8 @@ export interface DayFitOptions {
    * helpers come from `helpers`.)
    */
   helpersFromRoster?: boolean;
+  /** On a roster day planned in rounds: try the gaps they leave window by window with the roster's people. Default true. */
+  rosterWindows?: boolean;
   /** A large group's neighbourhoods: how many of the widening reaches to try (default all four). */
   reaches?: number;
   /** Clock for the budget; default Date.now. */
@@ -145,6 +147,8 @@ export interface FitSolverReport {
   roster?: 'exact' | 'rounds';
   /** On a day with a roster planned in rounds: how many (see `proposeWithRoster`). */
   rosterRounds?: number;
+  /** Windows after the rounds, solved with the roster's people, that made the day better (`improveInWindows`). */
+  rosterWindows?: number;
 }
 
 export interface DayFitProposal {

@@ -4,8 +4,11 @@ import { computeDayPlan } from '../turnover/day-plan';
 import type { DayPlanInput } from '../turnover/day-plan-input';
 import type { DayPlan } from '../turnover/day-plan-types';
 import type { DayFitOptions, DayFitProposal, MipSolve } from './model';
+import { fitProposal } from './fit-proposal';
+import { fitDay } from './instance';
 import { proposeExactWithRoster } from './roster-exact';
 import { dayEnd, problemsOf, remainingWithPeople } from './roster-judge';
+import { arrangementOf, helperUses, improveInWindows } from './roster-windows';
 import { solverReport, type SolveTally } from './solver-report';
 
 /** Rounds of planning with the roster's crews at most (each a whole proposal, then the roster's judgement). */
@@ -84,9 +87,22 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
     if (!best || lexicallyLess(score, best.score)) best = { proposal: { ...proposal, changes }, plan, score };
     if (score[0] === 0 || !followCrews(caps, crewFrom, plan)) break;
   }
+  // What the rounds leave, the exact roster model takes on window by window.
+  let windows = 0;
+  if (best!.score[0]! > 0 && (options.rosterWindows ?? true) && deadline - now() > 200) {
+    const day = fitDay(input, options);
+    const improved = improveInWindows(day, arrangementOf(day, best!.proposal.changes), best!.plan, solve, options, deadline, tally);
+    windows = improved.kept;
+    if (improved.kept > 0) {
+      const proposal = fitProposal(day, improved.arrangement.places, helperUses(day, improved.arrangement, improved.plan), beforePlan.summary, tally, 0, false);
+      best = { proposal, plan: improved.plan, score: [] };
+    }
+  }
   const { proposal, plan } = best!;
   const stays = new Map(Object.entries(options.fixed ?? {}).map(([id, why]) => [Number(id), why]));
-  const remaining = remainingWithPeople(input, plan, proposal.remaining, stays, `short with the roster’s crews; ${rounds} round${rounds === 1 ? '' : 's'} of planning with them did not clear it`);
+  const tried = `short with the roster’s crews; ${rounds} round${rounds === 1 ? '' : 's'} of planning with them${windows > 0 ? ', then a window around it with the roster’s people,' : ''} did not clear it`;
+  // After windows the own-staff reasons of the rebuilt proposal say nothing of the roster: only the people's side and the fixed exams.
+  const remaining = remainingWithPeople(input, plan, windows > 0 ? [] : proposal.remaining, stays, tried);
   const nothingToDo = beforePlan.summary.short + beforePlan.summary.overlap === 0;
   return {
     ...proposal,
@@ -94,7 +110,7 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
     objective: { ...proposal.objective, gapsLeft: remaining.length },
     before: beforePlan.summary,
     after: plan.summary,
-    solver: { ...solverReport(tally, nothingToDo, now() - started), roster: 'rounds', rosterRounds: rounds },
+    solver: { ...solverReport(tally, nothingToDo, now() - started), roster: 'rounds', rosterRounds: rounds, ...(windows > 0 ? { rosterWindows: windows } : {}) },
   };
 }
 

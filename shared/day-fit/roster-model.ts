@@ -23,6 +23,11 @@ export interface RosterModelOptions {
   roomCount: number;
   /** May a turnover get one person more than its room's staff (a helper, as a staffing change)? */
   helpers: boolean;
+  /**
+   * Items whose own turnover lies outside the model (the exam just before a window of the day):
+   * they only end where the next exam's turnover starts. Their people's work is in `breaks`.
+   */
+  noJob?: ReadonlySet<number>;
 }
 
 /**
@@ -80,6 +85,7 @@ export function rosterModel(day: FitDay, rooms: readonly FitRoom[], items: reado
   let maxReq = 0;
   let maxBusy = 0;
   items.forEach((it, k) => {
+    if (options.noJob?.has(k)) return;
     for (const r of it.rooms) {
       for (const i of [null, ...inRooms[roomIndex.get(r.room.id)!]!.filter((i) => mayPrecede(i, k))]) {
         const sizes = covered(r) ? Array.from({ length: crewSizes[k]! }, (_, q) => q + 1) : [base(r, k)];
@@ -143,6 +149,10 @@ export function rosterModel(day: FitDay, rooms: readonly FitRoom[], items: reado
     lp.variable(c(k), 'continuous', lo, H);
     lp.variable(R(k), 'continuous', 0, maxReq);
     lp.variable(B(k), 'continuous', 0, maxBusy);
+    if (options.noJob?.has(k)) {
+      lp.row([[1, u(k)]], '=', 0);
+      return;
+    }
     const Mf = hi - lo;
     for (const r of it.rooms) {
       const ri = roomIndex.get(r.room.id)!;

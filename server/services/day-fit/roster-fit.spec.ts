@@ -1,8 +1,9 @@
-import { proposeDayFit, type MipSolve } from '../../../shared/day-fit';
+import { proposeDayFit, type DayFitProposal, type MipSolve } from '../../../shared/day-fit';
 import { fitWorkDay } from '../../../shared/day-fit/testing/fit-days';
 import { withChanges } from '../../../shared/fixes/apply-changes';
 import { computeDayPlan } from '../../../shared/turnover/day-plan';
 import type { DayPlanExam, DayPlanInput, DayPlanPerson, DayPlanRoom } from '../../../shared/turnover/day-plan-input';
+import type { DayPlan } from '../../../shared/turnover/day-plan-types';
 import { DEMO_SETUP } from '../../../shared/turnover/demo-protocols';
 import { highsSolver } from './highs-solve';
 
@@ -91,47 +92,12 @@ describe('make the day fit with a roster (invented examples)', () => {
 describe('make the day fit with a roster: properties (seeded invented days)', () => {
   // Invented working days (fitWorkDay) of 4 rooms and about 8 exams each with an invented roster:
   // two aides covering MR 1–3 (one with a break), a technologist for the CT room.
-  const minute = (iso: string) => Date.parse(iso) / 60_000;
   for (const seed of [11, 12, 13, 14]) {
     it(`never moves a fixed exam, leaves a room's hours or double-books a person, and says what is left (day ${seed})`, () => {
       const { input: plain, fixed } = fitWorkDay(seed, { rooms: 4, examsPerRoom: 8 });
-      const input: DayPlanInput = {
-        ...plain,
-        roster: {
-          source: 'day', walkingMinutes: 3, people: [
-            aide('a1', 'Aide 1', [1, 2, 3], { start: '07:00', end: '19:00', breaks: [{ start: '12:00', end: '12:30' }] }),
-            aide('a2', 'Aide 2', [1, 2, 3], { start: '07:00', end: '19:00' }),
-            { ...aide('t1', 'Technologist 1', [4], { start: '07:00', end: '19:00' }), role: 'technologist' },
-          ],
-        },
-      };
+      const input: DayPlanInput = { ...plain, roster: thinRoster() };
       const proposal = proposeDayFit(input, solve, { fixed, walkingMinutes: 3, timeLimitMs: 30_000 });
-      const rooms = new Map(input.rooms.map((r) => [r.id, r]));
-      const examOf = new Map(input.exams.map((e) => [e.id, e]));
-      for (const move of proposal.moves) {
-        expect(fixed[move.examId]).toBeUndefined();
-        const to = rooms.get(move.to.roomId)!;
-        expect(to.modality).toBe(rooms.get(examOf.get(move.examId)!.roomId)!.modality);
-        const start = move.to.start.slice(11, 16);
-        expect(start >= to.opensAt! && minute(move.to.start) + examOf.get(move.examId)!.durationMinutes <= minute(`${input.date}T${to.closesAt}:00-05:00`)).toBe(true);
-      }
-      // Applied, the roster's plan gives each person one place at a time (walking between rooms), within shift and off breaks.
-      const after = computeDayPlan(withChanges(input, proposal.changes));
-      for (const person of after.people!.people) {
-        const work = [...person.work].sort((a, b) => minute(a.start) - minute(b.start));
-        work.forEach((piece, k) => {
-          expect(minute(piece.start)).toBeGreaterThanOrEqual(minute(person.start));
-          expect(minute(piece.end)).toBeLessThanOrEqual(minute(person.end));
-          for (const pause of person.breaks) expect(minute(piece.end) <= minute(pause.start) || minute(piece.start) >= minute(pause.end)).toBe(true);
-          const next = work[k + 1];
-          if (next) expect(minute(next.start)).toBeGreaterThanOrEqual(minute(piece.end) + (next.roomId === piece.roomId ? 0 : 3));
-        });
-      }
-      // Its after is the roster's judgement, its gaps left are those gaps, each with a reason, and it never makes the day worse.
-      expect(proposal.after).toEqual(after.summary);
-      expect(proposal.remaining.length).toBe(after.summary.short + after.summary.overlap);
-      for (const gap of proposal.remaining) expect(gap.reason.length).toBeGreaterThan(0);
-      expect(after.summary.short + after.summary.overlap).toBeLessThanOrEqual(proposal.before.short + proposal.before.overlap);
+      const after = expectKeepsTheRules(input, fixed, proposal);
       // And no more than planning each room with its own staff leaves, judged by the same roster
       // (on these days: 1, 0, 0, 0 left against 2, 4, 3, 1).
       const ownStaff = proposeDayFit(plain, solve, { fixed, timeLimitMs: 30_000 });
@@ -139,4 +105,68 @@ describe('make the day fit with a roster: properties (seeded invented days)', ()
       expect(after.summary.short + after.summary.overlap).toBeLessThanOrEqual(ownAfter.short + ownAfter.overlap);
     }, 90_000);
   }
+
+  // Denser invented days (12 exams a room, the same thin roster) where the rounds leave gaps: the
+  // windows after them. A clock that moves 1 ms a call makes every window run, whatever the load.
+  for (const seed of [3]) {
+    it(`tries the gaps the rounds leave window by window, keeping only what makes the day better (day ${seed}, 4 rooms × 12 exams)`, () => {
+      const { input: plain, fixed } = fitWorkDay(seed, { rooms: 4, examsPerRoom: 12 });
+      const input: DayPlanInput = { ...plain, roster: thinRoster() };
+      let tick = 0;
+      const proposal = proposeDayFit(input, solve, { fixed, walkingMinutes: 3, timeLimitMs: 60_000, now: () => (tick += 1) });
+      expect(proposal.solver).toMatchObject({ roster: 'rounds', rosterWindows: expect.any(Number) });
+      expect(proposal.solver.rosterWindows).toBeGreaterThan(0);
+      const after = expectKeepsTheRules(input, fixed, proposal);
+      expect(after.summary.short + after.summary.overlap).toBeLessThan(proposal.before.short + proposal.before.overlap);
+      for (const gap of proposal.remaining) expect(gap.reason).toMatch(/Short by|Overlaps|did not clear it|neither exam may move/);
+    }, 300_000);
+  }
 });
+
+/** Two aides for MR 1–3 (one with a break) and a technologist for the CT room: invented. */
+function thinRoster(): NonNullable<DayPlanInput['roster']> {
+  return {
+    source: 'day', walkingMinutes: 3, people: [
+      aide('a1', 'Aide 1', [1, 2, 3], { start: '07:00', end: '19:00', breaks: [{ start: '12:00', end: '12:30' }] }),
+      aide('a2', 'Aide 2', [1, 2, 3], { start: '07:00', end: '19:00' }),
+      { ...aide('t1', 'Technologist 1', [4], { start: '07:00', end: '19:00' }), role: 'technologist' },
+    ],
+  };
+}
+
+/**
+ * A roster proposal keeps the rules: fixed exams stay, moves stay within the modality and the
+ * room's hours, and once applied each person is in one place at a time (walking between rooms),
+ * within shift and off breaks; its after is the roster's judgement, each gap left has a reason, and
+ * the day is never worse. Answers the day plan after.
+ */
+function expectKeepsTheRules(input: DayPlanInput, fixed: Record<number, string>, proposal: DayFitProposal): DayPlan {
+  const minute = (iso: string) => Date.parse(iso) / 60_000;
+  const rooms = new Map(input.rooms.map((r) => [r.id, r]));
+  const examOf = new Map(input.exams.map((e) => [e.id, e]));
+  for (const move of proposal.moves) {
+    expect(fixed[move.examId]).toBeUndefined();
+    const to = rooms.get(move.to.roomId)!;
+    expect(to.modality).toBe(rooms.get(examOf.get(move.examId)!.roomId)!.modality);
+    const start = move.to.start.slice(11, 16);
+    expect(start >= to.opensAt! && minute(move.to.start) + examOf.get(move.examId)!.durationMinutes <= minute(`${input.date}T${to.closesAt}:00-05:00`)).toBe(true);
+  }
+  // Applied, the roster's plan gives each person one place at a time (walking between rooms), within shift and off breaks.
+  const after = computeDayPlan(withChanges(input, proposal.changes));
+  for (const person of after.people!.people) {
+    const work = [...person.work].sort((a, b) => minute(a.start) - minute(b.start));
+    work.forEach((piece, k) => {
+      expect(minute(piece.start)).toBeGreaterThanOrEqual(minute(person.start));
+      expect(minute(piece.end)).toBeLessThanOrEqual(minute(person.end));
+      for (const pause of person.breaks) expect(minute(piece.end) <= minute(pause.start) || minute(piece.start) >= minute(pause.end)).toBe(true);
+      const next = work[k + 1];
+      if (next) expect(minute(next.start)).toBeGreaterThanOrEqual(minute(piece.end) + (next.roomId === piece.roomId ? 0 : 3));
+    });
+  }
+  // Its after is the roster's judgement, its gaps left are those gaps, each with a reason, and it never makes the day worse.
+  expect(proposal.after).toEqual(after.summary);
+  expect(proposal.remaining.length).toBe(after.summary.short + after.summary.overlap);
+  for (const gap of proposal.remaining) expect(gap.reason.length).toBeGreaterThan(0);
+  expect(after.summary.short + after.summary.overlap).toBeLessThanOrEqual(proposal.before.short + proposal.before.overlap);
+  return after;
+}
