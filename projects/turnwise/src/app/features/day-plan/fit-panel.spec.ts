@@ -86,6 +86,11 @@ describe('FitPanel', () => {
     expect(text()).not.toContain('Best possible (whole day)');
   });
 
+  it('counts the windows tried after the rounds when some were kept', async () => {
+    const { text } = await render({ ...PROPOSAL, solver: { ...PROPOSAL.solver, roster: 'rounds', rosterRounds: 3, rosterWindows: 2 } }, true);
+    expect(text()).toContain("Best found in 3 rounds and 2 windows with the roster's crews (not proven the best possible)");
+  });
+
   it('on a small roster day solved with its people in the model, says it is the best possible and who works what was planned', async () => {
     const { text } = await render({ ...PROPOSAL, solver: { ...PROPOSAL.solver, roster: 'exact' } }, true);
     expect(text()).toContain("Best possible with the roster's people");

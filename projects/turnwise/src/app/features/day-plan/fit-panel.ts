@@ -121,7 +121,8 @@ export class FitPanel {
     const took = `found in ${(solver.milliseconds / 1000).toFixed(1)} s`;
     if (solver.roster === 'exact' && solver.status === 'optimal') return `Best possible with the roster's people (whole day, who works each turnover included); ${took}.`;
     if (solver.rosterRounds !== undefined && solver.status === 'optimal') {
-      return `Best found in ${solver.rosterRounds} round${solver.rosterRounds === 1 ? '' : 's'} with the roster's crews (not proven the best possible); ${took}.`;
+      const windows = solver.rosterWindows ? ` and ${solver.rosterWindows} window${solver.rosterWindows === 1 ? '' : 's'}` : '';
+      return `Best found in ${solver.rosterRounds} round${solver.rosterRounds === 1 ? '' : 's'}${windows} with the roster's crews (not proven the best possible); ${took}.`;
     }
     if (solver.status === 'optimal' && solver.scope === 'whole') return `Best possible (whole day); ${took}.`;
     if (solver.status === 'optimal') return `Best within reach of each problem gap (a day this size is not searched whole); ${took}.`;
