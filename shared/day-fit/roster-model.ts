@@ -178,7 +178,7 @@ export function rosterModel(day: FitDay, rooms: readonly FitRoom[], items: reado
         lp.row([[1, x(k, pi)], ...Ys.flatMap((Y) => Y.terms.map(([q, v]) => [-q, v] as const))], '<=', Ys.reduce((sum, Y) => sum + Y.constant, 0));
       }
     });
-    lp.row([...crew, ...sizes.map(([, v]) => [-Number(v.split('_')[1]), v] as const)], '=', 0);
+    lp.row([...crew, ...sizes.map(([, v], q) => [-(q + 1), v] as const)], '=', 0); // sizes[q] is a crew of q + 1
     for (const r of it.rooms) {
       const ri = roomIndex.get(r.room.id)!;
       const Y = inRoom(k, r);
