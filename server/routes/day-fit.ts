@@ -23,7 +23,7 @@ export function dayFitRoutes(deps: DayFitDeps): Router {
   const router = Router();
 
   router.post('/:date/fit', requireRole('charge'), async (req, res) => {
-    res.json(await proposeFit(deps.db, deps.dayFitPool, parseDay(req.params['date'])));
+    res.json(await proposeFit(deps.db, deps.dayFitPool, parseDay(req.params['date']), deps.clock.now()));
   });
 
   router.post('/:date/fit/apply', requireRole('charge'), async (req, res) => {

@@ -14,18 +14,21 @@ import { readSettings } from './settings';
 
 /**
  * Exams of the day that may not move: arrived (front desk), started (their end recorded, so a
- * turnover opened after them) or pinned by a user.
+ * turnover opened after them), pinned by a user, or past their start time at `now` (a patient
+ * already due is not called to another time; on a day gone by, every exam).
  *
  * @example
- * await fixedExams(db, '2027-03-16'); // Map { 12 => 'arrived', 14 => 'pinned' }
+ * await fixedExams(db, '2027-03-16', new Date()); // Map { 12 => 'arrived', 14 => 'pinned', 3 => 'passed' }
  */
-export async function fixedExams(db: Knex, day: string): Promise<Map<number, FixedReason>> {
-  const [pinned, arrived, started] = await Promise.all([
+export async function fixedExams(db: Knex, day: string, now: Date): Promise<Map<number, FixedReason>> {
+  const [pinned, arrived, started, starts] = await Promise.all([
     db('exams').where({ day, pinned: true }).pluck('id'),
     db('arrivals').join('exams', 'exams.id', 'arrivals.exam_id').where('exams.day', day).pluck('arrivals.exam_id'),
     db('turnovers').where({ day }).pluck('from_exam_id'),
+    db('exams').where({ day }).select('id', 'start_at') as Promise<{ id: number; start_at: string }[]>,
   ]);
   const fixed = new Map<number, FixedReason>();
+  for (const exam of starts) if (Date.parse(exam.start_at) < now.getTime()) fixed.set(Number(exam.id), 'passed');
   for (const id of pinned as number[]) fixed.set(Number(id), 'pinned');
   for (const id of arrived as number[]) fixed.set(Number(id), 'arrived');
   for (const id of started as number[]) fixed.set(Number(id), 'started');
@@ -39,16 +42,19 @@ export async function fixedExams(db: Knex, day: string): Promise<Map<number, Fix
  * the people it leaves idle in the current plan are offered as helpers (`spareHelpers`), with
  * the site's walking time between two of their turnovers.
  */
-export async function proposeFit(db: Knex, pool: DayFitPool, day: string): Promise<DayFitAnswer> {
+export async function proposeFit(db: Knex, pool: DayFitPool, day: string, now: Date): Promise<DayFitAnswer> {
   const versions = await planVersions(db, day);
   const version = versions.day;
-  const [input, fixed, plan] = await Promise.all([loadDayPlanInput(db, day), fixedExams(db, day), loadDayPlan(db, day)]);
+  const [input, fixed, plan] = await Promise.all([loadDayPlanInput(db, day), fixedExams(db, day, now), loadDayPlan(db, day)]);
   const options = {
     fixed: Object.fromEntries(fixed),
+    notBefore: now.getTime(),
     helpers: plan.people ? spareHelpers(plan.people) : [],
     walkingMinutes: plan.people?.walkingMinutes ?? 0,
   };
-  const proposal = await pool.propose(`${day}@${versions.day}/${versions.setup}`, { input, options });
+  // The minute is part of the key: a proposal asked for a minute later may start no earlier.
+  const minute = Math.floor(now.getTime() / 60_000);
+  const proposal = await pool.propose(`${day}@${versions.day}/${versions.setup}@${minute}`, { input, options });
   const accession = new Map(input.exams.map((e) => [e.id, e.accession]));
   return {
     ...proposal,
@@ -71,7 +77,7 @@ export async function applyFit(db: Knex, day: string, body: DayFitApplyInput, us
     if (current !== body.dayVersion) {
       throw new Refusal('fit_stale', 'The day has changed since this proposal was made; nothing was applied. Make the day fit again.', { proposedVersion: body.dayVersion, currentVersion: current });
     }
-    const fixed = await fixedExams(trx, day);
+    const fixed = await fixedExams(trx, day, now);
     const ids = body.changes.map((c) => (c.type === 'move' ? c.examId : c.toExamId));
     const exams = new Map((await trx('exams').whereIn('id', ids).select('id', 'day', 'room_id')).map((e: { id: number; day: string; room_id: number }) => [e.id, e]));
     const problems: Problem[] = [];
@@ -94,6 +100,7 @@ export async function applyFit(db: Knex, day: string, body: DayFitApplyInput, us
       if (from && from.modality.toUpperCase() !== to.modality.toUpperCase()) problems.push({ field: `${field}.to.roomId`, message: `${change.accession} is a ${from.modality} exam; ${to.name} is a ${to.modality} room` });
       const start = DateTime.fromISO(change.to.start, { setZone: true }).setZone(timezone);
       if (start.toISODate() !== day) problems.push({ field: `${field}.to.start`, message: `the start is not on ${day} (site time)` });
+      else if (start.toMillis() < now.getTime()) problems.push({ field: `${field}.to.start`, message: `${change.accession} would start at ${start.toFormat('HH:mm')}, which has passed` });
     });
     if (problems.length > 0) throw new ValidationError('This proposal cannot be applied as sent.', { problems });
     await applyChanges(trx, body.changes, userId, now);

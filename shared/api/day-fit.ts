@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import type { DayFitProposal } from '../day-fit/model';
+import type { DayFitProposal, FixedReason } from '../day-fit/model';
 import { TURNOVER_STAFF } from './limits';
 
 export type { DayFitProposal, FitCall, FitExamMove, FitHelperUse, FitRemainingGap, FitSolverReport } from '../day-fit/model';
@@ -8,7 +8,7 @@ export type { DayFitProposal, FitCall, FitExamMove, FitHelperUse, FitRemainingGa
 export interface DayFitAnswer extends DayFitProposal {
   dayVersion: number;
   /** Exams that stayed put because they may not move, with why. */
-  fixed: { examId: number; accession: string; reason: 'arrived' | 'started' | 'pinned' }[];
+  fixed: { examId: number; accession: string; reason: FixedReason }[];
 }
 
 /** Most changes one proposal may carry (a 1,200-exam day moves far fewer). */

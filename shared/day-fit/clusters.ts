@@ -80,8 +80,9 @@ export function neighbourhoods(day: FitDay, group: FitGroup, seeds: ReadonlySet<
 }
 
 export function freeItem(fe: FitExam, rooms: readonly FitRoom[], from: number, to: number): ClusterItem {
-  const fits = rooms.filter((r) => Math.max(r.open, from) <= Math.min(r.close - fe.duration, to));
-  const lo = Math.max(from, Math.min(...fits.map((r) => r.open)));
+  const earliest = Math.max(from, fe.earliest);
+  const fits = rooms.filter((r) => Math.max(r.open, earliest) <= Math.min(r.close - fe.duration, to));
+  const lo = Math.max(earliest, Math.min(...fits.map((r) => r.open)));
   const hi = Math.min(to, Math.max(...fits.map((r) => r.close - fe.duration)));
   return { fe, free: true, lo, hi, rooms: fits };
 }

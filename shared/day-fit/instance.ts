@@ -21,6 +21,8 @@ export interface FitExam {
   start: number;
   duration: number;
   roomId: number;
+  /** The earliest start it may be moved to (the options' `notBefore`; -Infinity without one). */
+  earliest: number;
   /** Why it stays put (fixed by the caller, or outside its room's hours already); null: free. */
   stays: FixedReason | 'outside-hours' | 'proposed' | null;
 }
@@ -58,13 +60,14 @@ export interface FitDay {
  * @example
  * fitDay(input, {}).groups.map((g) => g.modality); // ['MR', 'CT']
  */
-export function fitDay(input: DayPlanInput, options: Pick<DayFitOptions, 'fixed'>): FitDay {
+export function fitDay(input: DayPlanInput, options: Pick<DayFitOptions, 'fixed' | 'notBefore'>): FitDay {
   const midnight = DateTime.fromISO(input.date, { zone: input.timezone });
   if (!midnight.isValid) throw new RangeError(`not a valid date and zone: ${input.date} ${input.timezone}`);
   const midnightMs = midnight.toMillis();
   const nextDate = midnight.plus({ days: 1 }).toISODate()!;
   const toMinute = (ms: number) => Math.round((ms - midnightMs) / MINUTE);
   const caches = turnoverCaches(input);
+  const earliest = options.notBefore === undefined ? -Infinity : Math.ceil((options.notBefore - midnightMs) / MINUTE);
   const groups = new Map<string, FitGroup>();
   const roomGroup = new Map<number, FitGroup>();
   for (const room of input.rooms) {
@@ -90,8 +93,8 @@ export function fitDay(input: DayPlanInput, options: Pick<DayFitOptions, 'fixed'
     const duration = exam.durationMinutes;
     const onMinute = Number.isInteger(start) && Number.isInteger(duration);
     const outside = start < fitRoom.open || start + duration > fitRoom.close;
-    const stays = options.fixed?.[exam.id] ?? (outside || !onMinute ? 'outside-hours' : null);
-    group.exams.push({ exam, start: Math.round(start), duration: Math.ceil(duration), roomId: exam.roomId, stays });
+    const stays = options.fixed?.[exam.id] ?? (start < earliest ? 'passed' : outside || !onMinute ? 'outside-hours' : null);
+    group.exams.push({ exam, start: Math.round(start), duration: Math.ceil(duration), roomId: exam.roomId, earliest, stays });
   }
   const overrides = input.staffOverrides;
   const turnover = (room: DayPlanRoom, leaving: DayPlanExam | null, arriving: DayPlanExam, staff: number) => {

@@ -6,8 +6,8 @@
 import type { PlanChange } from '../api/changes';
 import type { PlanSummary, Verdict } from '../api/plan';
 
-/** Why an exam may not move. */
-export const FIXED_REASONS = ['arrived', 'started', 'pinned'] as const;
+/** Why an exam may not move: `passed` is an exam of today whose start time has come. */
+export const FIXED_REASONS = ['arrived', 'started', 'pinned', 'passed'] as const;
 export type FixedReason = (typeof FIXED_REASONS)[number];
 
 /**
@@ -39,6 +39,12 @@ export type MipSolve = (lp: string, timeLimitSeconds: number) => MipResult;
 export interface DayFitOptions {
   /** Exams that must not move, with the reason. */
   fixed?: Readonly<Record<number, FixedReason>>;
+  /**
+   * No exam starts before this instant (ms since the epoch) unless it already did: on today, now
+   * (a patient cannot be called to a time gone by); an exam whose start is earlier stays where it
+   * is (`passed`). None by default.
+   */
+  notBefore?: number;
   /** Spare people from the roster; none by default. */
   helpers?: readonly FitHelper[];
   /** Minutes a helper needs between two turnovers (walking). Default 0. */

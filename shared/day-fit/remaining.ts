@@ -8,6 +8,7 @@ const FIXED_WORDS: Readonly<Record<string, string>> = {
   arrived: 'has arrived',
   started: 'has started',
   pinned: 'is pinned',
+  passed: 'is past its start time',
   'outside-hours': 'is outside its room’s hours',
 };
 

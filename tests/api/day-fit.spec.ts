@@ -108,6 +108,39 @@ describe('make the day fit (API, real database)', () => {
     expect([places(after), staffing(after)]).toEqual([places(before), staffing(before)]);
   }, 120_000);
 
+  it('made to fit during the day, moves nobody to a time gone by and keeps an exam already due (invented example)', async () => {
+    const day = '2027-03-15';
+    // MR 1 (one person): NX-2 starts 10 min after NX-1 ends; a plain turnover needs 20 min with one person.
+    const row = (acc: string, start: string) => [acc, 'MR 1', start, '30', 'MR knee without contrast', 'knee', 'none', 'ambulatory', 'no', ''];
+    expect((await charge.upload(`/api/days/${day}/exams/import`, toCsv([EXAM_LIST_HEADER, row('NX-1', '09:00'), row('NX-2', '09:40')]), 'list.csv')).status).toBe(200);
+    try {
+      h.clock.set('2027-03-15T14:35:00Z'); // 09:35 in Chicago: NX-1 is due, NX-2 not yet
+      const proposal = (await charge.post(`/api/days/${day}/fit`)).body;
+      expect(proposal.fixed).toEqual([expect.objectContaining({ accession: 'NX-1', reason: 'passed' })]);
+      // NX-2 moves (to MR 2 at its time, or later in MR 1), never before 09:35.
+      expect(proposal.moves.map((m: { accession: string }) => m.accession)).toEqual(['NX-2']);
+      expect(Date.parse(proposal.moves[0].to.start)).toBeGreaterThanOrEqual(Date.parse('2027-03-15T09:35:00-05:00'));
+      const plan: Plan = (await charge.get(`/api/days/${day}/plan`)).body;
+      const [first, second] = plan.rooms.find((r) => r.exams.length > 0)!.exams;
+      const move = (exam: typeof first, start: string) => ({ type: 'move', examId: exam!.id, accession: 'x', from: { roomId: exam!.roomId, start: exam!.start }, to: { roomId: exam!.roomId, start } });
+      // Sent by hand: an exam already due moved, and a start gone by.
+      const refused = await charge.post(`/api/days/${day}/fit/apply`, { dayVersion: proposal.dayVersion, changes: [move(first, '2027-03-15T08:50:00-05:00'), move(second, '2027-03-15T09:30:00-05:00')] });
+      expect(refused.status).toBe(422);
+      expect(refused.body.error.details.problems).toEqual([
+        { field: 'changes.0', message: 'x may not move (passed)' },
+        { field: 'changes.0.to.start', message: 'x would start at 08:50, which has passed' },
+        { field: 'changes.1.to.start', message: 'x would start at 09:30, which has passed' },
+      ]);
+      // Ten minutes later NX-2 is due as well: the proposal made at 09:35 no longer applies.
+      h.clock.set('2027-03-15T14:45:00Z');
+      const late = await charge.post(`/api/days/${day}/fit/apply`, { dayVersion: proposal.dayVersion, changes: proposal.changes });
+      expect(late.status).toBe(422);
+      expect((await charge.get(`/api/days/${day}/plan`)).body.rooms.flatMap((r: Plan['rooms'][number]) => r.exams).map((e: { start: string }) => e.start)).toEqual([first!.start, second!.start]);
+    } finally {
+      h.clock.set('2027-03-10T11:00:00Z');
+    }
+  }, 120_000);
+
   it('refuses a bad body with 422 listing its problems, and an unknown exam with 404', async () => {
     const res = await charge.post(`/api/days/${DAY}/fit/apply`, { dayVersion: -1, changes: [] });
     expect(res.status).toBe(422);

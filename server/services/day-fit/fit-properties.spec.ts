@@ -2,6 +2,7 @@ import { proposeDayFit, type DayFitProposal, type FitHelper, type MipSolve } fro
 import { fitDay } from '../../../shared/day-fit/instance';
 import { fitWorkDay } from '../../../shared/day-fit/testing/fit-days';
 import { smallDay } from '../../../shared/day-fit/testing/small-days';
+import { computeDayPlan } from '../../../shared/turnover/day-plan';
 import { DEMO_SETUP } from '../../../shared/turnover/demo-protocols';
 import type { DayPlanInput } from '../../../shared/turnover/day-plan-input';
 import { highsSolver } from './highs-solve';
@@ -17,7 +18,7 @@ const HELPERS: FitHelper[] = [
   { id: 'r2', label: 'Technologist 1', free: [{ start: '08:00', end: '09:00' }], roomIds: [1] },
 ];
 
-function checkProperties(input: DayPlanInput, fixed: Record<number, string>, proposal: DayFitProposal, helpers: readonly FitHelper[] = []) {
+function checkProperties(input: DayPlanInput, fixed: Record<number, string>, proposal: DayFitProposal, helpers: readonly FitHelper[] = [], notBefore?: number) {
   const day = fitDay(input, {});
   const roomOf = new Map(input.rooms.map((r) => [r.id, r]));
   const hours = new Map(day.groups.flatMap((g) => g.rooms.map((r) => [r.room.id, r] as const)));
@@ -30,6 +31,10 @@ function checkProperties(input: DayPlanInput, fixed: Record<number, string>, pro
     const start = day.minuteOf(move.to.start);
     expect(start).toBeGreaterThanOrEqual(room.open); // never leaves the room's hours
     expect(start + exam.durationMinutes).toBeLessThanOrEqual(room.close);
+    if (notBefore !== undefined) {
+      expect(Date.parse(exam.start)).toBeGreaterThanOrEqual(notBefore); // an exam already due stays
+      expect(Date.parse(move.to.start)).toBeGreaterThanOrEqual(notBefore); // nobody is called to a time gone by
+    }
   }
   // No person double-booked, each within their free time and rooms.
   for (const use of proposal.helpers) {
@@ -63,6 +68,19 @@ describe('proposeDayFit properties (seeded invented days)', () => {
       checkProperties(input, fixed, proposal, HELPERS);
     }, 90_000);
   }
+  // Day 25 is one where, without the rule, the best arrangement calls a patient to a time gone by.
+  for (const seed of [4, 25]) {
+    it(`keeps them, and moves nothing before now, on a working day of 4 rooms and 24 exams, 3 min before its first problem gap (day ${seed})`, () => {
+      const { input, fixed } = fitWorkDay(seed, { rooms: 4, examsPerRoom: 6 });
+      const plan = computeDayPlan(input);
+      const startOf = new Map(input.exams.map((e) => [e.id, Date.parse(e.start)]));
+      const problems = plan.rooms.flatMap((r) => r.gaps).filter((g) => g.verdict === 'short' || g.verdict === 'overlap');
+      const now = Math.min(...problems.map((g) => startOf.get(g.toExamId)!)) - 3 * 60_000;
+      const proposal = proposeDayFit(input, solve, { fixed, timeLimitMs: 30_000, notBefore: now });
+      expect(proposal.moves.length).toBeGreaterThan(0);
+      checkProperties(input, fixed, proposal, [], now);
+    }, 90_000);
+  }
 });
 
 describe('proposeDayFit worked examples (invented examples)', () => {
@@ -86,6 +104,22 @@ describe('proposeDayFit worked examples (invented examples)', () => {
     const proposal = proposeDayFit({ ...base, rooms: [room(1), room(2)] }, solve, { fixed: { 1: 'arrived' } });
     expect(proposal.moves).toEqual([expect.objectContaining({ examId: 2, kind: 'other-room', to: { roomId: 2, start: '2027-03-16T08:40:00-05:00' }, minutesMoved: 0 })]);
     expect(proposal.calls).toEqual([]);
+  });
+
+  it('with neither fixed, moves A 10 min earlier (the day ends no later that way)', () => {
+    const proposal = proposeDayFit({ ...base, rooms: [room(1)] }, solve, {});
+    expect(proposal.calls).toEqual([expect.objectContaining({ examId: 1, toStart: '2027-03-16T07:50:00-05:00' })]);
+  });
+
+  it('at 07:55 on the day, calls nobody to a time gone by: A may start no earlier, so B goes 10 min later', () => {
+    const proposal = proposeDayFit({ ...base, rooms: [room(1)] }, solve, { notBefore: Date.parse('2027-03-16T07:55:00-05:00') });
+    expect(proposal.calls).toEqual([expect.objectContaining({ examId: 2, toStart: '2027-03-16T08:50:00-05:00' })]);
+  });
+
+  it('at 08:05, A is past its start time and stays; with B pinned, the gap is left and says why', () => {
+    const proposal = proposeDayFit({ ...base, rooms: [room(1)] }, solve, { fixed: { 2: 'pinned' }, notBefore: Date.parse('2027-03-16T08:05:00-05:00') });
+    expect(proposal.changes).toEqual([]);
+    expect(proposal.remaining).toEqual([expect.objectContaining({ toExamId: 2, reason: 'neither exam may move: EX-1 is past its start time, EX-2 is pinned' })]);
   });
 
   it('with both exams pinned and one room, leaves the gap and says why', () => {

@@ -104,6 +104,16 @@ describe('make the day fit with a roster: properties (seeded invented days)', ()
       const ownAfter = computeDayPlan(withChanges(input, ownStaff.changes)).summary;
       expect(after.summary.short + after.summary.overlap).toBeLessThanOrEqual(ownAfter.short + ownAfter.overlap);
     }, 90_000);
+
+    it(`keeps them, and calls nobody to a time gone by, made to fit at 3 min before its first gap the roster finds short (day ${seed})`, () => {
+      const { input: plain, fixed } = fitWorkDay(seed, { rooms: 4, examsPerRoom: 8 });
+      const input: DayPlanInput = { ...plain, roster: thinRoster() };
+      const startOf = new Map(input.exams.map((e) => [e.id, Date.parse(e.start)]));
+      const problems = computeDayPlan(input).rooms.flatMap((r) => r.gaps).filter((g) => g.verdict === 'short' || g.verdict === 'overlap');
+      const now = Math.min(...problems.map((g) => startOf.get(g.toExamId)!)) - 3 * 60_000;
+      const proposal = proposeDayFit(input, solve, { fixed, walkingMinutes: 3, timeLimitMs: 30_000, notBefore: now });
+      expectKeepsTheRules(input, fixed, proposal, now);
+    }, 90_000);
   }
 
   // Denser invented days (12 exams a room, the same thin roster) where the rounds leave gaps: the
@@ -135,17 +145,20 @@ function thinRoster(): NonNullable<DayPlanInput['roster']> {
 }
 
 /**
- * A roster proposal keeps the rules: fixed exams stay, moves stay within the modality and the
+ * A roster proposal keeps the rules: fixed exams (and, made to fit at `notBefore`, those already
+ * due) stay, no move starts before `notBefore`, moves stay within the modality and the
  * room's hours, and once applied each person is in one place at a time (walking between rooms),
  * within shift and off breaks; its after is the roster's judgement, each gap left has a reason, and
  * the day is never worse. Answers the day plan after.
  */
-function expectKeepsTheRules(input: DayPlanInput, fixed: Record<number, string>, proposal: DayFitProposal): DayPlan {
+function expectKeepsTheRules(input: DayPlanInput, fixed: Record<number, string>, proposal: DayFitProposal, notBefore = -Infinity): DayPlan {
   const minute = (iso: string) => Date.parse(iso) / 60_000;
   const rooms = new Map(input.rooms.map((r) => [r.id, r]));
   const examOf = new Map(input.exams.map((e) => [e.id, e]));
   for (const move of proposal.moves) {
     expect(fixed[move.examId]).toBeUndefined();
+    expect(Date.parse(examOf.get(move.examId)!.start)).toBeGreaterThanOrEqual(notBefore); // an exam already due stays
+    expect(Date.parse(move.to.start)).toBeGreaterThanOrEqual(notBefore); // nobody is called to a time gone by
     const to = rooms.get(move.to.roomId)!;
     expect(to.modality).toBe(rooms.get(examOf.get(move.examId)!.roomId)!.modality);
     const start = move.to.start.slice(11, 16);

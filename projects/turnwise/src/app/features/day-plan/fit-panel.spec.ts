@@ -48,6 +48,12 @@ describe('FitPanel', () => {
     expect(text()).toContain('Best possible (whole day)');
   });
 
+  it('counts the exams past their start time first among those that may not move', async () => {
+    const passed = [1, 2, 3].map((n) => ({ examId: 20 + n, accession: `FX-2${n}`, reason: 'passed' as const }));
+    const { text } = await render({ ...PROPOSAL, fixed: [...PROPOSAL.fixed, ...passed] });
+    expect(text()).toContain('May not move: 3 past their start time; FX-8 arrived; FX-9 pinned.');
+  });
+
   it('emits applied and discarded from its buttons', async () => {
     const { fixture, host } = await render();
     const applied = jest.fn();

@@ -9,6 +9,14 @@ import { verdictWords } from './gap-view';
 /** `HH:MM` of an ISO time written with the site's offset (as the server writes every time). */
 const clock = (iso: string) => iso.slice(11, 16);
 
+/** Why an exam stays put, in the panel's words. */
+const FIXED_WORDS: Readonly<Record<DayFitAnswer['fixed'][number]['reason'], string>> = {
+  passed: 'past their start time',
+  started: 'started',
+  arrived: 'arrived',
+  pinned: 'pinned',
+};
+
 /**
  * The proposal beside the timeline: what it changes, the patients to call, what stays unsolved
  * and why, and Apply or Discard. The timeline shows the same proposal (old places ghosted).
@@ -132,13 +140,13 @@ export class FitPanel {
   /** By reason, short enough for a busy afternoon ("12 started, 2 arrived, FX-9 pinned"); every accession in the title. */
   protected readonly fixedWords = computed(() => {
     const fixed = this.proposal().fixed;
-    return (['started', 'arrived', 'pinned'] as const)
+    return (['passed', 'started', 'arrived', 'pinned'] as const)
       .map((reason) => fixed.filter((f) => f.reason === reason))
       .filter((list) => list.length > 0)
-      .map((list) => (list.length <= 2 ? `${list.map((f) => f.accession).join(', ')} ${list[0]!.reason}` : `${list.length} ${list[0]!.reason}`))
+      .map((list) => (list.length <= 2 ? `${list.map((f) => f.accession).join(', ')} ${FIXED_WORDS[list[0]!.reason]}` : `${list.length} ${FIXED_WORDS[list[0]!.reason]}`))
       .join('; ');
   });
-  protected readonly fixedList = computed(() => this.proposal().fixed.map((f) => `${f.accession} (${f.reason})`).join(', '));
+  protected readonly fixedList = computed(() => this.proposal().fixed.map((f) => `${f.accession} (${FIXED_WORDS[f.reason]})`).join(', '));
 
   protected readonly verdictWords = verdictWords;
 
