@@ -48,6 +48,13 @@ describe('FitPanel', () => {
     expect(text()).toContain('Best possible (whole day)');
   });
 
+  it('says "short by" once when the reason left for people already opens with it', async () => {
+    const remaining = [{ fromExamId: 8, toExamId: 9, accession: 'FX-9', roomId: 3, verdict: 'short' as const, shortByMinutes: 8, reason: 'Short by 8 min: Aide 1 is in MR 2 until 09:11' }];
+    const { text } = await render({ ...PROPOSAL, remaining });
+    expect(text()).toContain('FX-9 in MR 3: Short by 8 min: Aide 1 is in MR 2 until 09:11');
+    expect(text()).not.toContain('short by 8 min — Short by 8 min');
+  });
+
   it('counts the exams past their start time first among those that may not move', async () => {
     const passed = [1, 2, 3].map((n) => ({ examId: 20 + n, accession: `FX-2${n}`, reason: 'passed' as const }));
     const { text } = await render({ ...PROPOSAL, fixed: [...PROPOSAL.fixed, ...passed] });

@@ -75,7 +75,7 @@ const FIXED_WORDS: Readonly<Record<DayFitAnswer['fixed'][number]['reason'], stri
       <h3 class="unsolved">Still short or overlapping <span class="count">{{ p.remaining.length }}</span></h3>
       <ul class="remaining">
         @for (gap of p.remaining; track gap.toExamId) {
-          <li><span class="accession">{{ gap.accession }}</span> in {{ roomName(gap.roomId) }}: {{ verdictWords(gap) }} — {{ gap.reason }}</li>
+          <li><span class="accession">{{ gap.accession }}</span> in {{ roomName(gap.roomId) }}: {{ leftWords(gap) }}</li>
         }
       </ul>
     }
@@ -148,7 +148,11 @@ export class FitPanel {
   });
   protected readonly fixedList = computed(() => this.proposal().fixed.map((f) => `${f.accession} (${FIXED_WORDS[f.reason]})`).join(', '));
 
-  protected readonly verdictWords = verdictWords;
+  /** A gap left: its verdict and why, without saying "short by" twice when the people's words already open with it. */
+  protected leftWords(gap: DayFitAnswer['remaining'][number]): string {
+    if (gap.reason.startsWith(`Short by ${gap.shortByMinutes} min`)) return gap.verdict === 'overlap' ? `overlap — ${gap.reason}` : gap.reason;
+    return `${verdictWords(gap)} — ${gap.reason}`;
+  }
 
   protected roomName(id: number): string {
     return this.rooms().find((r) => r.id === id)?.name ?? `room ${id}`;
