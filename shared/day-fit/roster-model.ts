@@ -28,6 +28,11 @@ export interface RosterModelOptions {
    * they only end where the next exam's turnover starts. Their people's work is in `breaks`.
    */
   noJob?: ReadonlySet<number>;
+  /**
+   * Every crew starts by this minute (a window of the day: its people's breaks and other work
+   * after it cannot matter). None by default: any time the people are on shift.
+   */
+  crewBy?: number;
 }
 
 /**
@@ -146,7 +151,7 @@ export function rosterModel(day: FitDay, rooms: readonly FitRoom[], items: reado
 
   items.forEach((it, k) => {
     lp.variable(F(k), 'continuous', lo, hi);
-    lp.variable(c(k), 'continuous', lo, H);
+    lp.variable(c(k), 'continuous', lo, Math.min(H, options.crewBy ?? H));
     lp.variable(R(k), 'continuous', 0, maxReq);
     lp.variable(B(k), 'continuous', 0, maxBusy);
     if (options.noJob?.has(k)) {

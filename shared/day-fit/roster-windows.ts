@@ -19,6 +19,8 @@ const AFTER = 20;
 /** Minutes a free exam of a window may move, and how many of them a window frees. */
 const SHIFT = 30;
 const MOST_FREE = 3;
+/** Minutes after a window's last exam its crews must have started by (and their hands-on minutes fit in). */
+const CREW_SLACK = 60;
 /** Longest one window's solve may take. */
 const MAX_SOLVE_SECONDS = 1;
 
@@ -81,6 +83,7 @@ export function improveInWindows(
       roomCount: input.rooms.length,
       helpers: options.helpersFromRoster ?? true,
       noJob: window.noJob,
+      crewBy: window.crewBy,
     });
     const solved = solveLevels(model, solve, tally, Math.min(deadline, now() + MAX_SOLVE_SECONDS * 1000), now, MAX_SOLVE_SECONDS);
     if (!solved) continue;
@@ -105,7 +108,7 @@ export function improveInWindows(
   }
   return { arrangement, plan, kept };
 
-  function windowAround(examId: number, otherRooms: boolean): { rooms: FitRoom[]; items: ClusterItem[]; people: ModelPerson[]; noJob: Set<number> } | null {
+  function windowAround(examId: number, otherRooms: boolean): { rooms: FitRoom[]; items: ClusterItem[]; people: ModelPerson[]; noJob: Set<number>; crewBy: number } | null {
     const fe = original.get(examId);
     if (!fe) return null;
     const here = placeOf(fe);
@@ -148,15 +151,21 @@ export function improveInWindows(
     }
     if (!items.some((it) => it.free)) return null;
     const jobs = new Set(items.filter((_, k) => !noJob.has(k)).map((it) => it.fe.exam.id));
-    // Everyone who covers a room of the window, held elsewhere by the work the roster gives them now.
+    // Everyone who covers a room of the window, held elsewhere by the work the roster gives them
+    // now. A crew starts no earlier than the window's first exam ends and, here, no later than
+    // CREW_SLACK minutes after its last one: breaks and work outside that span cannot matter.
     const walk = roster.walkingMinutes;
     const crew = roster.people.filter((p) => rooms.some((r) => p.roomIds.includes(r.room.id)));
     const work = new Map((plan.people?.people ?? []).map((p) => [p.id, p.work]));
     const clock = (hhmm: string) => Math.round((wallTimeToMillis(input.date, hhmm, input.timezone) - day.midnightMs) / 60_000);
+    const spanFrom = Math.min(...items.map((it) => it.lo));
+    const crewBy = Math.max(...items.map((it) => it.hi + it.fe.duration)) + CREW_SLACK;
+    const matters = (b: { start: number; end: number }) => b.end > spanFrom && b.start < crewBy + CREW_SLACK;
     return {
       rooms,
       items,
       noJob,
+      crewBy,
       people: crew.map((p) => ({
         id: p.id,
         label: p.label,
@@ -166,7 +175,7 @@ export function improveInWindows(
         breaks: [
           ...p.breaks.map((b) => ({ start: clock(b.start), end: clock(b.end) })),
           ...(work.get(p.id) ?? []).filter((w) => !jobs.has(w.toExamId)).map((w) => ({ start: minute(w.start) - walk, end: minute(w.end) + walk })),
-        ],
+        ].filter(matters),
       })),
     };
   }
