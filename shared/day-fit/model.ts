@@ -155,6 +155,8 @@ export interface FitSolverReport {
   rosterRounds?: number;
   /** Windows after the rounds, solved with the roster's people, that made the day better (`improveInWindows`). */
   rosterWindows?: number;
+  /** Pushes of exams along their room after the rounds that made the day better (`pushAlongRooms`). */
+  rosterPushes?: number;
 }
 
 export interface DayFitProposal {

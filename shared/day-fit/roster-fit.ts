@@ -8,6 +8,7 @@ import { fitProposal } from './fit-proposal';
 import { fitDay } from './instance';
 import { proposeExactWithRoster } from './roster-exact';
 import { dayEnd, problemsOf, remainingWithPeople } from './roster-judge';
+import { pushAlongRooms } from './roster-push';
 import { arrangementOf, helperUses, improveInWindows } from './roster-windows';
 import { solverReport, type SolveTally } from './solver-report';
 
@@ -16,6 +17,9 @@ const ROSTER_ROUNDS = 3;
 
 /** The first round's share of the time: it does most of the work; later rounds only follow crews. */
 const FIRST_ROUND_SHARE = 0.6;
+
+/** The rounds' share of the whole budget at most: the rest is kept for the pushes and windows after them. */
+const ROUNDS_SHARE = 0.5;
 
 /** Neighbourhood reaches a later round tries (the own room, then a block of rooms, 30 min). */
 const LATER_ROUND_REACHES = 2;
@@ -60,8 +64,9 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
   const problems = new Set(problemsOf(beforePlan));
   const tally: SolveTally = { solves: 0, clusters: 0, mipGap: 0, timeLimited: false, neighbourhood: false };
   let rounds = 0;
+  const roundsDeadline = started + (deadline - started) * ROUNDS_SHARE;
   for (let round = 0; round < ROSTER_ROUNDS; round++) {
-    const left = deadline - now();
+    const left = roundsDeadline - now();
     if (round > 0 && left <= 100) break;
     const share = round === 0 ? FIRST_ROUND_SHARE : 1 / (ROSTER_ROUNDS - round);
     const capped = { ...ownStaff, staffOverrides: { ...input.staffOverrides, ...Object.fromEntries(caps) } };
@@ -87,22 +92,37 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
     if (!best || lexicallyLess(score, best.score)) best = { proposal: { ...proposal, changes }, plan, score };
     if (score[0] === 0 || !followCrews(caps, crewFrom, plan)) break;
   }
-  // What the rounds leave, the exact roster model takes on window by window.
+  // What the rounds leave: pushed along its room, then window by window with the exact roster
+  // model, then pushed again; each step kept only when the roster finds the whole day better.
   let windows = 0;
-  if (best!.score[0]! > 0 && (options.rosterWindows ?? true) && deadline - now() > 200) {
+  let pushes = 0;
+  if (best!.score[0]! > 0 && deadline - now() > 200) {
     const day = fitDay(input, options);
-    const improved = improveInWindows(day, arrangementOf(day, best!.proposal.changes), best!.plan, solve, options, deadline, tally);
-    windows = improved.kept;
-    if (improved.kept > 0) {
-      const proposal = fitProposal(day, improved.arrangement.places, helperUses(day, improved.arrangement, improved.plan), beforePlan.summary, tally, 0, false);
-      best = { proposal, plan: improved.plan, score: [] };
+    let arrangement = arrangementOf(day, best!.proposal.changes);
+    let plan = best!.plan;
+    const push = () => {
+      const pushed = pushAlongRooms(day, arrangement, plan, options, deadline);
+      ({ arrangement, plan } = pushed);
+      pushes += pushed.kept;
+    };
+    push();
+    if (problemsOf(plan).length > 0 && (options.rosterWindows ?? true) && deadline - now() > 200) {
+      const improved = improveInWindows(day, arrangement, plan, solve, options, deadline, tally);
+      ({ arrangement, plan } = improved);
+      windows = improved.kept;
+      if (windows > 0 && problemsOf(plan).length > 0) push();
+    }
+    if (windows + pushes > 0) {
+      const proposal = fitProposal(day, arrangement.places, helperUses(day, arrangement, plan), beforePlan.summary, tally, 0, false);
+      best = { proposal, plan, score: [] };
     }
   }
   const { proposal, plan } = best!;
   const stays = new Map(Object.entries(options.fixed ?? {}).map(([id, why]) => [Number(id), why]));
-  const tried = `short with the roster’s crews; ${rounds} round${rounds === 1 ? '' : 's'} of planning with them${windows > 0 ? ', then a window around it with the roster’s people,' : ''} did not clear it`;
-  // After windows the own-staff reasons of the rebuilt proposal say nothing of the roster: only the people's side and the fixed exams.
-  const remaining = remainingWithPeople(input, plan, windows > 0 ? [] : proposal.remaining, stays, tried);
+  const after = [windows > 0 ? 'windows around it with the roster’s people' : '', pushes > 0 ? 'pushes along its room' : ''].filter(Boolean).join(' and ');
+  const tried = `short with the roster’s crews; ${rounds} round${rounds === 1 ? '' : 's'} of planning with them${after ? `, then ${after},` : ''} did not clear it`;
+  // After windows or pushes the own-staff reasons of the rebuilt proposal say nothing of the roster: only the people's side and the fixed exams.
+  const remaining = remainingWithPeople(input, plan, windows + pushes > 0 ? [] : proposal.remaining, stays, tried);
   const nothingToDo = beforePlan.summary.short + beforePlan.summary.overlap === 0;
   return {
     ...proposal,
@@ -110,7 +130,13 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
     objective: { ...proposal.objective, gapsLeft: remaining.length },
     before: beforePlan.summary,
     after: plan.summary,
-    solver: { ...solverReport(tally, nothingToDo, now() - started), roster: 'rounds', rosterRounds: rounds, ...(windows > 0 ? { rosterWindows: windows } : {}) },
+    solver: {
+      ...solverReport(tally, nothingToDo, now() - started),
+      roster: 'rounds',
+      rosterRounds: rounds,
+      ...(windows > 0 ? { rosterWindows: windows } : {}),
+      ...(pushes > 0 ? { rosterPushes: pushes } : {}),
+    },
   };
 }
 

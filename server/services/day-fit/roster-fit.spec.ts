@@ -116,6 +116,19 @@ describe('make the day fit with a roster: properties (seeded invented days)', ()
     }, 90_000);
   }
 
+  // A denser invented day (12 exams a room, the same thin roster) where the rounds leave gaps:
+  // the pushes along rooms after them (windows off, to see the pushes alone).
+  it('pushes along rooms what the rounds leave, keeping only what clears gaps (day 2, 4 rooms × 12 exams)', () => {
+    const { input: plain, fixed } = fitWorkDay(2, { rooms: 4, examsPerRoom: 12 });
+    const input: DayPlanInput = { ...plain, roster: thinRoster() };
+    let tick = 0;
+    const proposal = proposeDayFit(input, solve, { fixed, walkingMinutes: 3, timeLimitMs: 60_000, now: () => (tick += 1), rosterWindows: false });
+    expect(proposal.solver.rosterPushes).toBeGreaterThan(0);
+    const after = expectKeepsTheRules(input, fixed, proposal);
+    // On this day: 21 problem gaps before, 5 left (the rounds alone leave 19).
+    expect(after.summary.short + after.summary.overlap).toBeLessThan(proposal.before.short + proposal.before.overlap);
+  }, 120_000);
+
   // Denser invented days (12 exams a room, the same thin roster) where the rounds leave gaps: the
   // windows after them. A clock that moves 1 ms a call makes every window run, whatever the load.
   for (const seed of [3]) {

@@ -104,6 +104,11 @@ describe('FitPanel', () => {
     expect(text()).toContain("Best found in 3 rounds and 2 windows with the roster's crews (not proven the best possible)");
   });
 
+  it('counts the pushes and windows kept after the rounds', async () => {
+    const { text } = await render({ ...PROPOSAL, solver: { ...PROPOSAL.solver, roster: 'rounds', rosterRounds: 2, rosterPushes: 6, rosterWindows: 1 } }, true);
+    expect(text()).toContain("Best found in 2 rounds, 6 pushes along rooms and 1 window with the roster's crews (not proven the best possible)");
+  });
+
   it('on a small roster day solved with its people in the model, says it is the best possible and who works what was planned', async () => {
     const { text } = await render({ ...PROPOSAL, solver: { ...PROPOSAL.solver, roster: 'exact' } }, true);
     expect(text()).toContain("Best possible with the roster's people");

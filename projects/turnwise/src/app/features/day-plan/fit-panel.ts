@@ -129,8 +129,10 @@ export class FitPanel {
     const took = `found in ${(solver.milliseconds / 1000).toFixed(1)} s`;
     if (solver.roster === 'exact' && solver.status === 'optimal') return `Best possible with the roster's people (whole day, who works each turnover included); ${took}.`;
     if (solver.rosterRounds !== undefined && solver.status === 'optimal') {
-      const windows = solver.rosterWindows ? ` and ${solver.rosterWindows} window${solver.rosterWindows === 1 ? '' : 's'}` : '';
-      return `Best found in ${solver.rosterRounds} round${solver.rosterRounds === 1 ? '' : 's'}${windows} with the roster's crews (not proven the best possible); ${took}.`;
+      const count = (n: number | undefined, one: string, more: string) => (n ? [`${n} ${n === 1 ? one : more}`] : []);
+      const steps = [...count(solver.rosterRounds, 'round', 'rounds'), ...count(solver.rosterPushes, 'push along a room', 'pushes along rooms'), ...count(solver.rosterWindows, 'window', 'windows')];
+      const words = steps.length > 1 ? `${steps.slice(0, -1).join(', ')} and ${steps.at(-1)}` : steps.join('');
+      return `Best found in ${words} with the roster's crews (not proven the best possible); ${took}.`;
     }
     if (solver.status === 'optimal' && solver.scope === 'whole') return `Best possible (whole day); ${took}.`;
     if (solver.status === 'optimal') return `Best within reach of each problem gap (a day this size is not searched whole); ${took}.`;
