@@ -60,12 +60,13 @@ export async function benchDayFit(): Promise<string[]> {
     const ms = performance.now() - t0;
     lines.push(
       `day fit, ${name} (${people.length} people, ${p.before.short + p.before.overlap} problem gaps with the roster): ${ms.toFixed(0)} ms (target < ${target} ms) — ` +
-        `${p.solver.status}, ${p.solver.rosterRounds} rounds, ${p.solver.solves} solves; ${p.objective.examsMoved} moved, ${p.objective.minutesMoved} min, ${p.remaining.length} gaps left (planned in rounds: not proven optimal)`,
+        `${p.solver.status}, ${p.solver.rosterRounds} rounds, ${p.solver.rosterPushes ?? 0} pushes along rooms, ${p.solver.rosterWindows ?? 0} windows, ${p.solver.solves} solves; ` +
+        `${p.objective.examsMoved} moved, ${p.objective.minutesMoved} min, ${p.remaining.length} gaps left (planned in rounds: not proven optimal)`,
     );
   }
   // Small invented roster days against brute force with the roster's crews (a quality figure,
-  // not a time): the exact model (its people in the MIP) and, for comparison, the rounds that
-  // plan a larger day. No helpers, as the brute force tries none.
+  // not a time): the exact model (its people in the MIP) and, for comparison, the rounds (with
+  // their pushes and windows) that plan a larger day. No helpers, as the brute force tries none.
   const days = 60;
   for (const [way, rosterExactLimit] of [['exact', undefined], ['in rounds', 0]] as const) {
     let equal = 0;
