@@ -104,6 +104,12 @@ describe('FitPanel', () => {
     expect(text()).toContain("Best found in 3 rounds and 2 windows with the roster's crews (not proven the best possible)");
   });
 
+  it('says a roster day planned in rounds was cut by the time limit, without a window’s optimality gap', async () => {
+    const { text } = await render({ ...PROPOSAL, solver: { ...PROPOSAL.solver, status: 'time-limit', mipGap: 0.99, roster: 'rounds', rosterRounds: 2, rosterPushes: 1 } }, true);
+    expect(text()).toContain("Best found in 2 rounds and 1 push along a room within the time limit with the roster's crews (not proven the best possible)");
+    expect(text()).not.toContain('99 %');
+  });
+
   it('counts the pushes and windows kept after the rounds', async () => {
     const { text } = await render({ ...PROPOSAL, solver: { ...PROPOSAL.solver, roster: 'rounds', rosterRounds: 2, rosterPushes: 6, rosterWindows: 1 } }, true);
     expect(text()).toContain("Best found in 2 rounds, 6 pushes along rooms and 1 window with the roster's crews (not proven the best possible)");

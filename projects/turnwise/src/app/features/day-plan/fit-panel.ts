@@ -128,11 +128,13 @@ export class FitPanel {
     const scope = solver.scope === 'whole' ? 'whole day' : 'around each problem gap';
     const took = `found in ${(solver.milliseconds / 1000).toFixed(1)} s`;
     if (solver.roster === 'exact' && solver.status === 'optimal') return `Best possible with the roster's people (whole day, who works each turnover included); ${took}.`;
-    if (solver.rosterRounds !== undefined && solver.status === 'optimal') {
+    // Planned in rounds, never proven the best: a window's optimality gap says nothing of the day's.
+    if (solver.rosterRounds !== undefined) {
       const count = (n: number | undefined, one: string, more: string) => (n ? [`${n} ${n === 1 ? one : more}`] : []);
       const steps = [...count(solver.rosterRounds, 'round', 'rounds'), ...count(solver.rosterPushes, 'push along a room', 'pushes along rooms'), ...count(solver.rosterWindows, 'window', 'windows')];
       const words = steps.length > 1 ? `${steps.slice(0, -1).join(', ')} and ${steps.at(-1)}` : steps.join('');
-      return `Best found in ${words} with the roster's crews (not proven the best possible); ${took}.`;
+      const limited = solver.status === 'time-limit' ? ' within the time limit' : '';
+      return `Best found in ${words}${limited} with the roster's crews (not proven the best possible); ${took}.`;
     }
     if (solver.status === 'optimal' && solver.scope === 'whole') return `Best possible (whole day); ${took}.`;
     if (solver.status === 'optimal') return `Best within reach of each problem gap (a day this size is not searched whole); ${took}.`;
