@@ -7,7 +7,7 @@ import type { DayFitOptions, DayFitProposal, MipSolve } from './model';
 import { fitProposal } from './fit-proposal';
 import { fitDay } from './instance';
 import { proposeExactWithRoster } from './roster-exact';
-import { dayEnd, problemsOf, remainingWithPeople } from './roster-judge';
+import { dayEnd, lexicallyLess, problemsOf, remainingWithPeople } from './roster-judge';
 import { pushAlongRooms } from './roster-push';
 import { arrangementOf, helperUses, improveInWindows } from './roster-windows';
 import { solverReport, type SolveTally } from './solver-report';
@@ -168,9 +168,4 @@ function followCrews(caps: Map<number, number>, crewFrom: Map<number, Map<number
     }
   }
   return changed;
-}
-
-function lexicallyLess(a: readonly number[], b: readonly number[]): boolean {
-  for (let k = 0; k < a.length; k++) if (a[k] !== b[k]) return a[k]! < b[k]!;
-  return false;
 }

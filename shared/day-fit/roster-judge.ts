@@ -38,3 +38,8 @@ export function dayEnd(plan: DayPlan): number {
   return Math.max(0, ...plan.rooms.flatMap((room) => room.exams.map((exam) => Date.parse(exam.end))));
 }
 
+/** Whether score `a` comes before `b`, level by level (the first level that differs decides). */
+export function lexicallyLess(a: readonly number[], b: readonly number[]): boolean {
+  for (let k = 0; k < a.length; k++) if (a[k] !== b[k]) return a[k]! < b[k]!;
+  return false;
+}

@@ -4,6 +4,7 @@ import type { DayPlanInput } from '../turnover/day-plan-input';
 import type { DayPlan, PlanSummary } from '../turnover/day-plan-types';
 import type { FitDay, FitExam, FitRoom } from './instance';
 import type { DayFitOptions } from './model';
+import { lexicallyLess } from './roster-judge';
 import { changesOf, type RosterArrangement } from './roster-windows';
 
 /** Passes over the gaps left at most (each pass tries every gap once). */
@@ -58,7 +59,7 @@ export function pushAlongRooms(
         const candidate = { places, staffing: arrangement.staffing };
         const judged = judgePart(plan, withChanges(day.input, changesOf(day, candidate)), partOf.get(roomId)!);
         const score = [problemCount(judged.summary), ...moved(candidate), judged.summary.minutesShort];
-        if (!best || less(score, best.score)) best = { arrangement: candidate, plan: judged, score };
+        if (!best || lexicallyLess(score, best.score)) best = { arrangement: candidate, plan: judged, score };
       }
       if (best && problemCount(best.plan.summary) < problemCount(plan.summary)) {
         ({ arrangement, plan } = best);
@@ -149,8 +150,3 @@ function problemGaps(plan: DayPlan): { roomId: number; toExamId: number; at: num
 }
 
 const problemCount = (summary: PlanSummary) => summary.short + summary.overlap;
-
-function less(a: readonly number[], b: readonly number[]): boolean {
-  for (let k = 0; k < a.length; k++) if (a[k] !== b[k]) return a[k]! < b[k]!;
-  return false;
-}
