@@ -37,8 +37,11 @@ type Propose = (input: DayPlanInput, solve: MipSolve, options: DayFitOptions) =>
  * that room, only raised: every turnover into the exam there starts no earlier); the gaps the
  * roster finds short are the problems to clear; the proposal is judged with the roster's crews
  * and the caps and crew times follow that judgement, until they stop changing (at most 3
- * rounds). The round with the fewest gaps left by the roster's judgement (then fewest exams
- * moved, minutes, the earliest end) is the proposal; its before, after and gaps left are the
+ * rounds, in half the budget). The round with the fewest gaps left by the roster's judgement
+ * (then fewest exams moved, minutes, the earliest end) is taken; what it leaves is pushed along
+ * its room (`pushAlongRooms`), tried window by window with the exact roster model
+ * (`improveInWindows`) and pushed again, each step kept only when the roster finds fewer problem
+ * gaps. That is the proposal; its before, after and gaps left are the
  * roster's, and a gap left for people says why in the gap panel's words ("Short by 6 min:
  * Aide 1 is in MR 2 until 10:12"), beside the solver's reason when it has one. The rounds are a
  * heuristic around the exact MIP: there the crews are not variables of the model, so such a
