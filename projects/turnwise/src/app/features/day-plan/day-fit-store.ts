@@ -1,6 +1,7 @@
 import { Injectable, computed, effect, inject, signal } from '@angular/core';
 
 import type { DayFitAnswer } from '@shared/api/day-fit';
+import type { ApiError, Problem } from '@shared/api/errors';
 import { action } from '../../core/state/action';
 import { DayFitService } from './day-fit-service';
 import { DayPlanStore } from './day-plan-store';
@@ -49,9 +50,9 @@ export class DayFitStore {
     if (!proposal) return;
     const result = await this.applying.run(proposal.date, proposal);
     if (result.status === 'failed') {
-      this.plan.tell({ tone: 'error', text: result.error.message });
-      // The day moved on (fit_stale) or an exam changed since: the proposal is no good any more.
-      if (result.error.status === 409) {
+      this.plan.tell({ tone: 'error', text: applyRefusalWords(result.error) });
+      // The day moved on (fit_stale), an exam changed or time passed since: the proposal is no good any more.
+      if (result.error.status === 409 || result.error.status === 422) {
         this.proposal.set(null);
         this.plan.reload();
       }
@@ -64,4 +65,19 @@ export class DayFitStore {
   discard(): void {
     this.proposal.set(null);
   }
+}
+
+/**
+ * Why a proposal was not applied, in words to act on: a 422 names its first problems (an exam
+ * already due, a start that has passed since the proposal was made) and asks for a new one.
+ *
+ * @example
+ * applyRefusalWords(refusal); // 'This proposal cannot be applied as sent: PU-2 would start at 09:40, which has passed. Make the day fit again.'
+ */
+export function applyRefusalWords(error: ApiError): string {
+  const problems = (error.details as { problems?: Problem[] } | undefined)?.problems ?? [];
+  if (error.status !== 422 || problems.length === 0) return error.message;
+  const shown = problems.slice(0, 2).map((p) => p.message);
+  const more = problems.length > shown.length ? ` and ${problems.length - shown.length} more` : '';
+  return `${error.message.replace(/\.$/, '')}: ${shown.join('; ')}${more}. Make the day fit again.`;
 }
