@@ -74,6 +74,13 @@ describe('the exam dialog: add, edit and cancel from the timeline', { timeout: 1
         await field(page, 'Start').fill('07:45');
         await dialog(page).getByRole('button', { name: 'Save exam' }).click();
         await dialog(page).waitFor({ state: 'detached' });
+        // The stored start first, then the block showing it: a failure says which side lagged.
+        let saved = '';
+        for (let i = 0; i < 75 && !saved.includes('T07:45'); i++) {
+          saved = String((await stored(day, `${prefix}-1`)).start_at);
+          if (!saved.includes('T07:45')) await page.waitForTimeout(200);
+        }
+        assert.match(saved, /T07:45/, 'the edited start is stored');
         await page.locator(`.tw-exam-block[aria-label*=", ${prefix}-1, "][aria-label*="07:45"]`).waitFor();
         assert.match(String((await stored(day, `${prefix}-1`)).procedure), /with contrast/);
 
