@@ -47,8 +47,8 @@ export function dayChangeRoutes(deps: { db: Knex; clock: Clock; events: DayEvent
   router.get('/:date/fixes', requireUser, async (req, res) => {
     const day = parseDay(req.params['date']);
     const query = parseInput(fixesQuerySchema, req.query, 'query');
-    if (query.gap !== undefined) res.json({ fixes: await gapFixes(deps.db, deps.fixesPool, day, query.gap) });
-    else res.type('json').send(await dayFixesPage(deps.db, deps.fixesPool, day, query));
+    if (query.gap !== undefined) res.json({ fixes: await gapFixes(deps.db, deps.fixesPool, day, query.gap, deps.clock.now()) });
+    else res.type('json').send(await dayFixesPage(deps.db, deps.fixesPool, day, query, deps.clock.now()));
   });
 
   router.post('/:date/fixes/apply', requireRole('charge'), async (req, res) => {

@@ -2,17 +2,19 @@
  * Suggested fixes, as worker-thread tasks (`fixes-worker.cjs` loads this file): a day's fixes
  * grow with its rooms, so they are weighed off the event loop. Plain data in and out.
  */
-import { suggestFixes, suggestGapFixes, type Fix } from '../../shared/fixes';
+import { suggestFixes, suggestGapFixes, type Fix, type FixBounds } from '../../shared/fixes';
 import type { DayPlanInput } from '../../shared/turnover';
 
 export interface FixesPageTask {
   input: DayPlanInput;
+  bounds: FixBounds;
   after?: number;
   limit?: number;
 }
 
 export interface GapFixesTask {
   input: DayPlanInput;
+  bounds: FixBounds;
   toExamId: number;
 }
 
@@ -24,8 +26,8 @@ export interface GapFixesTask {
  * @example
  * fixesPageTask({ input, limit: 20 }); // '{"fixes":[…],"gaps":[4,9],"problemGaps":2,"next":null}'
  */
-export function fixesPageTask({ input, after, limit }: FixesPageTask): string | null {
-  const page = suggestFixes(input, { after, limit });
+export function fixesPageTask({ input, bounds, after, limit }: FixesPageTask): string | null {
+  const page = suggestFixes(input, { ...bounds, after, limit });
   return page && JSON.stringify(page);
 }
 
@@ -36,6 +38,6 @@ export function fixesPageTask({ input, after, limit }: FixesPageTask): string | 
  * @example
  * gapFixesTask({ input, toExamId: 12 }); // [{ id: 'push-later:12', … }]
  */
-export function gapFixesTask({ input, toExamId }: GapFixesTask): Fix[] | null {
-  return suggestGapFixes(input, toExamId);
+export function gapFixesTask({ input, bounds, toExamId }: GapFixesTask): Fix[] | null {
+  return suggestGapFixes(input, toExamId, bounds);
 }

@@ -54,7 +54,7 @@ export interface ErrorDetails {
   nothing_to_redo: undefined;
   /** 409: undo, redo or a fix found a slot, a staffing or the day's roster (`rosterDay`) changed since the action it reverts or applies. */
   changed_since: { accession: string; examId: number } | { rosterDay: string };
-  /** 409: the suggested fix no longer applies (the day changed); the gap's fixes were recomputed. */
+  /** 409: the suggested fix no longer applies (the day changed, or an exam it moves arrived or came due); the gap's fixes were recomputed. */
   fix_stale: undefined;
   /** 409: a "make the day fit" proposal computed on an older version of the day; nothing applied. */
   fit_stale: { proposedVersion: number; currentVersion: number };

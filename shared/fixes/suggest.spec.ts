@@ -4,7 +4,7 @@ import type { DayPlanInput } from '../turnover/day-plan-input';
 import { DEMO_SETUP } from '../turnover/demo-protocols';
 import { withChanges } from './apply-changes';
 import { MAX_FIX_CHANGES_PER_CALL, MAX_FIX_GAPS_PER_CALL, type Fix } from './model';
-import { suggestFixes, suggestGapFixes } from './suggest';
+import { suggestFixes, suggestGapFixes, type FixBounds } from './suggest';
 import { randomDay } from './testing/random-day';
 
 const isProblem = (gap: PlanGap | undefined) => gap?.verdict === 'short' || gap?.verdict === 'overlap';
@@ -127,6 +127,27 @@ describe('suggestFixes', () => {
   });
 });
 
+/**
+ * The example day (invented): MR 1 with ACC-1 08:00–08:30, ACC-2 08:40 (10 min where one person
+ * needs 20: short by 10), ACC-3 09:15 (5 min after ACC-2); each 30 min, site time 2027-03-15.
+ */
+function exampleDay(extraExams: DayPlanInput['exams'] = []): DayPlanInput {
+  return {
+    date: '2027-03-15',
+    timezone: 'America/Chicago',
+    ...DEMO_SETUP,
+    rooms: [{ id: 1, name: 'MR 1', modality: 'MR', staff: 1, airChangesPerHour: 6 }],
+    exams: [exampleExam(1, '08:00'), exampleExam(2, '08:40'), exampleExam(3, '09:15'), ...extraExams],
+  };
+}
+
+function exampleExam(id: number, start: string, extra: Partial<DayPlanInput['exams'][number]> = {}): DayPlanInput['exams'][number] {
+  return {
+    id, accession: `ACC-${id}`, roomId: 1, start: `2027-03-15T${start}:00-05:00`, durationMinutes: 30,
+    procedure: 'MR knee without contrast', coil: 'knee', precaution: 'none', mobility: 'ambulatory', contrast: false, version: 1, ...extra,
+  };
+}
+
 describe('suggestGapFixes', () => {
   it("gives a gap's fixes exactly as the day's pages give them", () => {
     for (let seed = 1; seed <= 10; seed++) {
@@ -146,18 +167,7 @@ describe('suggestGapFixes', () => {
   });
 
   it('pushes the short gap of the example day later with its cascade, and adds a helper', () => {
-    // MR 1: ACC-1 08:00–08:30, ACC-2 08:40 (10 min where one person needs 20: short by 10), ACC-3 09:15 (5 min after ACC-2).
-    const exam = (id: number, start: string, extra = {}) => ({
-      id, accession: `ACC-${id}`, roomId: 1, start: `2027-03-15T${start}:00-05:00`, durationMinutes: 30,
-      procedure: 'MR knee without contrast', coil: 'knee', precaution: 'none' as const, mobility: 'ambulatory' as const, contrast: false, version: 1, ...extra,
-    });
-    const input: DayPlanInput = {
-      date: '2027-03-15',
-      timezone: 'America/Chicago',
-      ...DEMO_SETUP,
-      rooms: [{ id: 1, name: 'MR 1', modality: 'MR', staff: 1, airChangesPerHour: 6 }],
-      exams: [exam(1, '08:00'), exam(2, '08:40'), exam(3, '09:15')],
-    };
+    const input = exampleDay();
     const fixes = suggestGapFixes(input, 2)!;
     expect(fixes.map((f) => [f.id, f.title])).toEqual([
       // 08:30 + 20 min turnover + 3 min margin = 08:53
@@ -171,4 +181,65 @@ describe('suggestGapFixes', () => {
     // two people: 14 min (the product brief's check value), still short by 4
     expect(fixes[1]!.effect).toMatchObject({ verdictAfter: 'short', shortByAfter: 4 });
   });
+
+  it('moves no exam that stays and none already due, and leaves a gap whose patient is due alone (worked examples, invented)', () => {
+    const at = (hhmm: string) => Date.parse(`2027-03-15T${hhmm}:00-05:00`);
+    const kinds = (fixes: Fix[] | null) => fixes!.map((f) => f.kind);
+    expect(kinds(suggestGapFixes(exampleDay(), 2))).toEqual(['push-later', 'add-helper']);
+    // ACC-3 pinned (or arrived): the push would have to move it to 09:28, so only the helper is offered.
+    expect(kinds(suggestGapFixes(exampleDay(), 2, { stays: [3] }))).toEqual(['add-helper']);
+    // ACC-2 itself stays: no push, no other room; a helper still shortens its turnover.
+    expect(kinds(suggestGapFixes(exampleDay(), 2, { stays: [2] }))).toEqual(['add-helper']);
+    // At 08:40 ACC-2 may still move; at 08:41 its start has passed and the turnover before it is over: nothing to fix.
+    expect(kinds(suggestGapFixes(exampleDay(), 2, { notBefore: at('08:40') }))).toEqual(['push-later', 'add-helper']);
+    expect(suggestGapFixes(exampleDay(), 2, { notBefore: at('08:41') })).toEqual([]);
+    // An isolation case is moved to the end of the list only while it may move.
+    const isolated = exampleDay().exams.map((e) => (e.id === 1 ? { ...e, precaution: 'contact' as const } : e));
+    const withIsolation = { ...exampleDay(), exams: isolated };
+    expect(kinds(suggestGapFixes(withIsolation, 2))).toContain('isolation-last');
+    expect(kinds(suggestGapFixes(withIsolation, 2, { stays: [1] }))).not.toContain('isolation-last');
+    // A second MR room: ACC-2 may go there while it may move, not once it stays.
+    const twoRooms = { ...exampleDay(), rooms: [...exampleDay().rooms, { id: 2, name: 'MR 2', modality: 'MR', staff: 1, airChangesPerHour: 6 }] };
+    expect(kinds(suggestGapFixes(twoRooms, 2))).toContain('other-room');
+    expect(kinds(suggestGapFixes(twoRooms, 2, { stays: [2] }))).not.toContain('other-room');
+  });
+
+  it('on random days, never moves an exam that stays or is due, and gives the other gaps the fixes they had', () => {
+    let kept = 0;
+    let dropped = 0;
+    for (let seed = 1; seed <= 25; seed++) {
+      const input = randomDay(seed);
+      const starts = input.exams.map((e) => Date.parse(e.start)).sort((a, b) => a - b);
+      const notBefore = starts[Math.floor(starts.length / 3)]!;
+      const stays = input.exams.filter((e) => e.id % 4 === 0).map((e) => e.id);
+      const free = (id: number) => !stays.includes(id) && Date.parse(input.exams.find((e) => e.id === id)!.start) >= notBefore;
+      const bounded = allPagesWith(input, { stays, notBefore }).flatMap((p) => p.fixes);
+      for (const fix of bounded) {
+        expect([seed, fix.id, fix.changes.filter((c) => c.type === 'move' && !free(c.examId))]).toEqual([seed, fix.id, []]);
+        expect([seed, fix.id, free(fix.toExamId) || Date.parse(input.exams.find((e) => e.id === fix.toExamId)!.start) >= notBefore]).toEqual([seed, fix.id, true]);
+      }
+      // Bounds only take fixes away: a fix that moves only free exams, on a gap still to come, stays as it was.
+      const unbounded = allPages(input, MAX_FIX_GAPS_PER_CALL).flatMap((p) => p.fixes);
+      const due = (id: number) => Date.parse(input.exams.find((e) => e.id === id)!.start) < notBefore;
+      const expected = unbounded.filter((fix) => !due(fix.toExamId) && fix.changes.every((c) => c.type !== 'move' || free(c.examId)));
+      expect([seed, bounded]).toEqual([seed, expected]);
+      kept += bounded.length;
+      dropped += unbounded.length - bounded.length;
+    }
+    // Both sides occur: the bounds take some fixes away and leave others.
+    expect(kept).toBeGreaterThan(50);
+    expect(dropped).toBeGreaterThan(50);
+  });
 });
+
+/** Every page with `bounds`, from the first. */
+function allPagesWith(input: DayPlanInput, bounds: FixBounds) {
+  const pages = [];
+  let after: number | undefined;
+  do {
+    const page = suggestFixes(input, { ...bounds, after })!;
+    pages.push(page);
+    after = page.next ?? undefined;
+  } while (after !== undefined);
+  return pages;
+}

@@ -16,22 +16,43 @@ const MAX_STAFF = 3;
  * cascade as needed) later; move it to another room of the same modality where it fits; add a
  * helper to the turnover; move the leaving isolation case to the end of its room's list (common
  * practice, no source: isolation cases last). A fix never counts the gap it fixes as new;
- * `effect.newProblems` counts the rest. Work grows with the rooms touched, not the day.
+ * `effect.newProblems` counts the rest. Work grows with the rooms touched, not the day. A fix
+ * never moves an exam that stays (`bounds`: arrived, started, pinned) or whose start has passed
+ * at `bounds.notBefore`, and gives a gap whose arriving exam is already due no fix at all.
  *
  * @returns `[]` when that gap is not `short` or `overlap`; null when no such exam is in the day
  * @throws what `computeDaySummary` throws on a bad day
  * @example
  * suggestGapFixes(input, 12); // [{ id: 'push-later:12', kind: 'push-later', title: 'Start ACC-12 30 min later, at 10:45', … }]
  */
-export function suggestGapFixes(input: DayPlanInput, toExamId: number): Fix[] | null {
+export function suggestGapFixes(input: DayPlanInput, toExamId: number, bounds: FixBounds = {}): Fix[] | null {
   const day = fixDay(input);
   const roomId = day.roomOfExam.get(toExamId);
   if (roomId === undefined) return null;
   const room = day.judged(roomId);
-  return fixesOfGap(day, room, room.gaps.findIndex((g) => g.toExamId === toExamId));
+  return fixesOfGap(day, room, room.gaps.findIndex((g) => g.toExamId === toExamId), boundsOf(bounds));
 }
 
-export interface SuggestFixesOptions {
+/** What a fix may not touch; by default nothing stays and no time has passed. */
+export interface FixBounds {
+  /** Exams that may not move: arrived, started or pinned (ids). */
+  stays?: readonly number[];
+  /** Now (ms since the epoch): an exam whose start is before it may not move, and nothing moves to before it. */
+  notBefore?: number;
+}
+
+interface Bounds {
+  /** Whether the exam of this slot may not move (it stays, or its start has passed). */
+  stays(slot: DayPlanSlot): boolean;
+  notBefore: number;
+}
+
+function boundsOf({ stays = [], notBefore = -Infinity }: FixBounds): Bounds {
+  const fixed = new Set(stays);
+  return { stays: (slot) => fixed.has(slot.exam.id) || slot.startMs < notBefore, notBefore };
+}
+
+export interface SuggestFixesOptions extends FixBounds {
   /** Start after the gap before this exam (a page's `next`); default the day's first gap. */
   after?: number;
   /** Problem gaps to cover, 1 to {@link MAX_FIX_GAPS_PER_CALL} (the default). */
@@ -57,6 +78,7 @@ export function suggestFixes(input: DayPlanInput, options: SuggestFixesOptions =
     throw new RangeError(`limit must be a whole number from 1 to ${MAX_FIX_GAPS_PER_CALL}, got ${limit}`);
   }
   const day = fixDay(input);
+  const bounds = boundsOf(options);
   let roomIndex = 0;
   let gapIndex = 0;
   if (options.after !== undefined) {
@@ -78,7 +100,7 @@ export function suggestFixes(input: DayPlanInput, options: SuggestFixesOptions =
         return page;
       }
       page.gaps.push(gap.toExamId);
-      for (const fix of fixesOfGap(day, room, gapIndex)) {
+      for (const fix of fixesOfGap(day, room, gapIndex, bounds)) {
         page.fixes.push(fix);
         changes += fix.changes.length;
       }
@@ -87,11 +109,13 @@ export function suggestFixes(input: DayPlanInput, options: SuggestFixesOptions =
   return page;
 }
 
-function fixesOfGap(day: FixDay, room: JudgedRoom, index: number): Fix[] {
+function fixesOfGap(day: FixDay, room: JudgedRoom, index: number, bounds: Bounds): Fix[] {
   if (!isProblemVerdict(room.gaps[index]?.verdict)) return [];
+  // The arriving patient is already due: that turnover is history, nothing left to fix.
+  if (room.slots[index]!.startMs < bounds.notBefore) return [];
   const fixes: Fix[] = [];
   for (const build of [pushLater, otherRoom, addHelper, isolationLast]) {
-    const fix = build(day, room, index);
+    const fix = build(day, room, index, bounds);
     if (fix) fixes.push(fix);
   }
   return fixes;
@@ -151,7 +175,7 @@ function evaluate(day: FixDay, kind: FixKind, room: JudgedRoom, gap: JudgedGap, 
   };
 }
 
-function pushLater(day: FixDay, room: JudgedRoom, index: number): Fix | null {
+function pushLater(day: FixDay, room: JudgedRoom, index: number, bounds: Bounds): Fix | null {
   const gap = room.gaps[index]!;
   const changes: ExamMove[] = [];
   let previousEnd = room.slots[index]!.startMs - gap.availableMinutes * MINUTE; // the leaving exam's end (or the opening)
@@ -162,6 +186,7 @@ function pushLater(day: FixDay, room: JudgedRoom, index: number): Fix | null {
     const wanted = i === index ? g.requiredMinutes + day.margin : g.verdict === 'fits' ? g.requiredMinutes + day.margin : g.verdict === 'snug' ? g.requiredMinutes : g.availableMinutes;
     const start = Math.max(slot.startMs, previousEnd + wanted * MINUTE);
     if (start === slot.startMs) break;
+    if (bounds.stays(slot)) return null; // the cascade would move an exam that stays
     previousEnd = start + slot.exam.durationMinutes * MINUTE;
     if (previousEnd > day.lastEndMs) return null; // nothing is pushed into the next day
     changes.push(move(day, slot, room.room.id, day.format(start)));
@@ -176,9 +201,10 @@ function pushLater(day: FixDay, room: JudgedRoom, index: number): Fix | null {
   });
 }
 
-function otherRoom(day: FixDay, room: JudgedRoom, index: number): Fix | null {
+function otherRoom(day: FixDay, room: JudgedRoom, index: number, bounds: Bounds): Fix | null {
   const gap = room.gaps[index]!;
   const slot = room.slots[index]!;
+  if (bounds.stays(slot)) return null;
   const { exam } = slot;
   for (const candidate of day.rooms) {
     if (candidate.id === room.room.id || candidate.modality !== room.room.modality) continue;
@@ -205,11 +231,11 @@ function addHelper(day: FixDay, room: JudgedRoom, index: number): Fix | null {
   return fix && fix.effect.shortByAfter < gap.shortByMinutes ? fix : null;
 }
 
-function isolationLast(day: FixDay, room: JudgedRoom, index: number): Fix | null {
+function isolationLast(day: FixDay, room: JudgedRoom, index: number, bounds: Bounds): Fix | null {
   const gap = room.gaps[index]!;
   const leaving = index > 0 ? room.slots[index - 1]! : undefined;
   const last = room.slots.at(-1)!;
-  if (!leaving || leaving.exam.precaution === 'none' || leaving === last) return null;
+  if (!leaving || leaving.exam.precaution === 'none' || leaving === last || bounds.stays(leaving)) return null;
   // the turnover it needs when placed right after the last exam; then that gap is left before it
   const needed = turnoverAfterLast(day, room, leaving, last);
   const startMs = last.endMs + (needed + day.margin) * MINUTE;

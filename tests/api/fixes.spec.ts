@@ -48,3 +48,52 @@ describe('suggested fixes on the demo day', () => {
     }
   });
 });
+
+/**
+ * Suggested fixes know what may no longer move: a patient who has arrived is not pushed, and a
+ * gap whose patient is already due has no fix (its turnover is over). A fix that was offered
+ * before the patient arrived is refused when applied after (409), and nothing changes.
+ */
+describe('suggested fixes and the exams that stay', () => {
+  let h: Harness;
+  let charge: Client;
+  let frontdesk: Client;
+  beforeAll(async () => {
+    h = await startHarness({ seedDay: true, now: '2027-03-10T14:00:00Z' });
+    charge = await signedIn(h.app, 'charge');
+    frontdesk = await signedIn(h.app, 'frontdesk');
+  }, 60_000);
+  afterAll(() => h.close());
+
+  type Move = { type: string; examId: number; from: { start: string } };
+  const fixesOf = async (toExamId: number) => (await charge.get(`/api/days/${DAY}/fixes?gap=${toExamId}`)).body.fixes as { id: string; kind: string; changes: Move[] }[];
+
+  it('drops a push once its patient has arrived, and refuses it if applied after', async () => {
+    const { fixes } = (await charge.get(`/api/days/${DAY}/fixes`)).body as { fixes: { id: string; kind: string; toExamId: number; changes: Move[] }[] };
+    const push = fixes.find((f) => f.kind === 'push-later')!;
+    expect(push).toBeDefined();
+    expect((await fixesOf(push.toExamId)).map((f) => f.id)).toContain(push.id);
+
+    expect((await frontdesk.post(`/api/exams/${push.changes[0]!.examId}/arrived`)).status).toBe(200);
+    const plan = (await charge.get(`/api/days/${DAY}/plan`)).body;
+    expect((await fixesOf(push.toExamId)).map((f) => f.kind)).not.toContain('push-later');
+
+    const res = await charge.post(`/api/days/${DAY}/fixes/apply`, { fixId: push.id, acceptNewProblems: true });
+    expect([res.status, res.body.error.code]).toEqual([409, 'fix_stale']);
+    expect((await charge.get(`/api/days/${DAY}/plan`)).body.rooms).toEqual(plan.rooms);
+  });
+
+  it('gives a gap no fix once the start of its patient has passed', async () => {
+    const { fixes } = (await charge.get(`/api/days/${DAY}/fixes`)).body as { fixes: { toExamId: number; changes: Move[] }[] };
+    const fix = fixes.find((f) => f.changes.length > 0)!;
+    const exam = (await h.db('exams').where({ id: fix.toExamId }).first()) as { start_at: string };
+    expect((await fixesOf(fix.toExamId)).length).toBeGreaterThan(0);
+    h.clock.set(new Date(Date.parse(exam.start_at) + 60_000));
+    expect(await fixesOf(fix.toExamId)).toEqual([]);
+    // and no fix of any other gap moves an exam already due
+    const page = (await charge.get(`/api/days/${DAY}/fixes`)).body as { fixes: { changes: Move[] }[] };
+    for (const other of page.fixes) {
+      for (const change of other.changes.filter((c) => c.type === 'move')) expect(Date.parse(change.from.start)).toBeGreaterThanOrEqual(h.clock.now().getTime());
+    }
+  });
+});

@@ -54,13 +54,13 @@ export async function benchFixes(): Promise<string[]> {
 async function benchThroughPool(input: DayPlanInput): Promise<string> {
   const pool = createFixesPool();
   try {
-    await pool.page({ input }); // start the thread and warm its caches
+    await pool.page({ input, bounds: {} }); // start the thread and warm its caches
     const delay = monitorEventLoopDelay({ resolution: 5 });
     const trips: number[] = [];
     delay.enable();
     for (let k = 0; k < WARM_RUNS; k++) {
       const t0 = performance.now();
-      await pool.page({ input });
+      await pool.page({ input, bounds: {} });
       trips.push(performance.now() - t0);
     }
     delay.disable();
