@@ -5,7 +5,7 @@ import type { FixedReason } from '../../shared/day-fit';
 import { spareHelpers } from '../../shared/day-fit/roster-helpers';
 import type { Problem } from '../../shared/api/errors';
 import { NotFoundError, Refusal, ValidationError } from '../errors';
-import type { DayFitPool } from '../workers/day-fit-pool';
+import { ROSTER_MS_PER_GAP, type DayFitPool } from '../workers/day-fit-pool';
 import { loadDayPlan, loadDayPlanInput } from './day-plan';
 import { dayVersion, planVersions } from './day-version';
 import { applyChanges, recordChange } from './plan-changes';
@@ -40,7 +40,8 @@ export async function fixedExams(db: Knex, day: string, now: Date): Promise<Map<
  * the day is planned with the roster's crews (`proposeWithRoster`: each turnover the roster
  * staffs short is planned with the crew it gets, and the proposal is judged by the roster), and
  * the people it leaves idle in the current plan are offered as helpers (`spareHelpers`), with
- * the site's walking time between two of their turnovers.
+ * the site's walking time between two of their turnovers; such a day's budget follows its
+ * problem gaps (`ROSTER_MS_PER_GAP`).
  */
 export async function proposeFit(db: Knex, pool: DayFitPool, day: string, now: Date): Promise<DayFitAnswer> {
   const versions = await planVersions(db, day);
@@ -51,6 +52,7 @@ export async function proposeFit(db: Knex, pool: DayFitPool, day: string, now: D
     notBefore: now.getTime(),
     helpers: plan.people ? spareHelpers(plan.people) : [],
     walkingMinutes: plan.people?.walkingMinutes ?? 0,
+    rosterMsPerGap: ROSTER_MS_PER_GAP,
   };
   // The minute is part of the key: a proposal asked for a minute later may start no earlier.
   const minute = Math.floor(now.getTime() / 60_000);

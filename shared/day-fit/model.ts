@@ -52,6 +52,12 @@ export interface DayFitOptions {
   /** Wall-clock budget for all solves; default 8 s. */
   timeLimitMs?: number;
   /**
+   * On a day with a roster planned in rounds: the budget is at most this many ms per gap the
+   * roster finds short before (at least `ROSTER_LEAST_MS`, never more than `timeLimitMs`), so a
+   * day with a few problems is not kept waiting for the whole limit. None by default.
+   */
+  rosterMsPerGap?: number;
+  /**
    * Starts only on multiples of this many minutes after the site's midnight (tests compare with
    * an enumeration on the same grid). Default 1: whole minutes.
    */

@@ -54,11 +54,12 @@ type Propose = (input: DayPlanInput, solve: MipSolve, options: DayFitOptions) =>
 export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options: DayFitOptions, proposeWithStaff: Propose): DayFitProposal {
   const now = options.now ?? Date.now;
   const started = now();
-  const deadline = started + (options.timeLimitMs ?? 8_000);
+  const limit = options.timeLimitMs ?? 8_000;
   const { roster: _roster, ...ownStaff } = input;
   const beforePlan = computeDayPlan(input);
-  const exact = proposeExactWithRoster(input, solve, options, beforePlan, deadline);
+  const exact = proposeExactWithRoster(input, solve, options, beforePlan, started + limit);
   if (exact) return exact;
+  const deadline = started + rosterBudgetMs(beforePlan.summary.short + beforePlan.summary.overlap, limit, options.rosterMsPerGap);
   const caps = new Map<number, number>();
   const crewFrom = new Map<number, Map<number, number>>();
   followCrews(caps, crewFrom, beforePlan);
@@ -141,6 +142,21 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
       ...(pushes > 0 ? { rosterPushes: pushes } : {}),
     },
   };
+}
+
+/** The least budget a roster day planned in rounds gets with `rosterMsPerGap`: a round, the pushes and a window or two. */
+export const ROSTER_LEAST_MS = 2_000;
+
+/**
+ * The time a roster day planned in rounds may take: `limit`, or with `msPerGap` that much per
+ * problem gap the roster finds before (at least {@link ROSTER_LEAST_MS}, at most `limit`).
+ *
+ * @example
+ * rosterBudgetMs(13, 8_000, 300); // 3900
+ */
+export function rosterBudgetMs(problemGaps: number, limit: number, msPerGap: number | undefined): number {
+  if (msPerGap === undefined) return limit;
+  return Math.min(limit, Math.max(ROSTER_LEAST_MS, msPerGap * problemGaps));
 }
 
 /**

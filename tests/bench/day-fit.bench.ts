@@ -5,14 +5,14 @@ import { bestByEnumerationWithRoster } from '../../shared/day-fit/testing/enumer
 import { fitWorkDay } from '../../shared/day-fit/testing/fit-days';
 import { smallRosterDay } from '../../shared/day-fit/testing/small-days';
 import { highsSolver } from '../../server/services/day-fit/highs-solve';
-import { createDayFitPool, DAY_FIT_SOLVE_MS } from '../../server/workers/day-fit-pool';
+import { createDayFitPool, DAY_FIT_SOLVE_MS, ROSTER_MS_PER_GAP } from '../../server/workers/day-fit-pool';
 
 /**
  * "Make the day fit" on invented working days (shared/day-fit/testing/fit-days.ts): 4 rooms and
  * 80 exams (target < 1 s), 40 rooms and 1,200 exams (target < 10 s), each with the time limit the
  * server gives a proposal (what a charge technologist waits for), with the solver's status,
  * optimality gap, scope and what stays unsolved; both again with an invented roster (planned with
- * its crews, the spare people as helpers, as the server does); then the small day once more through the
+ * its crews, the spare people as helpers and the budget per problem gap, as the server does); then the small day once more through the
  * worker pool (HiGHS loading in a fresh thread included). Printed, never asserted.
  *
  * @example
@@ -45,25 +45,34 @@ export async function benchDayFit(): Promise<string[]> {
     ['4 rooms / 80 exams with a roster', { rooms: 4, examsPerRoom: 20 }, 1_000],
     ['40 rooms / 1,200 exams with a roster', { rooms: 40, examsPerRoom: 30 }, 10_000],
   ] as const) {
-    const { input: plain, fixed } = fitWorkDay(1, size);
-    const people = Array.from({ length: Math.ceil(size.rooms / 4) }, (_, block) => {
-      const roomIds = plain.rooms.slice(block * 4, block * 4 + 4).map((r) => r.id);
-      return Array.from({ length: PEOPLE_PER_BLOCK }, (_, k) => ({
-        id: `p${block}-${k}`, name: null, label: `Aide ${block * PEOPLE_PER_BLOCK + k + 1}`, role: 'aide' as const, start: '07:00', end: '19:00',
-        breaks: k % 2 === 0 ? [{ start: k % 4 === 0 ? '12:00' : '12:30', end: k % 4 === 0 ? '12:30' : '13:00' }] : [], roomIds,
-      }));
-    }).flat();
-    const input = { ...plain, roster: { source: 'day' as const, walkingMinutes: 3, people } };
+    const { input, fixed } = rosterWorkDay(1, size);
     const t0 = performance.now();
     const plan = computeDayPlan(input);
-    const p = proposeDayFit(input, solve, { fixed, helpers: spareHelpers(plan.people!), walkingMinutes: 3, timeLimitMs: DAY_FIT_SOLVE_MS });
+    const p = proposeDayFit(input, solve, { fixed, helpers: spareHelpers(plan.people!), walkingMinutes: 3, timeLimitMs: DAY_FIT_SOLVE_MS, rosterMsPerGap: ROSTER_MS_PER_GAP });
     const ms = performance.now() - t0;
     lines.push(
-      `day fit, ${name} (${people.length} people, ${p.before.short + p.before.overlap} problem gaps with the roster): ${ms.toFixed(0)} ms (target < ${target} ms) — ` +
+      `day fit, ${name} (${input.roster.people.length} people, ${p.before.short + p.before.overlap} problem gaps with the roster): ${ms.toFixed(0)} ms (target < ${target} ms) — ` +
         `${p.solver.status}, ${p.solver.rosterRounds} rounds, ${p.solver.rosterPushes ?? 0} pushes along rooms, ${p.solver.rosterWindows ?? 0} windows, ${p.solver.solves} solves; ` +
         `${p.objective.examsMoved} moved, ${p.objective.minutesMoved} min, ${p.remaining.length} gaps left (planned in rounds: not proven optimal)`,
     );
   }
+  // What the budget per problem gap gives away: the 80-exam roster day, seeds 1–3, with it and with the whole limit.
+  const ways = [ROSTER_MS_PER_GAP, undefined] as const;
+  const figures = ways.map(() => ({ left: [] as number[], ms: [] as number[] }));
+  for (let seed = 1; seed <= 3; seed++) {
+    const { input, fixed } = rosterWorkDay(seed, { rooms: 4, examsPerRoom: 20 });
+    const helpers = spareHelpers(computeDayPlan(input).people!);
+    ways.forEach((rosterMsPerGap, k) => {
+      const t0 = performance.now();
+      const p = proposeDayFit(input, solve, { fixed, helpers, walkingMinutes: 3, timeLimitMs: DAY_FIT_SOLVE_MS, rosterMsPerGap });
+      figures[k]!.ms.push(performance.now() - t0);
+      figures[k]!.left.push(p.remaining.length);
+    });
+  }
+  lines.push(
+    `day fit with a roster, 4 rooms / 80 exams, invented days 1–3: ${ROSTER_MS_PER_GAP} ms per problem gap leaves ${figures[0]!.left.join('/')} gaps in ${figures[0]!.ms.map((ms) => ms.toFixed(0)).join('/')} ms; ` +
+      `the whole ${DAY_FIT_SOLVE_MS} ms leaves ${figures[1]!.left.join('/')} in ${figures[1]!.ms.map((ms) => ms.toFixed(0)).join('/')} ms`,
+  );
   // Small invented roster days against brute force with the roster's crews (a quality figure,
   // not a time): the exact model (its people in the MIP) and, for comparison, the rounds (with
   // their pushes and windows) that plan a larger day. No helpers, as the brute force tries none.
@@ -107,4 +116,22 @@ export async function benchDayFit(): Promise<string[]> {
     await pool.close();
   }
   return lines;
+}
+
+/**
+ * An invented working day with an invented roster, as the server asks: five aides for each block
+ * of four rooms (three MR rooms of two people, a CT room of one; every other aide with a
+ * half-hour break at noon or half past), 3 min walking.
+ */
+function rosterWorkDay(seed: number, size: { rooms: number; examsPerRoom: number }) {
+  const { input: plain, fixed } = fitWorkDay(seed, size);
+  const people = Array.from({ length: Math.ceil(size.rooms / 4) }, (_, block) => {
+    const roomIds = plain.rooms.slice(block * 4, block * 4 + 4).map((r) => r.id);
+    return Array.from({ length: PEOPLE_PER_BLOCK }, (_, k) => ({
+      id: `p${block}-${k}`, name: null, label: `Aide ${block * PEOPLE_PER_BLOCK + k + 1}`, role: 'aide' as const, start: '07:00', end: '19:00',
+      breaks: k % 2 === 0 ? [{ start: k % 4 === 0 ? '12:00' : '12:30', end: k % 4 === 0 ? '12:30' : '13:00' }] : [], roomIds,
+    }));
+  }).flat();
+  const input = { ...plain, roster: { source: 'day' as const, walkingMinutes: 3, people } };
+  return { input, fixed };
 }
