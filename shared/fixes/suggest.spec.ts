@@ -176,10 +176,15 @@ describe('suggestGapFixes', () => {
     ]);
     // ACC-3's gap was short already: it keeps its 5 minutes (no worse), so it moves to 09:28 — not made to fit
     expect(fixes[0]!.changes.map((c) => c.type === 'move' && c.to.start)).toEqual(['2027-03-15T08:53:00-05:00', '2027-03-15T09:28:00-05:00']);
-    expect(fixes[0]!.detail).toBe("ACC-2 moves and 1 later exam in MR 1 move too; MR 1's last exam then ends at 09:58 (was 09:45).");
+    expect(fixes[0]!.detail).toBe("ACC-2 moves and 1 later exam in MR 1 moves too; MR 1's last exam then ends at 09:58 (was 09:45).");
     expect(fixes[0]!.effect).toMatchObject({ verdictAfter: 'fits', newProblems: 0, dayEndsBefore: '2027-03-15T09:45:00-05:00', dayEndsAfter: '2027-03-15T09:58:00-05:00' });
     // two people: 14 min (the product brief's check value), still short by 4
     expect(fixes[1]!.effect).toMatchObject({ verdictAfter: 'short', shortByAfter: 4 });
+  });
+
+  it("says a push leaves the room's last end where it was when the cascade stops before it (invented)", () => {
+    const fixes = suggestGapFixes(exampleDay([exampleExam(4, '11:00')]), 2)!;
+    expect(fixes[0]!.detail).toBe("ACC-2 moves and 1 later exam in MR 1 moves too; MR 1's last exam still ends at 11:30.");
   });
 
   it('moves no exam that stays and none already due, and leaves a gap whose patient is due alone (worked examples, invented)', () => {

@@ -196,8 +196,10 @@ function pushLater(day: FixDay, room: JudgedRoom, index: number, bounds: Bounds)
   const later = Math.round((Date.parse(first.to.start) - Date.parse(first.from.start)) / MINUTE);
   const name = room.room.name;
   return evaluate(day, 'push-later', room, gap, changes, `Start ${first.accession} ${later} min later, at ${first.to.start.slice(11, 16)}`, ({ after }) => {
-    const cascade = changes.length > 1 ? ` and ${changes.length - 1} later exam${changes.length > 2 ? 's' : ''} in ${name} move too` : '';
-    return `${first.accession} moves${cascade}; ${name}'s last exam then ends at ${hhmm(day, after.get(room.room.id)!.endsMs)} (was ${hhmm(day, room.endsMs)}).`;
+    const cascade = changes.length > 1 ? ` and ${changes.length - 1} later exam${changes.length > 2 ? 's' : ''} in ${name} ${changes.length > 2 ? 'move' : 'moves'} too` : '';
+    const endsMs = after.get(room.room.id)!.endsMs;
+    const end = endsMs === room.endsMs ? `still ends at ${hhmm(day, endsMs)}` : `then ends at ${hhmm(day, endsMs)} (was ${hhmm(day, room.endsMs)})`;
+    return `${first.accession} moves${cascade}; ${name}'s last exam ${end}.`;
   });
 }
 

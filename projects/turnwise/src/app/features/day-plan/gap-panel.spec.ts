@@ -52,6 +52,22 @@ describe('Gap panel', () => {
     expect(page.querySelector('tw-gap-panel .fixes mat-progress-bar')).toBeNull();
   });
 
+  it('says why a gap has no fix: exams that stay, or its patient already due', async () => {
+    // ACC-2 starts at 08:45 in the example day (invented).
+    for (const [now, words] of [
+      ['2027-03-15T08:45:00-05:00', 'No fix found for this gap. Exams that have arrived, started or are pinned stay where they are.'],
+      ['2027-03-15T08:46:00-05:00', 'ACC-2 was due at 08:45: this turnover is over, and no fix moves a patient already due.'],
+    ]) {
+      TestBed.resetTestingModule();
+      const { page, fixture, backend } = await renderDay({ now });
+      marker(page, 2).click();
+      await settle(fixture);
+      backend.expectOne('/api/days/2027-03-15/fixes?gap=2').flush({ fixes: [] });
+      await settle(fixture);
+      expect(text(page.querySelector('tw-gap-panel .fixes p'))).toContain(words);
+    }
+  });
+
   it('keeps title, close, verdict and needs/has together in the header above the steps', async () => {
     const { page, fixture, backend } = await renderDay();
     marker(page, 2).click();

@@ -9,6 +9,7 @@ import type { PlanExam, PlanGap, PlanRoom } from '@shared/api/plan';
 import { TURNOVER_STAFF } from '@shared/api/limits';
 import type { Fix } from '@shared/fixes/model';
 import { serverState } from '../../core/state/server-state';
+import { Clock } from '../../core/time/clock';
 import { CautionKind, CautionNote } from '../../shared/ui/caution-note';
 import { SiteTime } from '../../shared/ui/site-time';
 import { VerdictChip } from '../../shared/ui/verdict-chip';
@@ -30,6 +31,7 @@ import type { GapPeopleWords } from './people-reason';
 })
 export class GapPanel {
   private readonly api = inject(DayPlanService);
+  private readonly minute = inject(Clock).minute;
 
   readonly date = input.required<string>();
   readonly gap = input.required<PlanGap>();
@@ -52,6 +54,8 @@ export class GapPanel {
   protected readonly staffChoices = Array.from({ length: TURNOVER_STAFF.max }, (_, i) => i + 1);
   protected readonly title = computed(() => `${this.gap().fromExamId === null ? 'Opening' : 'Turnover'} before ${this.to().accession}`);
   protected readonly late = computed(() => this.gap().verdict === 'short' || this.gap().verdict === 'overlap');
+  /** The arriving patient's start has gone by: the turnover is over and no fix moves them (the server offers none). */
+  protected readonly due = computed(() => Date.parse(this.to().start) < this.minute());
   protected readonly helperAdded = computed(() => this.gap().staff !== this.room().staff);
   protected readonly cautions = computed(() => {
     const kinds: CautionKind[] = ['general'];

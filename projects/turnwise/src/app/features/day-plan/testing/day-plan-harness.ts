@@ -10,6 +10,7 @@ import { AuthService } from '../../../core/auth/auth-service';
 import { SessionUser } from '../../../core/auth/roles';
 import { provideApiHttp } from '../../../core/http/api-http';
 import { provideIcons } from '../../../core/layout/icons';
+import { fakeClock } from '../../../core/time/testing/fake-clock';
 import { DayPlan } from '../day-plan';
 import { EVENT_SOURCE } from '../../../core/live/day-events';
 import { dayPlan } from './example-day';
@@ -62,8 +63,8 @@ export async function settle(fixture: ComponentFixture<unknown>) {
   await fixture.whenStable();
 }
 
-/** The Day plan on 2027-03-15 for `user`, with settings, rooms and the plan answered. */
-export async function renderDay(options: { user?: SessionUser; plan?: Plan | null; date?: string; exam?: string; history?: Partial<DayHistory> } = {}) {
+/** The Day plan on 2027-03-15 for `user`, with settings, rooms and the plan answered; on a clock stopped at `now` when given. */
+export async function renderDay(options: { user?: SessionUser; plan?: Plan | null; date?: string; exam?: string; history?: Partial<DayHistory>; now?: string } = {}) {
   historyAnswer = { changes: [], canUndo: true, canRedo: true, ...options.history };
   TestBed.configureTestingModule({
     imports: [DayPlan],
@@ -76,6 +77,7 @@ export async function renderDay(options: { user?: SessionUser; plan?: Plan | nul
       { provide: AuthService, useValue: { user: signal(options.user ?? { username: 'jo', displayName: 'Jo Charge', role: 'charge' }).asReadonly() } },
       { provide: MatSnackBar, useValue: { open: () => undefined } },
       { provide: EVENT_SOURCE, useValue: (url: string) => new FakeEventSource(url) },
+      ...(options.now ? [fakeClock(options.now).provider] : []),
     ],
   });
   const fixture = TestBed.createComponent(DayPlan);
