@@ -42,7 +42,8 @@ export async function gapFixes(db: Knex, pool: FixesPool, day: string, toExamId:
 /**
  * Applies one suggested fix in a single transaction with one audit entry. The fix is recomputed
  * from the stored plan at `now` (only its gap's fixes: the id names the gap), so a stale one
- * (the plan changed meanwhile, or an exam it moves has since arrived or come due) is a 409; a fix that would make another gap short needs `acceptNewProblems`.
+ * (the plan changed meanwhile, or an exam it moves has since arrived or come due) is a 409; a
+ * fix that would make another gap short needs `acceptNewProblems`.
  */
 export async function applyFix(db: Knex, pool: FixesPool, day: string, fixId: string, acceptNewProblems: boolean, userId: number, now: Date): Promise<Fix> {
   const toExamId = gapOfFixId(fixId);

@@ -11,7 +11,7 @@ export const DAY_FIT_SOLVE_MS = 8_000;
 /**
  * On a roster day planned in rounds, the budget per gap the roster finds short (within the
  * budget above): on the bench's invented 80-exam roster days, 300 ms a gap left as many gaps as
- * the whole 8 s did, in half the time or less (measured, `npm run bench`).
+ * the whole 8 s did, in 50–70 % of the time (measured, `npm run bench`).
  */
 export const ROSTER_MS_PER_GAP = 300;
 
