@@ -133,7 +133,7 @@ describe('make the day fit with a roster: properties (seeded invented days)', ()
 
   // The windows alone, from the day as booked (a denser invented day, 12 exams a room, the same
   // thin roster): through the rounds first, what is left for them depends on how far each
-  // time-limited solve got, so that way the test would hang on the machine's load. Here every
+  // time-limited solve got, so that way the outcome depended on the machine's load. Here every
   // window is tried (a clock that moves 1 ms a call), and each is a small model.
   it('tries the gaps window by window, keeping only what makes the day better (day 3, 4 rooms × 12 exams)', () => {
     const { input: plain, fixed: dayFixed } = fitWorkDay(3, { rooms: 4, examsPerRoom: 12 });
