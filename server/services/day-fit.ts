@@ -21,17 +21,32 @@ import { readSettings } from './settings';
  * await fixedExams(db, '2027-03-16', new Date()); // Map { 12 => 'arrived', 14 => 'pinned', 3 => 'passed' }
  */
 export async function fixedExams(db: Knex, day: string, now: Date): Promise<Map<number, FixedReason>> {
-  const [pinned, arrived, started, starts] = await Promise.all([
+  const [held, starts] = await Promise.all([heldExams(db, day), db('exams').where({ day }).select('id', 'start_at') as Promise<{ id: number; start_at: string }[]>]);
+  return withPassed(held, starts.map((e) => ({ id: Number(e.id), start: e.start_at })), now);
+}
+
+/** The exams of the day held where they are by what happened or a user: pinned, arrived, started. */
+export async function heldExams(db: Knex, day: string): Promise<Map<number, FixedReason>> {
+  const [pinned, arrived, started] = await Promise.all([
     db('exams').where({ day, pinned: true }).pluck('id'),
     db('arrivals').join('exams', 'exams.id', 'arrivals.exam_id').where('exams.day', day).pluck('arrivals.exam_id'),
     db('turnovers').where({ day }).pluck('from_exam_id'),
-    db('exams').where({ day }).select('id', 'start_at') as Promise<{ id: number; start_at: string }[]>,
   ]);
+  const held = new Map<number, FixedReason>();
+  for (const id of pinned as number[]) held.set(Number(id), 'pinned');
+  for (const id of arrived as number[]) held.set(Number(id), 'arrived');
+  for (const id of started as number[]) held.set(Number(id), 'started');
+  return held;
+}
+
+/**
+ * The held exams and those whose start is before `now` (`passed`), from exams already loaded
+ * (a day's plan input), so the day's starts are not read twice; a held reason wins.
+ */
+export function withPassed(held: ReadonlyMap<number, FixedReason>, exams: readonly { id: number; start: string }[], now: Date): Map<number, FixedReason> {
   const fixed = new Map<number, FixedReason>();
-  for (const exam of starts) if (Date.parse(exam.start_at) < now.getTime()) fixed.set(Number(exam.id), 'passed');
-  for (const id of pinned as number[]) fixed.set(Number(id), 'pinned');
-  for (const id of arrived as number[]) fixed.set(Number(id), 'arrived');
-  for (const id of started as number[]) fixed.set(Number(id), 'started');
+  for (const exam of exams) if (Date.parse(exam.start) < now.getTime()) fixed.set(exam.id, 'passed');
+  for (const [id, why] of held) fixed.set(id, why);
   return fixed;
 }
 
@@ -46,7 +61,8 @@ export async function fixedExams(db: Knex, day: string, now: Date): Promise<Map<
 export async function proposeFit(db: Knex, pool: DayFitPool, day: string, now: Date): Promise<DayFitAnswer> {
   const versions = await planVersions(db, day);
   const version = versions.day;
-  const [input, fixed, plan] = await Promise.all([loadDayPlanInput(db, day), fixedExams(db, day, now), loadDayPlan(db, day)]);
+  const [input, held, plan] = await Promise.all([loadDayPlanInput(db, day), heldExams(db, day), loadDayPlan(db, day)]);
+  const fixed = withPassed(held, input.exams, now);
   const options = {
     fixed: Object.fromEntries(fixed),
     notBefore: now.getTime(),

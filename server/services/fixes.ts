@@ -4,7 +4,7 @@ import { NotFoundError, Refusal } from '../errors';
 import type { FixesPool } from '../workers/fixes-pool';
 import type { FixesPageTask } from '../workers/fixes-task';
 import { loadDayPlanInput } from './day-plan';
-import { fixedExams } from './day-fit';
+import { heldExams, withPassed } from './day-fit';
 import { applyChanges, recordChange } from './plan-changes';
 
 /**
@@ -12,8 +12,8 @@ import { applyChanges, recordChange } from './plan-changes';
  * (arrived, started, pinned, or already due; those due also keep their gaps from any fix).
  */
 async function dayAt(db: Knex, day: string, now: Date): Promise<Pick<FixesPageTask, 'input' | 'bounds'>> {
-  const [input, fixed] = await Promise.all([loadDayPlanInput(db, day), fixedExams(db, day, now)]);
-  return { input, bounds: { stays: [...fixed.keys()], notBefore: now.getTime() } };
+  const [input, held] = await Promise.all([loadDayPlanInput(db, day), heldExams(db, day)]);
+  return { input, bounds: { stays: [...withPassed(held, input.exams, now).keys()], notBefore: now.getTime() } };
 }
 
 /**
