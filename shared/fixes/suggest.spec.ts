@@ -10,12 +10,12 @@ import { randomDay } from './testing/random-day';
 const isProblem = (gap: PlanGap | undefined) => gap?.verdict === 'short' || gap?.verdict === 'overlap';
 const problemGapIds = (plan: DayPlan) => plan.rooms.flatMap((r) => r.gaps.filter(isProblem).map((g) => g.toExamId));
 
-/** Every page from the first, following `next`. */
-function allPages(input: DayPlanInput, limit: number) {
+/** Every page from the first, following `next`, within `bounds`. */
+function allPages(input: DayPlanInput, limit: number, bounds: FixBounds = {}) {
   const pages = [];
   let after: number | undefined;
   do {
-    const page = suggestFixes(input, { after, limit })!;
+    const page = suggestFixes(input, { ...bounds, after, limit })!;
     pages.push(page);
     after = page.next ?? undefined;
   } while (after !== undefined);
@@ -218,7 +218,7 @@ describe('suggestGapFixes', () => {
       const notBefore = starts[Math.floor(starts.length / 3)]!;
       const stays = input.exams.filter((e) => e.id % 4 === 0).map((e) => e.id);
       const free = (id: number) => !stays.includes(id) && Date.parse(input.exams.find((e) => e.id === id)!.start) >= notBefore;
-      const bounded = allPagesWith(input, { stays, notBefore }).flatMap((p) => p.fixes);
+      const bounded = allPages(input, MAX_FIX_GAPS_PER_CALL, { stays, notBefore }).flatMap((p) => p.fixes);
       for (const fix of bounded) {
         expect([seed, fix.id, fix.changes.filter((c) => c.type === 'move' && !free(c.examId))]).toEqual([seed, fix.id, []]);
         expect([seed, fix.id, free(fix.toExamId) || Date.parse(input.exams.find((e) => e.id === fix.toExamId)!.start) >= notBefore]).toEqual([seed, fix.id, true]);
@@ -237,14 +237,3 @@ describe('suggestGapFixes', () => {
   });
 });
 
-/** Every page with `bounds`, from the first. */
-function allPagesWith(input: DayPlanInput, bounds: FixBounds) {
-  const pages = [];
-  let after: number | undefined;
-  do {
-    const page = suggestFixes(input, { ...bounds, after })!;
-    pages.push(page);
-    after = page.next ?? undefined;
-  } while (after !== undefined);
-  return pages;
-}
