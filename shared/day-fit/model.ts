@@ -163,6 +163,8 @@ export interface FitSolverReport {
   rosterWindows?: number;
   /** Pushes of exams along their room after the rounds that made the day better (`pushAlongRooms`). */
   rosterPushes?: number;
+  /** Exams the proposal had moved that were then put back, all the way or half-way, as the day did not need it (`settleBack`). */
+  rosterReturned?: number;
 }
 
 export interface DayFitProposal {

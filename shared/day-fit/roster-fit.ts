@@ -9,6 +9,7 @@ import { fitDay } from './instance';
 import { proposeExactWithRoster } from './roster-exact';
 import { dayEnd, lexicallyLess, problemsOf, remainingWithPeople } from './roster-judge';
 import { pushAlongRooms } from './roster-push';
+import { settleBack } from './roster-settle';
 import { arrangementOf, helperUses, improveInWindows } from './roster-windows';
 import { solverReport, type SolveTally } from './solver-report';
 
@@ -20,6 +21,9 @@ const FIRST_ROUND_SHARE = 0.6;
 
 /** The rounds' share of the whole budget at most: the rest is kept for the pushes and windows after them. */
 const ROUNDS_SHARE = 0.5;
+
+/** The share of the budget kept for taking back moves not needed (`settleBack`) after the pushes and windows. */
+const SETTLE_SHARE = 0.25;
 
 /** Neighbourhood reaches a later round tries (the own room, then a block of rooms, 30 min). */
 const LATER_ROUND_REACHES = 2;
@@ -41,7 +45,8 @@ type Propose = (input: DayPlanInput, solve: MipSolve, options: DayFitOptions) =>
  * (then fewest exams moved, minutes, the earliest end) is taken; what it leaves is pushed along
  * its room (`pushAlongRooms`), tried window by window with the exact roster model
  * (`improveInWindows`) and pushed again, each step kept only when the roster finds fewer problem
- * gaps. That is the proposal; its before, after and gaps left are the
+ * gaps; in the last quarter of the time, the moves that turn out not to be needed are taken back
+ * (`settleBack`: fewer patients to call, never more gaps). That is the proposal; its before, after and gaps left are the
  * roster's, and a gap left for people says why in the gap panel's words ("Short by 6 min:
  * Aide 1 is in MR 2 until 10:12"), beside the solver's reason when it has one. The rounds are a
  * heuristic around the exact MIP: there the crews are not variables of the model, so such a
@@ -100,46 +105,56 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
   // model, then pushed again; each step kept only when the roster finds the whole day better.
   let windows = 0;
   let pushes = 0;
-  if (best!.score[0]! > 0 && deadline - now() > 200) {
-    const day = fitDay(input, options);
-    let arrangement = arrangementOf(day, best!.proposal.changes);
-    let plan = best!.plan;
+  let returned = 0;
+  // The pushes and windows stop early enough to leave the settling its share.
+  const workUntil = deadline - (deadline - started) * SETTLE_SHARE;
+  const day = fitDay(input, options);
+  let arrangement = arrangementOf(day, best!.proposal.changes);
+  let plan = best!.plan;
+  if (best!.score[0]! > 0 && workUntil - now() > 200) {
     const push = () => {
-      const pushed = pushAlongRooms(day, arrangement, plan, options, deadline);
+      const pushed = pushAlongRooms(day, arrangement, plan, options, workUntil);
       ({ arrangement, plan } = pushed);
       pushes += pushed.kept;
     };
     push();
-    if (problemsOf(plan).length > 0 && (options.rosterWindows ?? true) && deadline - now() > 200) {
-      const improved = improveInWindows(day, arrangement, plan, solve, options, deadline, tally);
+    if (problemsOf(plan).length > 0 && (options.rosterWindows ?? true) && workUntil - now() > 200) {
+      const improved = improveInWindows(day, arrangement, plan, solve, options, workUntil, tally);
       ({ arrangement, plan } = improved);
       windows = improved.kept;
       if (windows > 0 && problemsOf(plan).length > 0) push();
     }
-    if (windows + pushes > 0) {
-      const proposal = fitProposal(day, arrangement.places, helperUses(day, arrangement, plan), beforePlan.summary, tally, 0, false);
-      best = { proposal, plan, score: [] };
-    }
   }
-  const { proposal, plan } = best!;
+  // Then the moves that turn out not to be needed are taken back, in what is left of the time.
+  if (deadline - now() > 100) {
+    const settled = settleBack(day, arrangement, plan, options, deadline);
+    ({ arrangement, plan } = settled);
+    returned = settled.returned;
+  }
+  if (windows + pushes + returned > 0) {
+    const proposal = fitProposal(day, arrangement.places, helperUses(day, arrangement, plan), beforePlan.summary, tally, 0, false);
+    best = { proposal, plan, score: [] };
+  }
+  const { proposal, plan: finalPlan } = best!;
   const stays = new Map(Object.entries(options.fixed ?? {}).map(([id, why]) => [Number(id), why]));
   const after = [windows > 0 ? 'windows around it with the roster’s people' : '', pushes > 0 ? 'pushes along its room' : ''].filter(Boolean).join(' and ');
   const tried = `short with the roster’s crews; ${rounds} round${rounds === 1 ? '' : 's'} of planning with them${after ? `, then ${after},` : ''} did not clear it`;
   // After windows or pushes the own-staff reasons of the rebuilt proposal say nothing of the roster: only the people's side and the fixed exams.
-  const remaining = remainingWithPeople(input, plan, windows + pushes > 0 ? [] : proposal.remaining, stays, tried);
+  const remaining = remainingWithPeople(input, finalPlan, windows + pushes + returned > 0 ? [] : proposal.remaining, stays, tried);
   const nothingToDo = beforePlan.summary.short + beforePlan.summary.overlap === 0;
   return {
     ...proposal,
     remaining,
     objective: { ...proposal.objective, gapsLeft: remaining.length },
     before: beforePlan.summary,
-    after: plan.summary,
+    after: finalPlan.summary,
     solver: {
       ...solverReport(tally, nothingToDo, now() - started),
       roster: 'rounds',
       rosterRounds: rounds,
       ...(windows > 0 ? { rosterWindows: windows } : {}),
       ...(pushes > 0 ? { rosterPushes: pushes } : {}),
+      ...(returned > 0 ? { rosterReturned: returned } : {}),
     },
   };
 }

@@ -52,7 +52,7 @@ export async function benchDayFit(): Promise<string[]> {
     const ms = performance.now() - t0;
     lines.push(
       `day fit, ${name} (${input.roster.people.length} people, ${p.before.short + p.before.overlap} problem gaps with the roster): ${ms.toFixed(0)} ms (target < ${target} ms) — ` +
-        `${p.solver.status}, ${p.solver.rosterRounds} rounds, ${p.solver.rosterPushes ?? 0} pushes along rooms, ${p.solver.rosterWindows ?? 0} windows, ${p.solver.solves} solves; ` +
+        `${p.solver.status}, ${p.solver.rosterRounds} rounds, ${p.solver.rosterPushes ?? 0} pushes along rooms, ${p.solver.rosterWindows ?? 0} windows, ${p.solver.rosterReturned ?? 0} moves taken back, ${p.solver.solves} solves; ` +
         `${p.objective.examsMoved} moved, ${p.objective.minutesMoved} min, ${p.remaining.length} gaps left (planned in rounds: not proven optimal)`,
     );
   }

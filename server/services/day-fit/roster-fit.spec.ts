@@ -119,8 +119,9 @@ describe('make the day fit with a roster: properties (seeded invented days)', ()
   }
 
   // A denser invented day (12 exams a room, the same thin roster) where the rounds leave gaps:
-  // the pushes along rooms after them (windows off, to see the pushes alone).
-  it('pushes along rooms what the rounds leave, keeping only what clears gaps (day 2, 4 rooms × 12 exams)', () => {
+  // the pushes along rooms after them (windows off, to see the pushes alone), then the moves not
+  // needed taken back.
+  it('pushes along rooms what the rounds leave, keeping only what clears gaps, then takes back what was not needed (day 2, 4 rooms × 12 exams)', () => {
     const { input: plain, fixed } = fitWorkDay(2, { rooms: 4, examsPerRoom: 12 });
     const input: DayPlanInput = { ...plain, roster: thinRoster() };
     let tick = 0;
@@ -129,6 +130,8 @@ describe('make the day fit with a roster: properties (seeded invented days)', ()
     const after = expectKeepsTheRules(input, fixed, proposal);
     // On this day: 21 problem gaps before, 5 left (the rounds alone leave 19).
     expect(after.summary.short + after.summary.overlap).toBeLessThan(proposal.before.short + proposal.before.overlap);
+    // And some of the moves the pushes made were not needed in the end: taken back (4 on this day).
+    expect(proposal.solver.rosterReturned).toBeGreaterThan(0);
   }, 120_000);
 
   // The windows alone, from the day as booked (a denser invented day, 12 exams a room, the same

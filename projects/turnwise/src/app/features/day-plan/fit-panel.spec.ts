@@ -115,6 +115,11 @@ describe('FitPanel', () => {
     expect(text()).toContain("Best found in 2 rounds, 6 pushes along rooms and 1 window with the roster's crews (not proven the best possible)");
   });
 
+  it('counts the moves taken back at the end, when the day did not need them', async () => {
+    const { text } = await render({ ...PROPOSAL, solver: { ...PROPOSAL.solver, roster: 'rounds', rosterRounds: 2, rosterPushes: 3, rosterReturned: 1 } }, true);
+    expect(text()).toContain("Best found in 2 rounds, 3 pushes along rooms and 1 move taken back with the roster's crews (not proven the best possible)");
+  });
+
   it('on a small roster day solved with its people in the model, says it is the best possible and who works what was planned', async () => {
     const { text } = await render({ ...PROPOSAL, solver: { ...PROPOSAL.solver, roster: 'exact' } }, true);
     expect(text()).toContain("Best possible with the roster's people");

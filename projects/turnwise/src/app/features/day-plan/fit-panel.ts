@@ -131,7 +131,7 @@ export class FitPanel {
     // Planned in rounds, never proven the best: a window's optimality gap says nothing of the day's.
     if (solver.rosterRounds !== undefined) {
       const count = (n: number | undefined, one: string, more: string) => (n ? [`${n} ${n === 1 ? one : more}`] : []);
-      const steps = [...count(solver.rosterRounds, 'round', 'rounds'), ...count(solver.rosterPushes, 'push along a room', 'pushes along rooms'), ...count(solver.rosterWindows, 'window', 'windows')];
+      const steps = [...count(solver.rosterRounds, 'round', 'rounds'), ...count(solver.rosterPushes, 'push along a room', 'pushes along rooms'), ...count(solver.rosterWindows, 'window', 'windows'), ...count(solver.rosterReturned, 'move taken back', 'moves taken back')];
       const words = steps.length > 1 ? `${steps.slice(0, -1).join(', ')} and ${steps.at(-1)}` : steps.join('');
       const limited = solver.status === 'time-limit' ? ' within the time limit' : '';
       return `Best found in ${words}${limited} with the roster's crews (not proven the best possible); ${took}.`;
