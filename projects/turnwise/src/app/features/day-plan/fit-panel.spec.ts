@@ -48,6 +48,37 @@ describe('FitPanel', () => {
     expect(text()).toContain('Best possible (whole day)');
   });
 
+  it('folds the gaps whose exam has started or is due apart from those still ahead, and says so in the summary', async () => {
+    const earlier = [
+      { fromExamId: 30, toExamId: 31, accession: 'FX-31', roomId: 1, verdict: 'short' as const, shortByMinutes: 6, reason: 'neither exam may move: FX-30 has started, FX-31 has started' },
+      { fromExamId: 32, toExamId: 33, accession: 'FX-33', roomId: 2, verdict: 'overlap' as const, shortByMinutes: 9, reason: 'neither exam may move: FX-32 has started, FX-33 is past its start time' },
+    ];
+    const fixed = [...PROPOSAL.fixed, { examId: 30, accession: 'FX-30', reason: 'started' as const }, { examId: 31, accession: 'FX-31', reason: 'started' as const }, { examId: 32, accession: 'FX-32', reason: 'started' as const }, { examId: 33, accession: 'FX-33', reason: 'passed' as const }];
+    const { host, text } = await render({ ...PROPOSAL, remaining: [...PROPOSAL.remaining, ...earlier], fixed });
+    expect(text()).toContain('Leaves 1 gap still ahead short or overlapping: 2 exams moved, 10 min in all, the day ends at 18:40. 2 gaps earlier today are past changing (their exams have started or are due).');
+    expect(host.querySelector('h3.unsolved')!.textContent!.replace(/\s+/g, ' ')).toContain('Still short or overlapping 1');
+    const folded = host.querySelector('details.over')!;
+    expect(folded.hasAttribute('open')).toBe(false);
+    expect(folded.querySelector('summary')!.textContent!.replace(/\s+/g, ' ')).toContain('Earlier today, past changing 2');
+    expect(folded.textContent).toContain('FX-31 in MR 1');
+    expect(folded.textContent).toContain('FX-33 in MR 2');
+    expect(folded.textContent).not.toContain('FX-9');
+  });
+
+  it('with only gaps past changing left, clears every gap still ahead (one of them: "its exam")', async () => {
+    const remaining = [{ fromExamId: 30, toExamId: 31, accession: 'FX-31', roomId: 1, verdict: 'short' as const, shortByMinutes: 6, reason: 'neither exam may move' }];
+    const fixed = [{ examId: 31, accession: 'FX-31', reason: 'started' as const }];
+    const { host, text } = await render({ ...PROPOSAL, remaining, fixed });
+    expect(text()).toContain('Clears every short and overlapping gap still ahead: 2 exams moved, 10 min in all, the day ends at 18:40. 1 gap earlier today is past changing (its exam has started or is due).');
+    expect(host.querySelector('h3.unsolved')).toBeNull();
+  });
+
+  it('with nothing to change and a gap past changing, says every gap still ahead fits', async () => {
+    const remaining = [{ fromExamId: 30, toExamId: 31, accession: 'FX-31', roomId: 1, verdict: 'short' as const, shortByMinutes: 6, reason: 'neither exam may move' }];
+    const { text } = await render({ ...PROPOSAL, changes: [], remaining, fixed: [{ examId: 31, accession: 'FX-31', reason: 'started' }] });
+    expect(text()).toContain('Every gap still ahead fits: nothing to change. 1 gap earlier today is past changing');
+  });
+
   it('says "short by" once when the reason left for people already opens with it', async () => {
     const remaining = [{ fromExamId: 8, toExamId: 9, accession: 'FX-9', roomId: 3, verdict: 'short' as const, shortByMinutes: 8, reason: 'Short by 8 min: Aide 1 is in MR 2 until 09:11' }];
     const { text } = await render({ ...PROPOSAL, remaining });

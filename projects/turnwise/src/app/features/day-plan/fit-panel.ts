@@ -71,13 +71,23 @@ const FIXED_WORDS: Readonly<Record<DayFitAnswer['fixed'][number]['reason'], stri
         }
       </ul>
     }
-    @if (p.remaining.length > 0) {
-      <h3 class="unsolved">Still short or overlapping <span class="count">{{ p.remaining.length }}</span></h3>
+    @if (ahead().length > 0) {
+      <h3 class="unsolved">Still short or overlapping <span class="count">{{ ahead().length }}</span></h3>
       <ul class="remaining">
-        @for (gap of p.remaining; track gap.toExamId) {
+        @for (gap of ahead(); track gap.toExamId) {
           <li><span class="accession">{{ gap.accession }}</span> in {{ roomName(gap.roomId) }}: {{ leftWords(gap) }}</li>
         }
       </ul>
+    }
+    @if (over().length > 0) {
+      <details class="over">
+        <summary>Earlier today, past changing <span class="count">{{ over().length }}</span></summary>
+        <ul class="remaining">
+          @for (gap of over(); track gap.toExamId) {
+            <li><span class="accession">{{ gap.accession }}</span> in {{ roomName(gap.roomId) }}: {{ leftWords(gap) }}</li>
+          }
+        </ul>
+      </details>
     }
     @if (p.fixed.length > 0) {
       <p class="fixed" [title]="fixedList()">May not move: {{ fixedWords() }}.</p>
@@ -98,6 +108,11 @@ const FIXED_WORDS: Readonly<Record<DayFitAnswer['fixed'][number]['reason'], stri
     .solver, .fixed { color: var(--mat-sys-on-surface-variant); font: var(--mat-sys-body-small); }
     ul { margin: 0; padding: 0 0 0 18px; font: var(--mat-sys-body-medium); font-variant-numeric: tabular-nums; display: grid; gap: 2px; }
     .accession { font-weight: 500; }
+    .over summary { cursor: pointer; font: var(--mat-sys-title-small); color: var(--mat-sys-on-surface-variant); display: flex; gap: 8px; align-items: baseline; }
+    .over summary::before { content: '▸'; }
+    .over[open] summary::before { content: '▾'; }
+    .over summary::-webkit-details-marker { display: none; }
+    .over ul { margin-top: 4px; color: var(--mat-sys-on-surface-variant); }
     .actions { display: flex; gap: 8px; flex-wrap: wrap; margin-top: 4px; }
   `,
 })
@@ -111,16 +126,31 @@ export class FitPanel {
   readonly discarded = output<void>();
 
   protected readonly time = clock;
+  /**
+   * The gaps left whose arriving exam has started or is already due: their turnover is over or
+   * past changing, so they are listed apart (folded) from those still ahead.
+   */
+  protected readonly over = computed(() => {
+    const gone = new Set(this.proposal().fixed.filter((f) => f.reason === 'started' || f.reason === 'passed').map((f) => f.examId));
+    return this.proposal().remaining.filter((gap) => gone.has(gap.toExamId));
+  });
+  protected readonly ahead = computed(() => {
+    const over = new Set(this.over());
+    return this.proposal().remaining.filter((gap) => !over.has(gap));
+  });
   protected readonly otherMoves = computed(() => this.proposal().moves.filter((m) => m.minutesMoved === 0));
   protected readonly summary = computed(() => {
-    const { objective, remaining, changes } = this.proposal();
-    if (changes.length === 0 && remaining.length === 0) return 'Every gap already fits: nothing to change.';
+    const { objective, changes } = this.proposal();
+    const [ahead, over] = [this.ahead().length, this.over().length];
+    const earlier = over > 0 ? ` ${over} gap${over === 1 ? '' : 's'} earlier today ${over === 1 ? 'is' : 'are'} past changing (${over === 1 ? 'its exam has' : 'their exams have'} started or ${over === 1 ? 'is' : 'are'} due).` : '';
+    if (changes.length === 0 && ahead === 0) return `${over > 0 ? 'Every gap still ahead fits' : 'Every gap already fits'}: nothing to change.${earlier}`;
     const parts = [`${objective.examsMoved} exam${objective.examsMoved === 1 ? '' : 's'} moved`];
     if (objective.minutesMoved > 0) parts.push(`${objective.minutesMoved} min in all`);
     if (objective.helpersAdded > 0) parts.push(`${objective.helpersAdded} helper${objective.helpersAdded === 1 ? '' : 's'}`);
     if (objective.dayEndsAt) parts.push(`the day ends at ${clock(objective.dayEndsAt)}`);
-    const cleared = remaining.length === 0 ? 'Clears every short and overlapping gap' : `Leaves ${remaining.length} gap${remaining.length === 1 ? '' : 's'} short or overlapping`;
-    return `${cleared}: ${parts.join(', ')}.`;
+    const still = over > 0 ? ' still ahead' : '';
+    const cleared = ahead === 0 ? `Clears every short and overlapping gap${still}` : `Leaves ${ahead} gap${ahead === 1 ? '' : 's'}${still} short or overlapping`;
+    return `${cleared}: ${parts.join(', ')}.${earlier}`;
   });
   protected readonly solverWords = computed(() => {
     const { solver } = this.proposal();
