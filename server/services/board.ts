@@ -95,7 +95,9 @@ function arrivalsSoon(roomDays: RoomDay[], states: RoomNow[], nowMs: number, for
 function boardRoom(roomDay: RoomDay, now: RoomNow, format: (ms: number) => string, tasks: BoardShiftTask[]): BoardRoom {
   const { room, slots } = roomDay;
   const next = now.next >= 0 ? slots[now.next]! : undefined;
-  const expectedMs = now.expectedReadyAtMs ?? now.readyAtMs;
+  // The estimate as the card shows it (a whole minute, never earlier than it is): how late the next patient runs follows it.
+  const estimate = now.expectedReadyAtMs ?? now.readyAtMs;
+  const expectedMs = estimate === null ? null : Math.ceil(estimate / MINUTE) * MINUTE;
   const lateMs = next && expectedMs !== null ? expectedMs - next.startMs : 0;
   return {
     roomId: room.id,
@@ -103,6 +105,7 @@ function boardRoom(roomDay: RoomDay, now: RoomNow, format: (ms: number) => strin
     modality: room.modality,
     state: now.state,
     readyAt: now.readyAtMs === null ? null : format(now.readyAtMs),
+    expectedReadyAt: expectedMs === null ? null : format(expectedMs),
     current: toBoardSlot(now.current >= 0 ? slots[now.current] : undefined, format),
     next: toBoardSlot(next, format),
     runningLateMinutes: lateMs > 0 ? Math.ceil(lateMs / MINUTE) : 0,

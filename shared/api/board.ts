@@ -37,12 +37,21 @@ export interface BoardRoom {
   name: string;
   modality: string;
   state: RoomState;
-  /** When the room is (or is expected to be) ready for the next patient; null when closed with nothing next. */
+  /**
+   * When the room is (or is planned to be) ready for the next patient; null when closed with
+   * nothing next. During a turnover this is the plan, so the card can say it is overdue.
+   */
   readyAt: string | null;
+  /**
+   * The best estimate now, rounded up to the minute: during a turnover from the steps still to do
+   * (later than `readyAt` when the work runs behind the plan), else `readyAt`. The front desk
+   * plans the next patient by this one.
+   */
+  expectedReadyAt: string | null;
   /** The exam in the room now (state `in exam`), or the one that just left (turnover). */
   current: BoardSlot | null;
   next: BoardSlot | null;
-  /** readyAt − next.start when positive. */
+  /** expectedReadyAt − next.start in whole minutes when positive. */
   runningLateMinutes: number;
   /** The open turnover, if any (for a link to the checklist). */
   turnoverId: number | null;

@@ -53,12 +53,16 @@ describe('Rooms now: a room through its day, driven by the clock', () => {
   it('turns over after "exam finished", then dries, then is ready when completed', async () => {
     const opened = await finish('B-1');
     expect(opened).toMatchObject({ examEndedAt: local('08:45'), cleanType: 'routine', leaving: { accession: 'B-1' }, arriving: { accession: 'B-2' } });
-    expect(await mr2()).toMatchObject({ state: 'turning over', turnoverId: opened.turnoverId, readyAt: local('09:05'), runningLateMinutes: 5 });
+    expect(await mr2()).toMatchObject({ state: 'turning over', turnoverId: opened.turnoverId, readyAt: local('09:05'), expectedReadyAt: local('09:05'), runningLateMinutes: 5 });
 
     // ready-at stays the plan while the work runs behind it, so the board can say "overdue";
     // how late the next patient runs follows the estimate (the 20 planned minutes from now)
     at(h, '09:06');
-    expect(await mr2()).toMatchObject({ state: 'turning over', readyAt: local('09:05'), runningLateMinutes: 26 });
+    expect(await mr2()).toMatchObject({ state: 'turning over', readyAt: local('09:05'), expectedReadyAt: local('09:26'), runningLateMinutes: 26 });
+    // Half a minute later the estimate is 09:26:30: shown as 09:27 (the room is not ready at
+    // 09:26), and the next patient runs late by what the card shows, 27 min, not by 26.5 rounded.
+    h.clock.set(`${DAY}T09:06:30-06:00`);
+    expect(await mr2()).toMatchObject({ readyAt: local('09:05'), expectedReadyAt: local('09:27'), runningLateMinutes: 27 });
     at(h, '08:45');
 
     // the hands-on work done faster than planned: every surface wiped at 08:45

@@ -34,9 +34,20 @@ export class BoardCard {
   readonly arrived = output<number>();
   readonly undoArrived = output<number>();
 
+  /**
+   * A turnover running behind its plan: the steps still to do end after the planned ready-at.
+   * The card then leads with the estimate (what the next patient waits for; "Running late"
+   * follows it too) and keeps the plan beside it.
+   */
+  protected readonly behind = computed(() => {
+    const { state, readyAt, expectedReadyAt } = this.room();
+    return COUNTING_DOWN.includes(state) && readyAt !== null && expectedReadyAt !== null && Date.parse(expectedReadyAt) - Date.parse(readyAt) >= 60_000;
+  });
+  protected readonly shownReadyAt = computed(() => (this.behind() ? this.room().expectedReadyAt : this.room().readyAt));
   /** "in 17 min" or "overdue by 4 min", for the states that end by themselves at ready-at. */
   protected readonly countdown = computed(() => {
-    const { state, readyAt } = this.room();
+    const state = this.room().state;
+    const readyAt = this.shownReadyAt();
     return COUNTING_DOWN.includes(state) && readyAt ? readyCountdown(readyAt, this.now()) : null;
   });
   /** The wall display's state band: the icon and word told apart by shape and pattern as well as colour. */

@@ -92,6 +92,7 @@ describe('RoomsNow', () => {
     expect(text(first.querySelector('.ready .time'))).toBe('09:12');
     // minutes, not a second clock time beside ready-at ("Ready at 09:12 in 12:00" read as two times)
     expect(text(first.querySelector('.countdown'))).toBe('in 12 min');
+    expect(first.querySelector('.planned')).toBeNull(); // on plan: no second time beside it
     expect(text(first.querySelector('.next .time'))).toBe('09:15');
     expect(text(first.querySelector('.next .accession'))).toBe('ACC-1012');
     expect(text(first.querySelector('.next .procedure'))).toBe('MR knee without contrast');
@@ -120,6 +121,18 @@ describe('RoomsNow', () => {
     await settle(fixture);
     expect(text(cards(page)[0].querySelector('.countdown'))).toBe('overdue by 4 min');
     expect(cards(page)[0].querySelector('.countdown.overdue-by')).not.toBeNull();
+  });
+
+  it('leads with the estimate when a turnover runs behind its plan, beside the plan, so "Running late" agrees with it', async () => {
+    // Invented: planned ready 09:12, but the steps still to do end at 09:21; next patient 09:15.
+    const behind = exampleBoard([exampleBoardRoom(1, { ...busyDay.rooms[0], expectedReadyAt: at('09:21'), runningLateMinutes: 6 })]);
+    const { page } = await render({ board: behind });
+    const card = cards(page)[0];
+    expect(text(card.querySelector('.ready dt'))).toBe('Expected ready');
+    expect(text(card.querySelector('.ready .time'))).toBe('09:21');
+    expect(text(card.querySelector('.countdown'))).toBe('in 21 min');
+    expect(text(card.querySelector('.planned'))).toBe('planned 09:12');
+    expect(text(card)).toContain('Running late by 6 min');
   });
 
   it('lists the coming hour\'s arrivals across rooms and marks any of them arrived', async () => {

@@ -30,6 +30,7 @@ export function exampleBoardRoom(roomId: number, overrides: Partial<BoardRoom> =
     turnoverId: null,
     tasks: [],
     ...overrides,
+    expectedReadyAt: overrides.expectedReadyAt ?? overrides.readyAt ?? null,
   };
 }
 
