@@ -12,6 +12,27 @@ const key = (target: HTMLElement, key: string, extra: KeyboardEventInit = {}) =>
 const pointer = (target: EventTarget, type: string, clientX: number, clientY: number) =>
   target.dispatchEvent(new MouseEvent(type, { bubbles: true, cancelable: true, button: 0, clientX, clientY }));
 
+describe('DayTimeline now line', () => {
+  afterEach(() => TestBed.inject(HttpTestingController).verify());
+
+  it('is drawn across the lanes on today, but not across the room names once the lanes scroll past it', async () => {
+    const { fixture, page } = await renderDay({ now: at('09:00') });
+    const line = () => page.querySelector<HTMLElement>('tw-day-timeline .now-line');
+    expect(line()).not.toBeNull();
+    // Its place along the time axis, from the left of the lanes (the 172 px room names before it).
+    const x = parseFloat(line()!.style.left) - 172;
+    const scroller = page.querySelector<HTMLElement>('tw-day-timeline .scroller')!;
+    scroller.scrollLeft = x + 40;
+    scroller.dispatchEvent(new Event('scroll'));
+    await settle(fixture);
+    expect(line()).toBeNull();
+    scroller.scrollLeft = Math.max(0, x - 40);
+    scroller.dispatchEvent(new Event('scroll'));
+    await settle(fixture);
+    expect(line()).not.toBeNull();
+  });
+});
+
 describe('DayTimeline moves', () => {
   afterEach(() => TestBed.inject(HttpTestingController).verify());
 

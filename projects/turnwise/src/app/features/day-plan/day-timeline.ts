@@ -8,7 +8,7 @@ import type { DayPlan, PlanExam, PlanRoom } from '@shared/api/plan';
 import { Clock } from '../../core/time/clock';
 import { DayPlanStore } from './day-plan-store';
 import { LANE_HEADER_PX, LANE_HEIGHT_PX } from './lane-size';
-import { centreAlongAxis, scrollToDayStart } from './lane-scroll';
+import { centreAlongAxis, nowLineClear, scrollToDayStart } from './lane-scroll';
 import { LaneWindow } from './lane-window';
 import type { FitGhost, FitPreview } from './fit-preview';
 import { previewMove } from './plan-preview';
@@ -80,6 +80,8 @@ export class DayTimeline {
     const { startMs, endMs } = this.scale();
     return this.plan().date === this.today() && now >= startMs && now <= endMs ? xOf(this.scale(), now) : null;
   });
+  /** The now line is drawn only clear of the sticky room names (see nowLineClear). */
+  protected readonly nowClear = nowLineClear(() => this.scroller().nativeElement, this.nowX);
 
   /** Each exam with the room it is stored in, to find where a move starts from. */
   private readonly homes = computed(() => new Map(this.plan().rooms.flatMap((room) => room.exams.map((exam) => [exam.id, { exam, room }] as const))));

@@ -7,7 +7,7 @@ import { DateTime } from 'luxon';
 
 import type { DayPlan } from '@shared/api/plan';
 import { Clock } from '../../core/time/clock';
-import { centreAlongAxis, scrollToDayStart } from './lane-scroll';
+import { centreAlongAxis, nowLineClear, scrollToDayStart } from './lane-scroll';
 import { LANE_HEADER_PX } from './lane-size';
 import { PersonLane } from './person-lane';
 import { clockOf } from './lane-view';
@@ -66,6 +66,8 @@ export class PeopleView {
     const { startMs, endMs } = this.scale();
     return this.plan().date === this.today() && now >= startMs && now <= endMs ? xOf(this.scale(), now) : null;
   });
+  /** The now line is drawn only clear of the sticky room names (see nowLineClear). */
+  protected readonly nowClear = nowLineClear(() => this.scroller().nativeElement, this.nowX);
   protected readonly lanes = computed(() => (this.plan().people?.people ?? []).map((person) => personLaneView(person, this.plan(), this.scale(), this.onlyProblems())));
   protected readonly clashes = computed(() => this.lanes().reduce((sum, lane) => sum + lane.clashes.length, 0));
   protected readonly uncovered = computed(() => uncoveredRooms(this.plan()).map((room) => room.name));
