@@ -32,6 +32,24 @@ describe('DayPlan problem gaps and patients to call', () => {
     expect(text(page.querySelector('.problem-steps .where'))).toBe('Problem 1 of 2');
   });
 
+  it('on today, starts stepping from now: the first problem still ahead, not the morning\'s that is over', async () => {
+    // At 08:50 ACC-2's gap (into 08:45) has gone by; ACC-21's (09:00) is still ahead.
+    const { page, fixture, backend } = await renderDay({ plan: twoProblems(), now: at('08:50') });
+    page.querySelector<HTMLButtonElement>('button.next-problem')!.click();
+    await settle(fixture);
+    backend.match(() => true);
+    expect(text(page.querySelector('.problem-steps .where'))).toBe('Problem 2 of 2');
+    expect(text(page.querySelector('tw-gap-panel h2'))).toContain('ACC-21');
+  });
+
+  it('on today, "previous" with no gap open goes to the last problem gone by', async () => {
+    const { page, fixture, backend } = await renderDay({ plan: twoProblems(), now: at('08:50') });
+    key('[');
+    await settle(fixture);
+    backend.match(() => true);
+    expect(text(page.querySelector('tw-gap-panel h2'))).toContain('ACC-2');
+  });
+
   it("explains a room's \"N to check\" and opens its first problem gap when chosen", async () => {
     const { page, fixture, backend } = await renderDay({ plan: twoProblems() });
     const toCheck = page.querySelector<HTMLButtonElement>('[data-room-id="2"] button.problems')!;

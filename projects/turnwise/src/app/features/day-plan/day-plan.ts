@@ -16,6 +16,7 @@ import { CautionNote, cautionsForDay } from '../../shared/ui/caution-note';
 import { DayPicker } from '../../shared/ui/day-picker';
 import { LiveIndicator } from '../../shared/ui/live-indicator';
 import { SiteSettingsService } from '../../core/site/site-settings-service';
+import { Clock } from '../../core/time/clock';
 import { VerdictSummary } from '../../shared/ui/verdict-summary';
 import { BandLegend } from './band-legend';
 import { DayFitStore } from './day-fit-store';
@@ -28,7 +29,7 @@ import { HistoryPanel } from './history-panel';
 import { PatientsToCallPanel } from './patients-to-call-panel';
 import { PeopleView } from './people-view';
 import { gapPeopleWords } from './people-reason';
-import { ProblemGap, problemGaps, stepProblem } from './problem-gaps';
+import { ProblemGap, firstProblemIn, problemGaps, stepProblem } from './problem-gaps';
 import { ZOOMS, Zoom } from './timeline-scale';
 import { RosterDialog, type RosterDialogData } from '../roster/roster-dialog';
 
@@ -53,6 +54,7 @@ export class DayPlan {
   private readonly router = inject(Router);
   private readonly injector = inject(Injector);
   private readonly dialog = inject(MatDialog);
+  private readonly clock = inject(Clock);
   private readonly user = inject(AuthService).user;
   private readonly role = computed(() => this.user()?.role ?? null);
   protected readonly store = inject(DayPlanStore);
@@ -176,14 +178,19 @@ export class DayPlan {
 
   /** Opens the problem gap after (`1`) or before (`-1`) the one open, and brings it into view. */
   protected stepProblem(direction: 1 | -1): void {
-    const problem = stepProblem(this.problems(), this.selectedGap(), direction);
+    const problem = stepProblem(this.problems(), this.selectedGap(), direction, this.fromMs());
     if (problem) this.openProblem(problem);
   }
 
-  /** A room's "N to check": its first problem gap. */
+  /** A room's "N to check": its first problem gap (on today, the first still ahead). */
   protected openRoomProblems(roomId: number): void {
-    const problem = this.problems().find((candidate) => candidate.room.id === roomId);
+    const problem = firstProblemIn(this.problems(), roomId, this.fromMs());
     if (problem) this.openProblem(problem);
+  }
+
+  /** Where stepping through problems starts: now on today (the morning's gaps are over), else the day's start. */
+  private fromMs(): number | null {
+    return this.day() === this.today() ? this.clock.now() : null;
   }
 
   private openProblem(problem: ProblemGap): void {

@@ -26,12 +26,26 @@ export function problemGaps(plan: DayPlan): ProblemGap[] {
 }
 
 /**
- * The problem after (`1`) or before (`-1`) the gap shown, wrapping round the day; the first (or
- * last) when no problem is shown. Null when the day has none.
+ * The problem after (`1`) or before (`-1`) the gap shown, wrapping round the day. When no problem
+ * is shown: from `fromMs` (now, on today: the first still ahead, or the last gone by), else the
+ * day's first (or last). Null when the day has none.
+ *
+ * @example
+ * stepProblem(problems, null, 1, Date.now()); // the first problem gap whose exam has not started yet
  */
-export function stepProblem(problems: readonly ProblemGap[], currentToExamId: number | null, direction: 1 | -1): ProblemGap | null {
+export function stepProblem(problems: readonly ProblemGap[], currentToExamId: number | null, direction: 1 | -1, fromMs: number | null = null): ProblemGap | null {
   if (problems.length === 0) return null;
   const index = problems.findIndex((problem) => problem.gap.toExamId === currentToExamId);
-  if (index < 0) return direction === 1 ? problems[0] : problems[problems.length - 1];
-  return problems[(index + direction + problems.length) % problems.length];
+  if (index >= 0) return problems[(index + direction + problems.length) % problems.length];
+  if (fromMs !== null) {
+    const found = direction === 1 ? problems.find((p) => p.atMs >= fromMs) : [...problems].reverse().find((p) => p.atMs < fromMs);
+    if (found) return found;
+  }
+  return direction === 1 ? problems[0] : problems[problems.length - 1];
+}
+
+/** A room's first problem gap, from `fromMs` (now, on today) when it has one still ahead. */
+export function firstProblemIn(problems: readonly ProblemGap[], roomId: number, fromMs: number | null): ProblemGap | undefined {
+  const inRoom = problems.filter((p) => p.room.id === roomId);
+  return (fromMs === null ? undefined : inRoom.find((p) => p.atMs >= fromMs)) ?? inRoom[0];
 }
