@@ -50,6 +50,18 @@ describe('DayPlan problem gaps and patients to call', () => {
     expect(text(page.querySelector('tw-gap-panel h2'))).toContain('ACC-2');
   });
 
+  it('closes the gap panel when Make the day fit is asked for: the proposal takes the side panel', async () => {
+    const { page, fixture, backend } = await renderDay({ plan: twoProblems() });
+    page.querySelector<HTMLButtonElement>('button.next-problem')!.click();
+    await settle(fixture);
+    backend.match((req) => req.url.includes('/fixes'));
+    expect(page.querySelector('tw-gap-panel')).not.toBeNull();
+    page.querySelector<HTMLButtonElement>('button.make-fit')!.click();
+    await settle(fixture);
+    expect(page.querySelector('tw-gap-panel')).toBeNull();
+    expect(backend.match({ method: 'POST', url: '/api/days/2027-03-15/fit' })).toHaveLength(1);
+  });
+
   it("explains a room's \"N to check\" and opens its first problem gap when chosen", async () => {
     const { page, fixture, backend } = await renderDay({ plan: twoProblems() });
     const toCheck = page.querySelector<HTMLButtonElement>('[data-room-id="2"] button.problems')!;

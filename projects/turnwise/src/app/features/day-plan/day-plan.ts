@@ -136,6 +136,12 @@ export class DayPlan {
     void this.router.navigate(['/day', date]);
   }
 
+  /** The proposal takes the side panel: a gap panel open before it closes (it would stack under the proposal and reopen after it). */
+  protected proposeFit(): void {
+    this.selectedGap.set(null);
+    void this.fit.propose();
+  }
+
   protected closeGap(): void {
     const toExamId = this.selectedGap();
     this.selectedGap.set(null);
