@@ -1,3 +1,4 @@
+import type { ExamListFieldChange } from '../exam-list/diff';
 import type { ExamListIssue, ExamListRow } from '../exam-list/model';
 import type { PlanSummary } from './plan';
 
@@ -13,8 +14,8 @@ export interface ImportResult {
   imported: number;
   /** Accessions new to the day. */
   added: string[];
-  /** Accessions already on the day whose fields change, with the file's column names. */
-  changed: { accession: string; fields: string[] }[];
+  /** Accessions already on the day whose fields change, with the file's column names and each change, day → file. */
+  changed: { accession: string; fields: string[]; values: ExamListFieldChange[] }[];
   /** Accessions on the current list that the file drops. */
   removed: string[];
   unchanged: number;

@@ -19,7 +19,7 @@ describe('diffExamLists', () => {
     const incoming = [{ ...KNEE, accession: 'A4' }, { ...KNEE, accession: 'A3', room: 'MR 2' }, KNEE];
     expect(diffExamLists(current, incoming)).toEqual({
       added: ['A4'],
-      changed: [{ accession: 'A3', fields: ['room'] }],
+      changed: [{ accession: 'A3', fields: ['room'], values: [{ column: 'room', from: 'MR 1', to: 'MR 2' }] }],
       removed: ['A2'],
       unchanged: 1,
     });
@@ -38,14 +38,21 @@ describe('diffExamLists', () => {
       contrast: true,
       notes: 'Gown and gloves',
     };
-    expect(diffExamLists([KNEE], [changed]).changed).toEqual([
-      { accession: 'A1', fields: ['room', 'start', 'duration_min', 'procedure', 'coil', 'precaution', 'mobility', 'contrast', 'notes'] },
-    ]);
+    const [diff] = diffExamLists([KNEE], [changed]).changed;
+    expect(diff!.fields).toEqual(['room', 'start', 'duration_min', 'procedure', 'coil', 'precaution', 'mobility', 'contrast', 'notes']);
+    // Each as the day has it and as the file has it, in the same order, as text.
+    expect(diff!.values.map((v) => v.column)).toEqual(diff!.fields);
+    expect(diff!.values.find((v) => v.column === 'duration_min')).toEqual({ column: 'duration_min', from: '30', to: String(changed.durationMinutes) });
+    expect(diff!.values.find((v) => v.column === 'contrast')).toEqual({ column: 'contrast', from: 'no', to: 'yes' });
+    expect(diff!.values.find((v) => v.column === 'notes')).toEqual({ column: 'notes', from: '', to: 'Gown and gloves' });
+    expect(diff!.values.find((v) => v.column === 'start')).toEqual({ column: 'start', from: KNEE.start, to: changed.start });
   });
 
   it('compares starts as instants, whatever offset they are written with', () => {
     expect(diffExamLists([KNEE], [{ ...KNEE, start: '2027-03-15T13:00:00Z' }]).unchanged).toBe(1);
-    expect(diffExamLists([KNEE], [{ ...KNEE, start: '2027-03-15T08:00:00-06:00' }]).changed).toEqual([{ accession: 'A1', fields: ['start'] }]);
+    expect(diffExamLists([KNEE], [{ ...KNEE, start: '2027-03-15T08:00:00-06:00' }]).changed).toEqual([
+      { accession: 'A1', fields: ['start'], values: [{ column: 'start', from: KNEE.start, to: '2027-03-15T08:00:00-06:00' }] },
+    ]);
   });
 
   it('treats a missing coil or note stored as null or as an empty string alike', () => {
@@ -59,7 +66,9 @@ describe('diffExamLists', () => {
     });
 
     it('shows an unparseable stored start as changed rather than hiding it', () => {
-      expect(diffExamLists([{ ...KNEE, start: 'not a time' }], [KNEE]).changed).toEqual([{ accession: 'A1', fields: ['start'] }]);
+      expect(diffExamLists([{ ...KNEE, start: 'not a time' }], [KNEE]).changed).toEqual([
+        { accession: 'A1', fields: ['start'], values: [{ column: 'start', from: 'not a time', to: KNEE.start }] },
+      ]);
     });
   });
 });

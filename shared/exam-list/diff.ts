@@ -18,16 +18,29 @@ export type ExamListKeyed = Omit<ExamListRow, 'row'>;
  * What a re-import would do to the stored day list.
  *
  * @example
- * const diff: ExamListDiff = { added: ['A4'], changed: [{ accession: 'A3', fields: ['room'] }], removed: ['A2'], unchanged: 7 };
+ * const diff: ExamListDiff = { added: ['A4'], changed: [{ accession: 'A3', fields: ['room'], values: [{ column: 'room', from: 'MR 1', to: 'MR 2' }] }], removed: ['A2'], unchanged: 7 };
  */
 export interface ExamListDiff {
   /** Accessions only in the file, in file order. */
   added: string[];
-  /** Accessions in both whose fields differ, in file order, naming the changed file columns. */
-  changed: { accession: string; fields: string[] }[];
+  /**
+   * Accessions in both whose fields differ, in file order, naming the changed file columns, and
+   * each change as the day has it and as the file has it (`values`, in `fields` order).
+   */
+  changed: { accession: string; fields: string[]; values: ExamListFieldChange[] }[];
   /** Accessions only in the stored list, in stored order. */
   removed: string[];
   unchanged: number;
+}
+
+/**
+ * One field a re-import changes: as the stored day has it (`from`) and as the file has it (`to`),
+ * as text (a start as its ISO time, contrast as yes or no, a missing value as '').
+ */
+export interface ExamListFieldChange {
+  column: ExamListColumn;
+  from: string;
+  to: string;
 }
 
 // Named by the file's columns, since the preview shows them next to the file the user edited.
@@ -44,6 +57,22 @@ const COMPARED: { column: ExamListColumn; same: (a: ExamListKeyed, b: ExamListKe
   { column: 'contrast', same: (a, b) => a.contrast === b.contrast },
   { column: 'notes', same: (a, b) => (a.notes ?? '') === (b.notes ?? '') },
 ];
+
+/** A field of an exam as text, by its file column. */
+function asText(exam: ExamListKeyed, column: ExamListColumn): string {
+  switch (column) {
+    case 'room': return exam.room;
+    case 'start': return exam.start;
+    case 'duration_min': return String(exam.durationMinutes);
+    case 'procedure': return exam.procedure;
+    case 'coil': return exam.coil ?? '';
+    case 'precaution': return exam.precaution;
+    case 'mobility': return exam.mobility;
+    case 'contrast': return exam.contrast ? 'yes' : 'no';
+    case 'notes': return exam.notes ?? '';
+    default: return '';
+  }
+}
 
 // Stored and imported starts are nearly always the canonical form, read without luxon's cost.
 function instant(iso: string): number {
@@ -74,7 +103,7 @@ export function diffExamLists(current: ExamListKeyed[], incoming: ExamListKeyed[
       continue;
     }
     const fields = COMPARED.filter(({ same }) => !same(before, exam)).map(({ column }) => column);
-    if (fields.length > 0) diff.changed.push({ accession: exam.accession, fields });
+    if (fields.length > 0) diff.changed.push({ accession: exam.accession, fields, values: fields.map((column) => ({ column, from: asText(before, column), to: asText(exam, column) })) });
     else diff.unchanged += 1;
   }
   diff.removed = current.filter((exam) => !incomingAccessions.has(exam.accession)).map((exam) => exam.accession);

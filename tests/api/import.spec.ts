@@ -43,7 +43,8 @@ describe('exam-list import API', () => {
     expect(res.status).toBe(200);
     expect(res.body.added).toEqual(['TW-NEW-1']);
     expect(res.body.removed).toEqual([exampleExamTable(DAY)[2]![0]]);
-    expect(res.body.changed).toEqual([{ accession: table[1]![0], fields: ['start'] }]);
+    // The start as the day has it (the example file's 07:30) and as the new file has it, with the site's offset.
+    expect(res.body.changed).toEqual([{ accession: table[1]![0], fields: ['start'], values: [{ column: 'start', from: `${DAY}T07:30:00-06:00`, to: `${DAY}T07:35:00-06:00` }] }]);
     const after = await dayExams();
     const moved = after.find((e) => e.accession === table[1]![0])!;
     expect(moved.id).toBe(before.find((e) => e.accession === table[1]![0])!.id);

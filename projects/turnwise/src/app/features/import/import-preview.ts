@@ -3,7 +3,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatTableModule } from '@angular/material/table';
 
 import type { ImportResult } from '@shared/api/import';
-import { SiteTime } from '../../shared/ui/site-time';
+import { SiteTime, siteClock } from '../../shared/ui/site-time';
 import { VerdictSummary } from '../../shared/ui/verdict-summary';
 import { issueLine } from './issue-text';
 
@@ -22,6 +22,11 @@ export class ImportPreview {
   protected readonly columns = [
     'row', 'accession', 'room', 'start', 'duration', 'procedure', 'coil', 'precaution', 'mobility', 'contrast',
   ];
+  /** A changed field's value as the preview shows it: a start as its site time, nothing as a dash. */
+  protected shown(column: string, value: string): string {
+    if (value === '') return '—';
+    return column === 'start' ? siteClock(value) || value : value;
+  }
   /** Exams the day has now: every one is either kept as is, changed or removed by the file. */
   protected readonly existing = computed(() => {
     const result = this.result();

@@ -25,7 +25,12 @@ const preview: ImportResult = {
   fileName: 'monday.csv',
   imported: 2,
   added: ['ACC-4'],
-  changed: [{ accession: 'ACC-1', fields: ['start', 'coil'] }],
+  changed: [
+    {
+      accession: 'ACC-1', fields: ['start', 'coil'],
+      values: [{ column: 'start', from: '2027-03-15T07:40:00-05:00', to: '2027-03-15T08:00:00-05:00' }, { column: 'coil', from: '', to: 'knee' }],
+    },
+  ],
   removed: ['ACC-2', 'ACC-3'],
   unchanged: 0,
   warnings: [{ row: 3, column: 'start', message: 'start 7:05 read as 07:05.' }],
@@ -99,7 +104,8 @@ describe('Import', () => {
     expect(text(setup.page.querySelector('.replace'))).toContain('This day already has 3 exams. Importing replaces that whole list');
     expect(text(setup.page.querySelector('.removed h3'))).toContain('2 exams are on the current list but not in the file, and will be removed');
     expect(Array.from(setup.page.querySelectorAll('.removed li')).map(text)).toEqual(['ACC-2', 'ACC-3']);
-    expect(text(setup.page.querySelector('.changed'))).toContain('ACC-1: start, coil');
+    // Each change as the day has it and as the file has it, a start in site time.
+    expect(text(setup.page.querySelector('.changed'))).toContain('ACC-1: start 07:40 → 08:00; coil — → knee');
     expect(text(setup.page.querySelector('.warnings'))).toContain('Row 3, start: 7:05 read as 07:05.');
     const rows = Array.from(setup.page.querySelectorAll('tr[mat-row]')).map((row) =>
       Array.from(row.querySelectorAll('td')).map(text),
@@ -189,7 +195,7 @@ describe('Import', () => {
     await settle(setup.fixture);
     const again = setup.backend.expectOne((r) => r.url === URL);
     expect(again.request.params.get('dryRun')).toBe('true');
-    again.flush({ ...preview, dayVersion: 8, changed: [{ accession: 'ACC-1', fields: ['start'] }] });
+    again.flush({ ...preview, dayVersion: 8, changed: [{ accession: 'ACC-1', fields: ['start'], values: [{ column: 'start', from: '2027-03-15T07:40:00-05:00', to: '2027-03-15T08:00:00-05:00' }] }] });
     await settle(setup.fixture);
     expect(text(setup.page.querySelector('.redone'))).toContain('The day list changed after your last preview');
     expect(text(setup.page.querySelector('button.commit'))).toContain('Replace the day list');
