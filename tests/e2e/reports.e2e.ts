@@ -80,7 +80,7 @@ describe('Reports: charts, their tables and CSV for a seeded week', { timeout: 1
       await page.goto(`${server.baseUrl}/reports`);
       const rooms = page.getByRole('region', { name: 'Turnover minutes by room' });
       await rooms.locator('tbody tr').first().waitFor();
-      assert.match(await page.locator('.range').innerText(), /2027-02-25 to 2027-03-03: 7 days, 2 with a day list/);
+      assert.match(await page.locator('.range').innerText(), /25 Feb 2027 to 3 Mar 2027: 7 days, 2 with a day list/);
       // MR 1: one turnover, 50 actual minutes (08:30 → 09:20)
       const mr1 = await rooms.locator('tbody tr').first().locator('th, td').allInnerTexts();
       assert.deepEqual([mr1[0], mr1[1], mr1[3], mr1[5]], ['MR 1', '1', '50', '50'], `MR 1's row: ${mr1.join(' | ')}`);

@@ -1,4 +1,5 @@
 /// <reference lib="dom" />
+import { DateTime } from 'luxon';
 import assert from 'node:assert/strict';
 import { after, before, describe, test } from 'node:test';
 import type { Browser, Locator, Page } from 'playwright-core';
@@ -43,7 +44,7 @@ describe('the roster: a charge technologist says who is on shift and sees the cl
         await gapMarker(page, `${prefix}-2`, 'fits').waitFor();
 
         await page.getByRole('button', { name: 'Roster' }).click();
-        await dialog(page).getByRole('heading', { name: `Roster for ${day}` }).waitFor();
+        await dialog(page).getByRole('heading', { name: `Roster for ${DateTime.fromISO(day, { locale: 'en-GB' }).toFormat('cccc d LLLL yyyy')}` }).waitFor();
         await dialog(page).getByText('No roster for this day').waitFor();
         await dialog(page).getByRole('button', { name: 'Count of aides' }).click();
         const first = rosterRow(page, 0);

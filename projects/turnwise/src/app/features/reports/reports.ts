@@ -11,6 +11,7 @@ import { daysInRange } from '@shared/api/reports';
 import { SiteSettingsService } from '../../core/site/site-settings-service';
 import { serverState } from '../../core/state/server-state';
 import { CautionNote } from '../../shared/ui/caution-note';
+import { shortDay } from '../../shared/ui/site-time';
 import { TurnoverService } from '../turnover/turnover-service';
 import { ReportPanel } from './report-panel';
 import { ReportService, type ReportFilters } from './report-service';
@@ -35,6 +36,7 @@ const toDay = (date: Date | null): string => (date ? DateTime.fromJSDate(date).t
 })
 export class Reports {
   protected readonly maxDays = REPORT_MAX_DAYS;
+  protected readonly day = shortDay;
   private readonly service = inject(ReportService);
   protected readonly today = inject(SiteSettingsService).today;
   private readonly turnovers = inject(TurnoverService);

@@ -7,6 +7,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { ApiError, Problem } from '@shared/api/errors';
 import type { DayRoster, RosterRow } from '@shared/api/roster';
 import { action } from '../../core/state/action';
+import { longDay } from '../../shared/ui/site-time';
 import { showProblems } from '../setup/form-problems';
 import { RosterApi } from './roster-api';
 import { rosterForm, rowsOf, type RosterForm } from './roster-form';
@@ -36,7 +37,7 @@ const SOURCE_WORDS: Readonly<Record<DayRoster['source'], string>> = {
   imports: [ReactiveFormsModule, MatDialogModule, MatButtonModule, MatProgressBarModule, RosterRows],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
-    <h2 mat-dialog-title>Roster for {{ data.date }}</h2>
+    <h2 mat-dialog-title>Roster for {{ dayName }}</h2>
     <mat-dialog-content>
       @if (roster(); as shown) {
         <p class="source" [attr.data-source]="shown.source">{{ sourceWords[shown.source] }}</p>
@@ -93,6 +94,7 @@ export class RosterDialog {
   private readonly fb = inject(NonNullableFormBuilder);
   private readonly ref = inject(MatDialogRef<RosterDialog, DayRoster>);
   protected readonly data = inject<RosterDialogData>(MAT_DIALOG_DATA);
+  protected readonly dayName = longDay(this.data.date);
   protected readonly sourceWords = SOURCE_WORDS;
   protected readonly roster = signal<DayRoster | null>(null);
   protected readonly loadError = signal<string | null>(null);

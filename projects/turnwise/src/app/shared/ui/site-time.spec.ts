@@ -1,4 +1,4 @@
-import { longDay, shiftDay, siteClock, SiteTime } from './site-time';
+import { longDay, shiftDay, shortDay, siteClock, SiteTime } from './site-time';
 
 describe('siteClock', () => {
   it('returns the wall-clock time at the offset written in the ISO time, not the browser zone', () => {
@@ -23,5 +23,12 @@ describe('shiftDay', () => {
 describe('longDay', () => {
   it('names the weekday and month', () => {
     expect(longDay('2027-03-15')).toBe('Monday 15 March 2027');
+  });
+});
+
+describe('shortDay', () => {
+  it('writes the day with its month as a word, so no one reads 3 Dec as 12 March', () => {
+    expect(shortDay('2026-12-03')).toBe('3 Dec 2026');
+    expect(shortDay('not a day')).toBe('not a day');
   });
 });

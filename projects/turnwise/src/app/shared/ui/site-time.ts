@@ -25,6 +25,17 @@ export function longDay(date: string): string {
 }
 
 /**
+ * A day in short, unambiguous in any country (no 11/3 against 3/11), e.g. "15 Mar 2027".
+ *
+ * @example
+ * shortDay('2027-03-15'); // '15 Mar 2027'
+ */
+export function shortDay(date: string): string {
+  const day = DateTime.fromISO(date, { zone: 'utc', locale: 'en-GB' });
+  return day.isValid ? day.toFormat('d LLL yyyy') : date;
+}
+
+/**
  * The `YYYY-MM-DD` date `days` away from `date` (calendar days, so daylight-saving days count as one).
  *
  * @example
