@@ -4,7 +4,7 @@ import type { ChangeReason, ExamEdit, ExamFields, ExamFormInput } from '../../sh
 import { EXAM_LIST_COLUMNS, parseExamTable, type ExamListRow } from '../../shared/exam-list';
 import { NotFoundError, Refusal, ValidationError } from '../errors';
 import { examColumns, storedFields, type ExamRow } from './exams';
-import { staleVersion, writeAtVersion } from './exam-moves';
+import { refuseFinished, staleVersion, writeAtVersion } from './exam-moves';
 import { recordChange } from './plan-changes';
 import { listRooms } from './rooms';
 import { readSettings } from './settings';
@@ -72,20 +72,6 @@ export async function cancelExam(db: Knex, examId: number, version: number, req:
     await recordChange(trx, { day: exam.day, userId: req.userId, reason: req.reason ?? 'exam cancelled', summary: `Cancelled ${exam.accession}: ${room?.name ?? `room ${exam.room_id}`} ${hhmm(exam.start_at, timezone)}${req.note ?? ''}`, changes: [change] }, req.now);
     return exam.day;
   });
-}
-
-/**
- * An exam whose end is recorded has a turnover under way or done, and its cleaning is being
- * logged against it: editing or removing it would take that turnover along, so it is refused.
- */
-async function refuseFinished(trx: Knex.Transaction, exam: ExamRow, what: 'edited' | 'cancelled'): Promise<void> {
-  const turnover = await trx('turnovers').where({ from_exam_id: exam.id }).first('exam_ended_at');
-  if (!turnover) return;
-  throw new Refusal(
-    'exam_finished',
-    `${exam.accession} has finished (its end was recorded at ${turnover.exam_ended_at}) and its turnover has begun, so it cannot be ${what}.`,
-    { endedAt: turnover.exam_ended_at },
-  );
 }
 
 /**

@@ -60,6 +60,7 @@ export async function moveExam(
     const exam = await trx('exams').where({ id: examId }).first();
     if (!exam) throw new NotFoundError(`No exam ${examId}.`);
     if (exam.version !== input.version) throw await staleVersion(trx, exam, timezone);
+    await refuseFinished(trx, exam, 'moved');
     const fromRoom = await trx('rooms').where({ id: exam.room_id }).first();
     const toRoomId = input.roomId ?? exam.room_id;
     const toRoom = toRoomId === exam.room_id ? fromRoom : await trx('rooms').where({ id: toRoomId, active: true }).first();
@@ -87,4 +88,19 @@ export async function moveExam(
     );
     return exam.day as string;
   });
+}
+
+/**
+ * An exam whose end is recorded has a turnover under way or done, and its cleaning is being
+ * logged against it: moving, editing or removing it would take that turnover along (and put the
+ * plan at odds with the log), so it is refused.
+ */
+export async function refuseFinished(trx: Knex, exam: { id: number; accession: string }, what: 'edited' | 'cancelled' | 'moved'): Promise<void> {
+  const turnover = await trx('turnovers').where({ from_exam_id: exam.id }).first('exam_ended_at');
+  if (!turnover) return;
+  throw new Refusal(
+    'exam_finished',
+    `${exam.accession} has finished (its end was recorded at ${turnover.exam_ended_at}) and its turnover has begun, so it cannot be ${what}.`,
+    { endedAt: turnover.exam_ended_at },
+  );
 }

@@ -64,7 +64,7 @@ export interface ErrorDetails {
   turnover_complete: { completedAt: string };
   /** 409: the exam before this turnover was moved out of the room since. */
   turnover_moved: undefined;
-  /** 409: the exam's end is recorded (its turnover has begun), so it can no longer be edited or cancelled. */
+  /** 409: the exam's end is recorded (its turnover has begun), so it can no longer be moved, edited or cancelled. */
   exam_finished: { endedAt: string };
   /** 413: the request body or the file is larger than allowed. */
   payload_too_large: undefined;

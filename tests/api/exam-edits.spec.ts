@@ -93,7 +93,7 @@ describe('adding, editing and cancelling one exam by hand', () => {
     expect(find(await plan(), 'M-2')).toMatchObject({ start: t('09:10'), procedure: 'MR exam' });
   });
 
-  it('refuses to edit or cancel an exam whose end is recorded (409 exam_finished), keeping it and its turnover', async () => {
+  it('refuses to edit, cancel or move an exam whose end is recorded (409 exam_finished), keeping it and its turnover', async () => {
     const tech = await signedIn(h.app, 'tech');
     const m1 = find(await plan(), 'M-1')!;
     const finished = await tech.post(`/api/exams/${m1.id}/finished`, { earlyReason: 'Scan stopped early at the patient\'s request' });
@@ -104,6 +104,11 @@ describe('adding, editing and cancelling one exam by hand', () => {
     const edit = await scheduler.put(`/api/exams/${m1.id}`, { ...form, accession: 'M-1', version: m1.version });
     expect(edit.status).toBe(409);
     expect(edit.body.error.code).toBe('exam_finished');
+    // Nor moved: the plan would put it where the cleaning log says it was not.
+    const move = await scheduler.patch(`/api/exams/${m1.id}`, { start: t('08:20'), version: m1.version });
+    expect(move.status).toBe(409);
+    expect(move.body.error).toMatchObject({ code: 'exam_finished', details: { endedAt: expect.any(String) } });
+    expect(move.body.error.message).toContain('cannot be moved');
     expect(find(await plan(), 'M-1')).toMatchObject({ id: m1.id, start: t('08:00'), procedure: 'MR exam' });
     expect(await h.db('turnovers').where({ from_exam_id: m1.id }).count({ n: '*' }).first()).toEqual({ n: 1 });
   });

@@ -49,6 +49,10 @@ import { SiteTime } from '../../shared/ui/site-time';
       <strong>{{ c.cleanType }} clean</strong>
       <span>· {{ c.staff }} {{ c.staff === 1 ? 'person' : 'people' }} ·</span>
       <tw-precaution-label [precaution]="c.precaution" />
+      @if (c.examEndedAt && c.readyAt) {
+        <!-- Up top as well as beside "Turnover complete" below the steps: what the next patient waits for. -->
+        <span class="ready-soon">· ready at {{ c.readyAt | siteTime }}{{ lateWords() }}</span>
+      }
     </p>
     @if (c.leaving && !c.examEndedAt; as leaving) {
       @if (reasonOpen()) {
@@ -111,6 +115,13 @@ export class TurnoverExams {
     return !!leaving && Date.parse(leaving.start) > this.now();
   });
   protected readonly reasonOpen = computed(() => this.opened() || this.askReason());
+  /** ", 6 min after ACC-1012's start" when the room will be ready after the arriving patient's slot begins. */
+  protected readonly lateWords = computed(() => {
+    const { readyAt, arriving } = this.checklist();
+    if (!readyAt || !arriving) return '';
+    const late = Math.ceil((Date.parse(readyAt) - Date.parse(arriving.start)) / 60_000);
+    return late > 0 ? `, ${late} min after ${arriving.accession}'s start` : '';
+  });
 
   protected typeReason(event: Event): void {
     this.reason.set((event.target as HTMLInputElement).value);

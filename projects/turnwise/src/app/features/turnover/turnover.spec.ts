@@ -74,6 +74,7 @@ describe('Turnover', () => {
     const waiting = exampleChecklist({ examEndedAt: null, turnoverId: null });
     const { page, backend, fixture } = await render(waiting);
     expect(button(row(page, 'clear'), 'button.tick').disabled).toBe(true);
+    expect(page.querySelector('.ready-soon')).toBeNull(); // not before the exam is finished
     button(page, 'button.exam-finished').click();
     const request = backend.expectOne('/api/exams/41/finished');
     expect(request.request.method).toBe('POST');
@@ -81,6 +82,16 @@ describe('Turnover', () => {
     await answer(fixture, request, exampleChecklist());
     expect(page.querySelector('button.exam-finished')).toBeNull();
     expect(button(row(page, 'clear'), 'button.tick').disabled).toBe(false);
+  });
+
+  it('says at the top when the room will be ready, once the turnover is open', async () => {
+    const { page } = await render(exampleChecklist());
+    expect(text(page.querySelector('.ready-soon'))).toBe('· ready at 10:40');
+  });
+
+  it('says how far past the arriving patient\'s start the room will be ready when it runs late', async () => {
+    const { page } = await render(exampleChecklist({ readyAt: at('10:56') }));
+    expect(text(page.querySelector('.ready-soon'))).toBe("· ready at 10:56, 6 min after ACC-2042's start");
   });
 
   it('says which protocol version the turnover was planned with, and when a step is applied more than once (re-wet)', async () => {
