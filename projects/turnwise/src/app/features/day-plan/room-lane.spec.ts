@@ -26,6 +26,12 @@ describe('RoomLane', () => {
     expect(page.querySelector('.header')!.getAttribute('tabindex')).toBeNull();
   });
 
+  it("says on hover that the header's times are its exams', not the room's opening hours", async () => {
+    const span = (await lane(true)).querySelector('.span > span')!;
+    expect(span.textContent!.trim()).toBe('08:00–08:30');
+    expect(span.getAttribute('title')).toBe("First exam starts 08:00, last one ends 08:30 (the room's opening hours are in Setup)");
+  });
+
   it('shows only its header when not drawn, and keeps it a tab stop so focus can bring the lane into view', async () => {
     const page = await lane(false);
     expect(page.querySelectorAll('tw-exam-block, tw-gap-marker')).toHaveLength(0);

@@ -53,6 +53,11 @@ export class RoomLane {
     const exams = this.room().exams;
     return exams.length ? `${clockOf(exams[0].start)}–${clockOf(exams[exams.length - 1].end)}` : 'no exams';
   });
+  /** The span is the day's exams, not the room's hours (Setup has those): said on hover. */
+  protected readonly spanHint = computed(() => {
+    const exams = this.room().exams;
+    return exams.length ? `First exam starts ${clockOf(exams[0].start)}, last one ends ${clockOf(exams[exams.length - 1].end)} (the room's opening hours are in Setup)` : 'No exams in this room this day';
+  });
   protected readonly problems = computed(() => this.room().gaps.filter((gap) => gap.verdict !== 'fits').length);
   protected readonly problemsHint = computed(() => {
     const n = this.problems();
