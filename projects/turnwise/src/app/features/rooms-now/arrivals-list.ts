@@ -23,7 +23,7 @@ import { SiteTime } from '../../shared/ui/site-time';
           <li [attr.data-exam]="arrival.examId">
             <strong class="time">{{ arrival.start | siteTime }}</strong>
             <span class="room">{{ arrival.roomName }}</span>
-            <span class="accession">{{ arrival.accession }}</span>
+            <span class="accession" [title]="arrival.accession">{{ arrival.accession }}</span>
             <span class="procedure">{{ arrival.procedure }}</span>
             <span class="status">
               @if (arrival.arrivedAt) {
@@ -55,7 +55,7 @@ import { SiteTime } from '../../shared/ui/site-time';
     .list { display: grid; margin: 0; padding: 0; list-style: none; }
     li {
       display: grid;
-      grid-template-columns: 4em 5em 8em minmax(8em, 1fr) auto;
+      grid-template-columns: 4em 5em 10em minmax(8em, 1fr) auto;
       align-items: center;
       gap: 4px 12px;
       min-height: 52px;
@@ -63,6 +63,8 @@ import { SiteTime } from '../../shared/ui/site-time';
     }
     li:first-child { border-top: 0; }
     .time { font: var(--mat-sys-title-medium); font-variant-numeric: tabular-nums; }
+    /* One line: an accession broken in two reads as two numbers (a long one ends in "…", whole on hover). */
+    .accession { white-space: nowrap; overflow: hidden; text-overflow: ellipsis; font-variant-numeric: tabular-nums; }
     .status { display: flex; flex-wrap: wrap; align-items: center; justify-content: flex-end; gap: 4px 8px; }
     .waiting { display: inline-flex; align-items: center; gap: 4px; font-weight: 600; color: var(--tw-state-in-exam-ink); }
     button { min-height: 48px; }
