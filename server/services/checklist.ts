@@ -126,7 +126,8 @@ export async function loadChecklist(db: Knex, roomId: number, day: string, now: 
     airHoldPlannedUntil: hold.plannedUntilMs === null ? null : format(hold.plannedUntilMs),
     airHoldPastNextStartMinutes: hold.pastNextStartMinutes,
     steps,
-    readyAt: format(progress ? progress.readyAtMs : fromMs + shiftMs + planned.requiredMinutes * MINUTE),
+    // An estimate while open, up to the whole minute as Rooms now shows it (the room is not ready at 13:56 when it is at 13:56:30); once complete, when it was.
+    readyAt: format(progress && record?.completedAt ? progress.readyAtMs : Math.ceil((progress ? progress.readyAtMs : fromMs + shiftMs + planned.requiredMinutes * MINUTE) / MINUTE) * MINUTE),
     completedAt: record?.completedAt ?? null,
   };
 }

@@ -69,6 +69,12 @@ describe('the turnover checklist over time', () => {
     const gaps = (c: Checklist) => c.steps.filter((s) => s.key !== 'clear').map((s) => Date.parse(s.planned.start) - Date.parse(c.steps[1]!.planned.start));
     expect(gaps(later)).toEqual(gaps(opened));
     expect(Date.parse(later.readyAt!)).toBeGreaterThanOrEqual(Date.parse(local('09:50')));
+
+    // Half a minute on, the estimate is on a whole minute, up (as Rooms now shows it), never in seconds.
+    h.clock.set(local('09:50').replace(':00-', ':30-'));
+    const halfway = await checklist();
+    expect(new Date(halfway.readyAt!).getUTCSeconds()).toBe(0);
+    expect(Date.parse(halfway.readyAt!)).toBe(Date.parse(later.readyAt!) + 60_000);
   });
 
   it('re-plans the opening from now once the room is open and no exam has started', async () => {
