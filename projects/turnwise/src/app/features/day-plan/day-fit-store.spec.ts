@@ -1,4 +1,5 @@
-import { applyRefusalWords } from './day-fit-store';
+import type { DayFitAnswer } from '@shared/api/day-fit';
+import { applyRefusalWords, appliedWords } from './day-fit-store';
 
 describe('applyRefusalWords', () => {
   const refusal = (problems: { field: string; message: string }[]) => ({
@@ -24,5 +25,17 @@ describe('applyRefusalWords', () => {
       'The day has changed since this proposal was made; nothing was applied. Make the day fit again.',
     );
     expect(applyRefusalWords(refusal([]))).toBe('This proposal cannot be applied as sent.');
+  });
+});
+
+describe('appliedWords', () => {
+  // Invented: only what the words read.
+  const proposal = (examsMoved: number, calls: number, helpers: number) =>
+    ({ objective: { examsMoved }, calls: Array.from({ length: calls }), helpers: Array.from({ length: helpers }) }) as unknown as DayFitAnswer;
+
+  it('says what was applied, whom to call and that Undo takes it all back', () => {
+    expect(appliedWords(proposal(2, 2, 0))).toBe('Proposal applied: 2 exams moved. Call the 2 patients under Patients to call. Undo takes all of it back.');
+    expect(appliedWords(proposal(1, 1, 1))).toBe('Proposal applied: 1 exam moved, 1 helper added. Call the patient under Patients to call. Undo takes all of it back.');
+    expect(appliedWords(proposal(1, 0, 0))).toBe('Proposal applied: 1 exam moved. Undo takes all of it back.');
   });
 });

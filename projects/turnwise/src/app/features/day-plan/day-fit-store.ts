@@ -59,7 +59,7 @@ export class DayFitStore {
       return;
     }
     this.proposal.set(null);
-    await this.plan.accept(result.value);
+    if (await this.plan.accept(result.value)) this.plan.tell({ tone: 'info', text: appliedWords(proposal) });
   }
 
   discard(): void {
@@ -80,4 +80,20 @@ export function applyRefusalWords(error: ApiError): string {
   const shown = problems.slice(0, 2).map((p) => p.message);
   const more = problems.length > shown.length ? ` and ${problems.length - shown.length} more` : '';
   return `${error.message.replace(/\.$/, '')}: ${shown.join('; ')}${more}. Make the day fit again.`;
+}
+
+/**
+ * What an applied proposal did, said where the Day plan says what happened: the panel is gone
+ * with it, so without this nothing on screen would confirm it.
+ *
+ * @example
+ * appliedWords(proposal); // 'Proposal applied: 2 exams moved. Call the 2 patients under Patients to call. Undo takes all of it back.'
+ */
+export function appliedWords(proposal: DayFitAnswer): string {
+  const moved = proposal.objective.examsMoved;
+  const calls = proposal.calls.length;
+  const helpers = proposal.helpers.length;
+  const done = [`${moved} exam${moved === 1 ? '' : 's'} moved`, ...(helpers > 0 ? [`${helpers} helper${helpers === 1 ? '' : 's'} added`] : [])].join(', ');
+  const call = calls > 0 ? ` Call the ${calls === 1 ? 'patient' : `${calls} patients`} under Patients to call.` : '';
+  return `Proposal applied: ${done}.${call} Undo takes all of it back.`;
 }
