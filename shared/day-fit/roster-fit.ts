@@ -22,7 +22,11 @@ const FIRST_ROUND_SHARE = 0.6;
 /** The rounds' share of the whole budget at most: the rest is kept for the pushes and windows after them. */
 const ROUNDS_SHARE = 0.5;
 
-/** The share of the budget kept for taking back moves not needed (`settleBack`) after the pushes and windows. */
+/**
+ * Time for taking back the moves not needed (`settleBack`) after the pushes and windows, as a
+ * share of their budget, on top of it (within the limit): clearing gaps comes first, and never
+ * gives time up to it.
+ */
 const SETTLE_SHARE = 0.25;
 
 /** Neighbourhood reaches a later round tries (the own room, then a block of rooms, 30 min). */
@@ -45,8 +49,8 @@ type Propose = (input: DayPlanInput, solve: MipSolve, options: DayFitOptions) =>
  * (then fewest exams moved, minutes, the earliest end) is taken; what it leaves is pushed along
  * its room (`pushAlongRooms`), tried window by window with the exact roster model
  * (`improveInWindows`) and pushed again, each step kept only when the roster finds fewer problem
- * gaps; in the last quarter of the time, the moves that turn out not to be needed are taken back
- * (`settleBack`: fewer patients to call, never more gaps). That is the proposal; its before, after and gaps left are the
+ * gaps; then, in a quarter of the budget more (within the time limit), the moves that turn out not
+ * to be needed are taken back (`settleBack`: fewer patients to call, never more gaps). That is the proposal; its before, after and gaps left are the
  * roster's, and a gap left for people says why in the gap panel's words ("Short by 6 min:
  * Aide 1 is in MR 2 until 10:12"), beside the solver's reason when it has one. The rounds are a
  * heuristic around the exact MIP: there the crews are not variables of the model, so such a
@@ -106,28 +110,27 @@ export function proposeWithRoster(input: DayPlanInput, solve: MipSolve, options:
   let windows = 0;
   let pushes = 0;
   let returned = 0;
-  // The pushes and windows stop early enough to leave the settling its share.
-  const workUntil = deadline - (deadline - started) * SETTLE_SHARE;
   const day = fitDay(input, options);
   let arrangement = arrangementOf(day, best!.proposal.changes);
   let plan = best!.plan;
-  if (best!.score[0]! > 0 && workUntil - now() > 200) {
+  if (best!.score[0]! > 0 && deadline - now() > 200) {
     const push = () => {
-      const pushed = pushAlongRooms(day, arrangement, plan, options, workUntil);
+      const pushed = pushAlongRooms(day, arrangement, plan, options, deadline);
       ({ arrangement, plan } = pushed);
       pushes += pushed.kept;
     };
     push();
-    if (problemsOf(plan).length > 0 && (options.rosterWindows ?? true) && workUntil - now() > 200) {
-      const improved = improveInWindows(day, arrangement, plan, solve, options, workUntil, tally);
+    if (problemsOf(plan).length > 0 && (options.rosterWindows ?? true) && deadline - now() > 200) {
+      const improved = improveInWindows(day, arrangement, plan, solve, options, deadline, tally);
       ({ arrangement, plan } = improved);
       windows = improved.kept;
       if (windows > 0 && problemsOf(plan).length > 0) push();
     }
   }
-  // Then the moves that turn out not to be needed are taken back, in what is left of the time.
-  if (deadline - now() > 100) {
-    const settled = settleBack(day, arrangement, plan, options, deadline);
+  // Then the moves that turn out not to be needed are taken back, in a quarter of the budget more (within the limit).
+  const settleUntil = Math.min(started + limit, deadline + (deadline - started) * SETTLE_SHARE);
+  if (settleUntil - now() > 100) {
+    const settled = settleBack(day, arrangement, plan, options, settleUntil);
     ({ arrangement, plan } = settled);
     returned = settled.returned;
   }

@@ -72,13 +72,23 @@ describe('settleBack (invented examples)', () => {
     expect(returned).toBe(0);
   });
 
+  // One aide for MR 1 and MR 2 (walking 3 min between rooms: common practice, no source): MR 2's
+  // turnover holds the aide until 10:12, so MR 1's gap into SB-12 at 10:29 is short by 6.
+  const oneAide: DayPlanInput = {
+    ...day, rooms: [room(1), room(2)],
+    exams: [exam(11, 1, '09:00', 60), exam(12, 1, '10:29'), exam(13, 2, '09:00', 52), exam(14, 2, '10:20')],
+    roster: { source: 'day', walkingMinutes: 3, people: [{ id: 'a1', name: null, label: 'Aide 1', role: 'aide', start: '07:00', end: '15:00', breaks: [], roomIds: [1, 2] }] },
+  };
+
+  it('keeps a move that leaves the aide’s gap less short: SB-12 at 10:32 is short by 3, back at 10:29 by 6 (one gap short either way)', () => {
+    const { before, starts, returned } = settle(oneAide, { 12: '10:32' }, { fixed: { 13: 'arrived', 14: 'arrived' } });
+    expect(before.rooms[0]!.gaps[1]).toMatchObject({ verdict: 'short', shortByMinutes: 3 });
+    expect(starts).toEqual({ 'SB-12': at('10:32') });
+    expect(returned).toBe(0);
+  });
+
   it('judges with the roster’s crews: the aide busy in MR 2 until 10:12 keeps SB-12 at 10:35 though MR 1 alone would fit at 10:29', () => {
-    // One aide for MR 1 and MR 2 (walking 3 min between rooms: common practice, no source).
-    const input: DayPlanInput = {
-      ...day, rooms: [room(1), room(2)],
-      exams: [exam(11, 1, '09:00', 60), exam(12, 1, '10:29'), exam(13, 2, '09:00', 52), exam(14, 2, '10:20')],
-      roster: { source: 'day', walkingMinutes: 3, people: [{ id: 'a1', name: null, label: 'Aide 1', role: 'aide', start: '07:00', end: '15:00', breaks: [], roomIds: [1, 2] }] },
-    };
+    const input = oneAide;
     const { roster: _roster, ...ownStaff } = input;
     expect(problems(computeDayPlan(ownStaff).summary)).toBe(0);
     const { starts, returned, after } = settle(input, { 12: '10:35' }, { fixed: { 13: 'arrived', 14: 'arrived' } });

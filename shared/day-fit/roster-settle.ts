@@ -13,7 +13,8 @@ const MOST_PASSES = 2;
  * Calls fewer patients: each exam a large roster day's proposal moves (most minutes first) is
  * put back where it was booked, or else half-way back, and kept there when the roster's
  * judgement of its part of the day (`judgePart`) has no more problem gaps and no more minutes
- * short. The rounds and pushes clear gaps by moving whole runs of exams, and some of those moves
+ * short (a return that leaves a gap beside it in its room short even with the largest crew the
+ * room allows, starting at once, is refused without that judgement: most are). The rounds and pushes clear gaps by moving whole runs of exams, and some of those moves
  * turn out not to be needed once the others are made; this takes them back. A return stays in the
  * room's hours and no earlier than the exam may start, as both its booked place and its place now
  * do (an exam booked outside its hours or before then stays where it is). Never worse on any level
@@ -54,6 +55,11 @@ export function settleBack(
         else places.set(id, to);
         const candidate = { places, staffing: arrangement.staffing };
         const parts = new Set([...(partOf.get(at.roomId) ?? []), ...(partOf.get(to.roomId) ?? [])]);
+        // A return that leaves a gap beside it short even with the largest crew at once is not worth the engine's judgement.
+        if (certainlyShort(candidate, id, to)) {
+          refused.add(key);
+          continue;
+        }
         const judged = judgePart(plan, withChanges(day.input, changesOf(day, candidate)), parts);
         if (problems(judged.summary) <= problems(plan.summary) && judged.summary.minutesShort <= plan.summary.minutesShort) {
           arrangement = candidate;
@@ -70,6 +76,26 @@ export function settleBack(
     if (!changed) break;
   }
   return finish();
+
+  /** Whether the exam at `to` leaves a gap next to it short even with the largest crew its room allows, right away. */
+  function certainlyShort(arr: RosterArrangement, id: number, to: { roomId: number; start: number }): boolean {
+    const room = day.input.rooms.find((r) => r.id === to.roomId)!;
+    const inRoom = [...exams.values()]
+      .map((x) => ({ x, at: arr.places.get(x.exam.id) ?? { roomId: x.roomId, start: x.start } }))
+      .filter((e) => e.at.roomId === to.roomId)
+      .sort((a, b) => a.at.start - b.at.start || a.x.exam.id - b.x.exam.id);
+    const k = inRoom.findIndex((e) => e.x.exam.id === id);
+    const fastest = (leaving: FitExam | null, arriving: FitExam) => {
+      const most = day.helperStaff(room, arriving.exam) ?? day.baseStaff(room, arriving.exam);
+      return Math.min(...Array.from({ length: most }, (_, q) => day.required(room, leaving?.exam ?? null, arriving.exam, q + 1)));
+    };
+    const prev = inRoom[k - 1];
+    const next = inRoom[k + 1];
+    const self = inRoom[k]!;
+    if (prev && prev.at.start + prev.x.duration + fastest(prev.x, self.x) > self.at.start) return true;
+    if (next && self.at.start + self.x.duration + fastest(self.x, next.x) > next.at.start) return true;
+    return false;
+  }
 
   function finish() {
     // The whole day once more: its people's work, as the parts left it.
