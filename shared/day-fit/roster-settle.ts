@@ -14,7 +14,8 @@ const MOST_PASSES = 2;
  * put back where it was booked, or else half-way back, and kept there when the roster's
  * judgement of its part of the day (`judgePart`) has no more problem gaps and no more minutes
  * short (a return that leaves a gap beside it in its room short even with the largest crew the
- * room allows, starting at once, is refused without that judgement: most are). The rounds and pushes clear gaps by moving whole runs of exams, and some of those moves
+ * room allows starting at once, where the exam's place now leaves none so, is refused without
+ * that judgement: most are). The rounds and pushes clear gaps by moving whole runs of exams, and some of those moves
  * turn out not to be needed once the others are made; this takes them back. A return stays in the
  * room's hours and no earlier than the exam may start, as both its booked place and its place now
  * do (an exam booked outside its hours or before then stays where it is). Never worse on any level
@@ -55,8 +56,9 @@ export function settleBack(
         else places.set(id, to);
         const candidate = { places, staffing: arrangement.staffing };
         const parts = new Set([...(partOf.get(at.roomId) ?? []), ...(partOf.get(to.roomId) ?? [])]);
-        // A return that leaves a gap beside it short even with the largest crew at once is not worth the engine's judgement.
-        if (certainlyShort(candidate, id, to)) {
+        // A return that leaves a gap beside it short even with the largest crew at once, where its
+        // place now leaves none so, is not worth the engine's judgement.
+        if (certainlyShort(candidate, id, to) && !certainlyShort(arrangement, id, at)) {
           refused.add(key);
           continue;
         }
