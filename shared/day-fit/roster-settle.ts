@@ -15,12 +15,12 @@ const MOST_PASSES = 2;
  * judgement of its part of the day (`judgePart`) has no more problem gaps and no more minutes
  * short (a return that leaves a gap beside it in its room short even with the largest crew the
  * room allows starting at once, where the exam's place now leaves none so, is refused without
- * that judgement: most are). The rounds and pushes clear gaps by moving whole runs of exams, and some of those moves
- * turn out not to be needed once the others are made; this takes them back. A return stays in the
- * room's hours and no earlier than the exam may start, as both its booked place and its place now
- * do (an exam booked outside its hours or before then stays where it is). Never worse on any level
- * (gaps, exams moved, minutes moved), not proven the best. Answers the arrangement, its plan and
- * how many exams came back (all the way or half).
+ * that judgement: most are). The rounds and pushes clear gaps by moving whole runs of exams, and
+ * some of those moves turn out not to be needed once the others are made; this takes them back.
+ * A return stays in the room's hours and no earlier than the exam may start, as both its booked
+ * place and its place now do (an exam booked outside its hours or before then stays where it
+ * is). Never worse on any level (gaps, exams moved, minutes moved), not proven the best. Answers
+ * the arrangement, its plan and how many exams came back (all the way or half).
  *
  * @example
  * settleBack(day, arrangement, plan, options, Date.now() + 1_000).returned; // 3
