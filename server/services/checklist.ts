@@ -112,6 +112,9 @@ export async function loadChecklist(db: Knex, roomId: number, day: string, now: 
     };
   });
   const hold = airHoldOf(planned.airHoldMinutes, fromMs, record, arriving);
+  // An estimate until complete, up to the whole minute as Rooms now shows it (a room ready at
+  // 13:56:30 is not ready at 13:56); once complete, when it was.
+  const readyAtMs = progress ? progress.readyAtMs : fromMs + shiftMs + planned.requiredMinutes * MINUTE;
   return {
     ...base,
     turnoverId: record?.id ?? null,
@@ -126,8 +129,7 @@ export async function loadChecklist(db: Knex, roomId: number, day: string, now: 
     airHoldPlannedUntil: hold.plannedUntilMs === null ? null : format(hold.plannedUntilMs),
     airHoldPastNextStartMinutes: hold.pastNextStartMinutes,
     steps,
-    // An estimate while open, up to the whole minute as Rooms now shows it (the room is not ready at 13:56 when it is at 13:56:30); once complete, when it was.
-    readyAt: format(progress && record?.completedAt ? progress.readyAtMs : Math.ceil((progress ? progress.readyAtMs : fromMs + shiftMs + planned.requiredMinutes * MINUTE) / MINUTE) * MINUTE),
+    readyAt: format(record?.completedAt ? readyAtMs : Math.ceil(readyAtMs / MINUTE) * MINUTE),
     completedAt: record?.completedAt ?? null,
   };
 }

@@ -49,9 +49,9 @@ type Propose = (input: DayPlanInput, solve: MipSolve, options: DayFitOptions) =>
  * (then fewest exams moved, minutes, the earliest end) is taken; what it leaves is pushed along
  * its room (`pushAlongRooms`), tried window by window with the exact roster model
  * (`improveInWindows`) and pushed again, each step kept only when the roster finds fewer problem
- * gaps; then, in a quarter of the budget more (within the time limit), the moves that turn out not
- * to be needed are taken back (`settleBack`: fewer patients to call, never more gaps). That is the proposal; its before, after and gaps left are the
- * roster's, and a gap left for people says why in the gap panel's words ("Short by 6 min:
+ * gaps; then, in a quarter of the budget more (within the time limit), the moves that turn out
+ * not to be needed are taken back (`settleBack`: fewer patients to call, never more gaps). That is
+ * the proposal; its before, after and gaps left are the roster's, and a gap left for people says why in the gap panel's words ("Short by 6 min:
  * Aide 1 is in MR 2 until 10:12"), beside the solver's reason when it has one. The rounds are a
  * heuristic around the exact MIP: there the crews are not variables of the model, so such a
  * proposal is not proven optimal.
