@@ -35,6 +35,7 @@ describe('DayPlan problem gaps and patients to call', () => {
   it('on today, starts stepping from now: the first problem still ahead, not the morning\'s that is over', async () => {
     // At 08:50 ACC-2's gap (into 08:45) has gone by; ACC-21's (09:00) is still ahead.
     const { page, fixture, backend } = await renderDay({ plan: twoProblems(), now: at('08:50') });
+    expect(text(page.querySelector('.problem-steps .where'))).toBe('2 gaps to check, 1 still ahead');
     page.querySelector<HTMLButtonElement>('button.next-problem')!.click();
     await settle(fixture);
     backend.match(() => true);

@@ -86,6 +86,13 @@ export class DayPlan {
     const plan = this.store.plan();
     return plan ? problemGaps(plan) : [];
   });
+  /** On today, how many of them are still ahead (", 2 still ahead"), when some are over; else nothing. */
+  protected readonly aheadWords = computed(() => {
+    if (this.day() !== this.today()) return '';
+    const now = this.clock.minute();
+    const ahead = this.problems().filter((problem) => problem.atMs >= now).length;
+    return ahead < this.problems().length ? `, ${ahead} still ahead` : '';
+  });
   protected readonly problemAt = computed(() => this.problems().findIndex((problem) => problem.gap.toExamId === this.selectedGap()));
 
   protected readonly mayMove = computed(() => may(this.role(), 'moveSlots'));
