@@ -149,4 +149,5 @@ function problemGaps(plan: DayPlan): { roomId: number; toExamId: number; at: num
     .sort((a, b) => a.at - b.at);
 }
 
-const problemCount = (summary: PlanSummary) => summary.short + summary.overlap;
+/** Short and overlapping gaps of a plan's summary: what the roster's steps count first. */
+export const problemCount = (summary: PlanSummary) => summary.short + summary.overlap;

@@ -1,9 +1,9 @@
 import { withChanges } from '../fixes/apply-changes';
 import { computeDayPlan } from '../turnover/day-plan';
-import type { DayPlan, PlanSummary } from '../turnover/day-plan-types';
+import type { DayPlan } from '../turnover/day-plan-types';
 import type { FitDay, FitExam } from './instance';
 import type { DayFitOptions } from './model';
-import { judgePart, partsByPeople } from './roster-push';
+import { judgePart, partsByPeople, problemCount } from './roster-push';
 import { changesOf, type RosterArrangement } from './roster-windows';
 
 /** Passes over the moved exams at most (a return kept can make room for one refused before). */
@@ -63,7 +63,7 @@ export function settleBack(
           continue;
         }
         const judged = judgePart(plan, withChanges(day.input, changesOf(day, candidate)), parts);
-        if (problems(judged.summary) <= problems(plan.summary) && judged.summary.minutesShort <= plan.summary.minutesShort) {
+        if (problemCount(judged.summary) <= problemCount(plan.summary) && judged.summary.minutesShort <= plan.summary.minutesShort) {
           arrangement = candidate;
           plan = judged;
           returned.add(id);
@@ -115,7 +115,5 @@ export function settleBack(
     }
     return out.sort((a, b) => b[1] - a[1] || a[0] - b[0]).map(([id]) => id);
   }
-
 }
 
-const problems = (summary: PlanSummary) => summary.short + summary.overlap;
